@@ -1,0 +1,31 @@
+import type { Chemistry } from './domain';
+
+export interface CellVoltages {
+  readonly nominalV: number;
+  readonly fullV: number;
+  readonly cutoffV: number;
+}
+
+/**
+ * Per-cell voltages by chemistry. LiPo, LiFePO4 and Li-ion NMC follow cell makers'
+ * specification sheets (LiFePO4 nominal is printed as 3.2 or 3.3 V; the lower figure is
+ * taken). LiHV and NiMH follow common practice; NiMH "full" is the usual resting peak after
+ * charge, not the voltage under charge.
+ */
+export const CELL_VOLTAGES: Readonly<Record<Chemistry, CellVoltages>> = {
+  lipo: { nominalV: 3.7, fullV: 4.2, cutoffV: 3.0 },
+  lihv: { nominalV: 3.8, fullV: 4.35, cutoffV: 3.0 },
+  lifepo4: { nominalV: 3.2, fullV: 3.65, cutoffV: 2.5 },
+  liion: { nominalV: 3.6, fullV: 4.2, cutoffV: 2.5 },
+  nimh: { nominalV: 1.2, fullV: 1.45, cutoffV: 1.0 },
+};
+
+export function cellVoltages(chemistry: Chemistry): CellVoltages | null {
+  // Records from files may carry a chemistry this version does not know.
+  return Object.hasOwn(CELL_VOLTAGES, chemistry) ? CELL_VOLTAGES[chemistry] : null;
+}
+
+/** Lithium chemistries can burn when abused; messages say so only for these. */
+export function isLithium(chemistry: Chemistry): boolean {
+  return chemistry !== 'nimh';
+}

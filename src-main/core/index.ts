@@ -1,0 +1,25 @@
+// The pure computation core: importable from the store, the service, the command line and the
+// renderer alike. No I/O here.
+
+export * from './domain';
+export * from './constants';
+export * from './units';
+export * from './chemistry';
+export { packModel, packResistance, loadedVoltage, cRatingCurrent, type PackModel } from './pack';
+export { supplyModel, combineSeries, combineParallel, type SupplyModel } from './supply';
+export * from './motor';
+export * from './motor-curve';
+export * from './drivetrain';
+export * from './road-load';
+export * from './ground-load';
+export * from './propeller';
+export { findRoot, type RootFunction } from './solve';
+export * from './rules';
+export { checkLimit, type LimitCheck } from './rule-check';
+export { worstStatus, compareStatus, marginOf, statusOf } from './status';
+export { tightThresholdFor } from './threshold';
+export { classRulesFor, classFindings } from './class-rules';
+export { fieldLabel, describeMissing } from './field-labels';
+export { NOT_APPLICABLE } from './operating-model';
+export { evaluateBuild } from './evaluate';
+export type { Known } from './known';

@@ -1,0 +1,42 @@
+import { writeFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import { app, BrowserWindow, dialog, type WebContents } from 'electron';
+import * as v from 'valibot';
+import type { CallResult } from '../service/contract';
+import { pdfFileName } from './pdf-file-name';
+
+export const PRINT_TO_PDF = 'desktop.printToPdf';
+
+const PrintArgs = v.optional(
+  v.object({
+    suggestedName: v.optional(v.pipe(v.string('suggestedName must be text'), v.maxLength(200, 'suggestedName must be at most 200 characters'))),
+    landscape: v.optional(v.boolean('landscape must be true or false')),
+  }),
+);
+
+export interface ShellCallContext {
+  sender: WebContents;
+}
+
+/** `desktop.printToPdf`: asks where to save, then writes the current page as a PDF. */
+export async function printToPdf(context: ShellCallContext, args: unknown): Promise<CallResult> {
+  const parsed = v.safeParse(PrintArgs, args);
+  if (!parsed.success) {
+    const issue = parsed.issues[0];
+    const field = issue ? v.getDotPath(issue) ?? undefined : undefined;
+    return { ok: false, error: { kind: 'invalid', message: issue?.message ?? 'Invalid print options', ...(field ? { field } : {}) } };
+  }
+  const options = parsed.output ?? {};
+  const owner = BrowserWindow.fromWebContents(context.sender);
+  const dialogOptions = {
+    title: 'Save build sheet as PDF',
+    defaultPath: join(app.getPath('documents'), pdfFileName(options.suggestedName)),
+    filters: [{ name: 'PDF', extensions: ['pdf'] }],
+  };
+  const choice = owner ? await dialog.showSaveDialog(owner, dialogOptions) : await dialog.showSaveDialog(dialogOptions);
+  if (choice.canceled || !choice.filePath) return { ok: true, value: { saved: false } };
+
+  const pdf = await context.sender.printToPDF({ printBackground: true, pageSize: 'A4', landscape: options.landscape ?? false });
+  await writeFile(choice.filePath, pdf);
+  return { ok: true, value: { saved: true, path: choice.filePath } };
+}

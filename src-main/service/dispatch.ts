@@ -1,0 +1,36 @@
+import { handlers, type HandlerName } from './handlers';
+import { ServiceError, type ApiError, type CallResult } from './contract';
+import type { ServiceContext } from './service-context';
+import type { AnyHandler } from './define-handler';
+import { validate } from './validate';
+
+export function isHandlerName(name: string): name is HandlerName {
+  // Own keys only: "constructor" or "__proto__" must not reach a prototype's function.
+  return Object.hasOwn(handlers, name);
+}
+
+/** Turns anything thrown into an error a person can act on; internals stay in the log. */
+export function toApiError(error: unknown, log: (message: string) => void = (m) => process.stderr.write(`${m}\n`)): ApiError {
+  if (error instanceof ServiceError) return error.field === undefined ? { kind: error.kind, message: error.message } : { kind: error.kind, message: error.message, field: error.field };
+  const code = (error as { code?: unknown } | null)?.code;
+  if (code === 'SQLITE_BUSY' || code === 'SQLITE_LOCKED') return { kind: 'conflict', message: 'The store is busy with another write. Nothing was saved; try again.' };
+  if (typeof code === 'string' && code.startsWith('SQLITE_CONSTRAINT')) {
+    log(`constraint: ${String((error as Error).message)}`);
+    return { kind: 'invalid', message: 'The change breaks a link between records (a referenced record is missing or still in use). Nothing was saved.' };
+  }
+  log(`internal error: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`);
+  return { kind: 'internal', message: 'Something went wrong inside Rigbook. Nothing was saved. The details are in the log.' };
+}
+
+export async function dispatch(ctx: ServiceContext, name: string, args: unknown): Promise<CallResult> {
+  if (typeof name !== 'string' || !isHandlerName(name)) {
+    return { ok: false, error: { kind: 'unknown-handler', message: `No operation named "${String(name).slice(0, 80)}"` } };
+  }
+  const handler: AnyHandler = handlers[name];
+  try {
+    const input = validate(handler.input, args);
+    return { ok: true, value: await handler.run(ctx, input) };
+  } catch (error) {
+    return { ok: false, error: toApiError(error) };
+  }
+}

@@ -1,0 +1,191 @@
+import * as v from 'valibot';
+import type { Build, Supply } from '../../core/domain';
+import { evaluateBuild } from '../../core/evaluate';
+import type { DbHandle } from '../../store/db-handle';
+import { getBuild, insertBuild, updateBuildAtVersion, type BuildFields } from '../../store/repositories/builds';
+import { listBuildSummaries } from '../../store/repositories/build-list';
+import { getPart, getParts } from '../../store/repositories/parts';
+import { getVerdict } from '../../store/repositories/verdicts';
+import { readSettings } from '../../store/repositories/settings';
+import { ServiceError } from '../contract';
+import { defineHandler } from '../define-handler';
+import { describeChange } from '../record-diff';
+import { loadBuildContexts } from '../recheck';
+import { runWrite, type WriteOutcome } from '../run-write';
+import { buildCreateSchema, buildPatchSchema } from '../schemas/build-schemas';
+import { partSchemasByTable } from '../schemas/part-schemas-by-table';
+import { flag, id, oneOf, record, text } from '../schemas/field-builders';
+import { STATUSES, VEHICLE_KINDS } from '../../core/domain';
+import { conflict, reasonField, updateInput, writePartPatch } from './part-handlers';
+import type { ServiceContext } from '../service-context';
+
+type SupplyInput = { id?: string | undefined; arrangement: Supply['arrangement']; batteryIds: string[] };
+
+/** Every id a build names must exist; the message names the field the user filled. */
+async function checkReferences(db: DbHandle, buildId: string, fields: Partial<BuildFields>): Promise<void> {
+  const refs = [
+    ['vehicleId', 'vehicles', fields.vehicleId, 'vehicle'],
+    ['motorId', 'motors', fields.motorId, 'motor'],
+    ['controllerId', 'controllers', fields.controllerId, 'speed controller'],
+    ['propellerId', 'propellers', fields.propellerId, 'propeller'],
+  ] as const;
+  for (const [field, table, value, label] of refs) {
+    if (value === undefined || value === null) continue;
+    if (!(await getPart(db, table, value))) throw new ServiceError('invalid', `${field}: no ${label} with id "${value}"`, field);
+  }
+  if (!fields.supplies) return;
+  const packIds = fields.supplies.flatMap((s) => s.batteryIds);
+  const known = new Set((await getParts(db, 'batteries', packIds)).map((b) => b.id));
+  fields.supplies.forEach((s, i) =>
+    s.batteryIds.forEach((packId, j) => {
+      if (!known.has(packId)) throw new ServiceError('invalid', `supplies.${i}.batteryIds.${j}: no pack with id "${packId}"`, `supplies.${i}.batteryIds.${j}`);
+    }),
+  );
+  const supplyIds = fields.supplies.map((s) => s.id);
+  if (new Set(supplyIds).size !== supplyIds.length) throw new ServiceError('invalid', 'supplies: two supplies share one id', 'supplies');
+  const taken = await db.selectFrom('supplies').select(['id', 'buildId']).where('id', 'in', supplyIds).where('buildId', '!=', buildId).execute();
+  if (taken[0]) throw new ServiceError('invalid', `supplies: supply id "${taken[0].id}" belongs to another build`, 'supplies');
+}
+
+function withSupplyIds(ctx: ServiceContext, supplies: readonly SupplyInput[]): Supply[] {
+  return supplies.map((s) => ({ id: s.id ?? ctx.newId('sup'), arrangement: s.arrangement, batteryIds: [...s.batteryIds] }));
+}
+
+async function requireBuild(db: DbHandle, buildId: string): Promise<Build> {
+  const found = await getBuild(db, buildId);
+  if (!found) throw new ServiceError('not-found', `id: no build with id "${buildId}"`, 'id');
+  return found;
+}
+
+const listInput = v.optional(
+  record({
+    text: v.optional(text(200)),
+    statuses: v.optional(v.array(oneOf(STATUSES), 'must be a list of verdicts')),
+    kinds: v.optional(v.array(oneOf(VEHICLE_KINDS), 'must be a list of vehicle kinds')),
+    owner: v.optional(text(120)),
+    partId: v.optional(id()),
+    includeArchived: v.optional(flag()),
+    limit: v.optional(v.pipe(v.number('must be a number'), v.integer('must be a whole number'), v.minValue(1, 'must be 1 or more'), v.maxValue(100_000, 'must be 100000 or less'))),
+  }),
+  {},
+);
+
+export const listBuilds = defineHandler(listInput, async (ctx, input) => listBuildSummaries(ctx.db, input));
+
+export const getBuildSheet = defineHandler(record({ id: id() }), async (ctx, input) => {
+  const build = await requireBuild(ctx.db, input.id);
+  const [vehicle, motor, controller, propeller, batteries, verdict] = await Promise.all([
+    getPart(ctx.db, 'vehicles', build.vehicleId),
+    build.motorId ? getPart(ctx.db, 'motors', build.motorId) : undefined,
+    build.controllerId ? getPart(ctx.db, 'controllers', build.controllerId) : undefined,
+    build.propellerId ? getPart(ctx.db, 'propellers', build.propellerId) : undefined,
+    getParts(ctx.db, 'batteries', build.supplies.flatMap((s) => s.batteryIds)),
+    getVerdict(ctx.db, build.id),
+  ]);
+  return { build, vehicle: vehicle ?? null, motor: motor ?? null, controller: controller ?? null, propeller: propeller ?? null, batteries, verdict: verdict ?? null };
+});
+
+export const createBuild = defineHandler(buildCreateSchema, async (ctx, input) => {
+  const { id: given, supplies, ...rest } = input;
+  const buildId = given ?? ctx.newId('build');
+  const fields: BuildFields = { ...rest, supplies: withSupplyIds(ctx, supplies) };
+  const outcome = await runWrite(ctx, async (trx, at) => {
+    if (await getBuild(trx, buildId)) throw new ServiceError('conflict', `id: a build with id "${buildId}" already exists`, 'id');
+    await checkReferences(trx, buildId, fields);
+    await insertBuild(trx, buildId, fields, at);
+    const stored = await requireBuild(trx, buildId);
+    return {
+      result: stored,
+      history: { action: 'create', entityKind: 'builds', entityId: buildId, summary: `Added build "${stored.name}"`, reason: '', before: null, after: stored },
+      recheck: [buildId],
+      changed: { kind: 'builds', ids: [buildId] },
+    };
+  });
+  return { record: outcome.result, verdict: outcome.verdicts[0] ?? null };
+});
+
+async function writeBuildPatch(
+  ctx: ServiceContext,
+  input: { id: string; expectedVersion: number; changes: Partial<Omit<BuildFields, 'supplies'>> & { supplies?: SupplyInput[]; archivedAt?: string | null }; reason: string },
+  action: string,
+  options: { preview?: boolean } = {},
+): Promise<WriteOutcome<Build>> {
+  const { supplies, ...rest } = input.changes;
+  const patch = { ...rest, ...(supplies ? { supplies: withSupplyIds(ctx, supplies) } : {}) };
+  return runWrite(
+    ctx,
+    async (trx, at) => {
+      const before = await requireBuild(trx, input.id);
+      if (before.version !== input.expectedVersion) throw conflict('builds', before, input.expectedVersion);
+      await checkReferences(trx, input.id, patch);
+      const written = await updateBuildAtVersion(trx, input.id, input.expectedVersion, patch, at);
+      if (written === 0) throw conflict('builds', before, input.expectedVersion);
+      const after = await requireBuild(trx, input.id);
+      return {
+        result: after,
+        history: {
+          action,
+          entityKind: 'builds',
+          entityId: input.id,
+          summary: `${action === 'archive' ? 'Archived' : 'Changed'} build "${after.name}": ${describeChange(before as unknown as Record<string, unknown>, after as unknown as Record<string, unknown>)}`,
+          reason: input.reason,
+          before,
+          after,
+        },
+        recheck: [input.id],
+        changed: { kind: 'builds', ids: [input.id] },
+      };
+    },
+    options,
+  );
+}
+
+export const updateBuild = defineHandler(updateInput(buildPatchSchema), async (ctx, input) => {
+  const outcome = await writeBuildPatch(ctx, input, 'update');
+  return { record: outcome.result, verdict: outcome.verdicts[0] ?? null, verdictChanges: outcome.verdictChanges };
+});
+
+export const archiveBuild = defineHandler(
+  record({ id: id(), expectedVersion: v.pipe(v.number('must be a number'), v.integer('must be a whole number')), archived: v.optional(flag(), true), reason: reasonField() }),
+  async (ctx, input) => {
+    const changes = { archivedAt: input.archived ? ctx.now().toISOString() : null };
+    const outcome = await writeBuildPatch(ctx, { ...input, changes }, input.archived ? 'archive' : 'restore');
+    return { record: outcome.result, verdictChanges: outcome.verdictChanges };
+  },
+);
+
+const PART_TABLES = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles'] as const;
+
+const previewInput = v.union(
+  [
+    record({ build: updateInput(buildPatchSchema) }),
+    record({
+      part: record({ kind: oneOf(PART_TABLES), id: id(), expectedVersion: v.pipe(v.number('must be a number'), v.integer('must be a whole number')), changes: v.record(v.string(), v.unknown()), reason: reasonField() }),
+    }),
+  ],
+  'must name either a build change or a part change',
+);
+
+/**
+ * Before and after for every build a change would touch, computed by running the real write
+ * and rolling it back: the preview cannot disagree with what saving does.
+ */
+export const previewChange = defineHandler(previewInput, async (ctx, input) => {
+  let outcome: WriteOutcome<unknown>;
+  if ('build' in input) {
+    outcome = await writeBuildPatch(ctx, input.build, 'update', { preview: true });
+  } else {
+    const { kind, changes } = input.part;
+    const parsed = v.safeParse(partSchemasByTable[kind].patch, changes);
+    if (!parsed.success) {
+      const issue = parsed.issues[0];
+      const field = `part.changes.${v.getDotPath(issue) ?? ''}`;
+      throw new ServiceError('invalid', `${field}: ${issue.message}`, field);
+    }
+    outcome = await writePartPatch(ctx, kind, { ...input.part, changes: parsed.output as Record<string, unknown> }, 'update', { preview: true });
+  }
+  const ids = outcome.verdicts.map((x) => x.buildId);
+  const settings = await readSettings(ctx.db);
+  const before = (await loadBuildContexts(ctx.db, ids, settings.tightThreshold)).map(evaluateBuild);
+  return { before, after: outcome.verdicts, verdictChanges: outcome.verdictChanges };
+});

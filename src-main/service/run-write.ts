@@ -1,0 +1,72 @@
+import type { Transaction } from 'kysely';
+import type { Db } from '../store/schema';
+import { appendHistory, type HistoryEntryInput, type VerdictChange } from '../store/repositories/history';
+import { readSettings } from '../store/repositories/settings';
+import { recheckBuilds } from './recheck';
+import type { BuildVerdict } from '../core/domain';
+import type { ServiceContext } from './service-context';
+
+/** What a write did, as the work function reports it. */
+export interface WritePlan<R> {
+  result: R;
+  /** The history entry, less what the write path fills in itself. */
+  history: Omit<HistoryEntryInput, 'at' | 'actor' | 'verdictChanges' | 'buildIds'> | null;
+  /** Builds whose verdict this write may change. */
+  recheck: readonly string[];
+  changed: { kind: string; ids: string[] };
+}
+
+export interface WriteOutcome<R> {
+  result: R;
+  verdicts: BuildVerdict[];
+  verdictChanges: VerdictChange[];
+  historyId: number | null;
+}
+
+class PreviewRollback<R> extends Error {
+  constructor(readonly outcome: WriteOutcome<R>) {
+    super('preview rollback');
+  }
+}
+
+/**
+ * One transaction for the write, the re-check of the builds it affects and the history entry:
+ * a crash leaves all of it or none of it. With `preview`, the same work runs and is rolled
+ * back, so a preview shows exactly what saving would do.
+ */
+export async function runWrite<R>(
+  ctx: ServiceContext,
+  work: (trx: Transaction<Db>, at: string) => Promise<WritePlan<R>>,
+  options: { preview?: boolean } = {},
+): Promise<WriteOutcome<R>> {
+  const at = ctx.now().toISOString();
+  let changed: WritePlan<R>['changed'] = { kind: '', ids: [] };
+  let outcome: WriteOutcome<R>;
+  try {
+    outcome = await ctx.db.transaction().execute(async (trx) => {
+      const plan = await work(trx, at);
+      changed = plan.changed;
+      const settings = await readSettings(trx);
+      const recheck = await recheckBuilds(trx, plan.recheck, settings.tightThreshold, at);
+      let historyId: number | null = null;
+      if (plan.history) {
+        historyId = await appendHistory(trx, {
+          ...plan.history,
+          at,
+          actor: ctx.actor,
+          verdictChanges: recheck.changes,
+          buildIds: plan.recheck,
+        });
+      }
+      const done: WriteOutcome<R> = { result: plan.result, verdicts: recheck.verdicts, verdictChanges: recheck.changes, historyId };
+      if (options.preview) throw new PreviewRollback(done);
+      return done;
+    });
+  } catch (error) {
+    if (error instanceof PreviewRollback) return error.outcome as WriteOutcome<R>;
+    throw error;
+  }
+  if (changed.ids.length > 0) ctx.emit({ type: 'records-changed', kind: changed.kind, ids: changed.ids });
+  if (outcome.verdicts.length > 0) ctx.emit({ type: 'verdicts-changed', buildIds: outcome.verdicts.map((v) => v.buildId) });
+  return outcome;
+}

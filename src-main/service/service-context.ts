@@ -1,0 +1,13 @@
+import type { Kysely } from 'kysely';
+import type { Db } from '../store/schema';
+import type { ServiceEvent } from './contract';
+
+export interface ServiceContext {
+  db: Kysely<Db>;
+  /** Who is writing: the OS user or a name the shop sets; shown in history. */
+  actor: string;
+  now: () => Date;
+  emit: (event: ServiceEvent) => void;
+  /** Fresh ids for new records; replaceable so tests and imports stay deterministic. */
+  newId: (prefix: string) => string;
+}

@@ -1,0 +1,14 @@
+import type { Migration, MigrationProvider } from 'kysely';
+import * as initial from '../../migrations/20261202-0001-initial';
+
+// Static imports rather than a folder read at run time: bundlers follow these, so the
+// packaged app carries every migration. Add each new migration here, in name order.
+export const MIGRATIONS: Record<string, Migration> = {
+  '20261202-0001-initial': initial,
+};
+
+export const staticMigrationProvider: MigrationProvider = {
+  getMigrations: async () => MIGRATIONS,
+};
+
+export const LATEST_MIGRATION = Object.keys(MIGRATIONS).sort().at(-1) ?? '';

@@ -1,0 +1,151 @@
+import type { Status, VehicleKind } from '../../core/domain';
+import { sql } from 'kysely';
+import type { DbHandle } from '../db-handle';
+
+/** One line of the builds list: enough to sort, filter and show a badge without the detail. */
+export interface BuildSummary {
+  id: string;
+  name: string;
+  version: number;
+  archivedAt: string | null;
+  vehicleId: string;
+  vehicleName: string;
+  kind: VehicleKind;
+  owner: string;
+  className: string;
+  motorId: string | null;
+  motorName: string | null;
+  controllerId: string | null;
+  controllerName: string | null;
+  propellerId: string | null;
+  /** Pack names per supply, e.g. "Pack A + Pack B". */
+  supplyLabels: string[];
+  batteryIds: string[];
+  status: Status | null;
+  supplyVoltageFullV: number | null;
+  theoreticalSpeedKmh: number | null;
+  peakCurrentA: number | null;
+  peakCurrentLimitA: number | null;
+  updatedAt: string;
+}
+
+export interface BuildListFilter {
+  text?: string;
+  statuses?: Status[];
+  kinds?: VehicleKind[];
+  owner?: string;
+  /** Builds that use this part (pack, motor, controller, propeller or vehicle id). */
+  partId?: string;
+  includeArchived?: boolean;
+  limit?: number;
+}
+
+export async function listBuildSummaries(db: DbHandle, filter: BuildListFilter = {}): Promise<BuildSummary[]> {
+  let query = db
+    .selectFrom('builds')
+    .innerJoin('vehicles', 'vehicles.id', 'builds.vehicleId')
+    .leftJoin('motors', 'motors.id', 'builds.motorId')
+    .leftJoin('controllers', 'controllers.id', 'builds.controllerId')
+    .leftJoin('verdicts', 'verdicts.buildId', 'builds.id')
+    .select([
+      'builds.id',
+      'builds.name',
+      'builds.version',
+      'builds.archivedAt',
+      'builds.vehicleId',
+      'vehicles.name as vehicleName',
+      'vehicles.kind',
+      'vehicles.owner',
+      'vehicles.className',
+      'builds.motorId',
+      'motors.name as motorName',
+      'builds.controllerId',
+      'controllers.name as controllerName',
+      'builds.propellerId',
+      'verdicts.status',
+      'verdicts.supplyVoltageFullV',
+      'verdicts.theoreticalSpeedKmh',
+      'verdicts.peakCurrentA',
+      'verdicts.peakCurrentLimitA',
+      'builds.updatedAt',
+    ])
+    .orderBy('builds.name')
+    .orderBy('builds.id');
+  if (!filter.includeArchived) query = query.where('builds.archivedAt', 'is', null);
+  if (filter.statuses && filter.statuses.length > 0) query = query.where('verdicts.status', 'in', filter.statuses);
+  if (filter.kinds && filter.kinds.length > 0) query = query.where('vehicles.kind', 'in', filter.kinds);
+  if (filter.owner !== undefined && filter.owner !== '') query = query.where('vehicles.owner', '=', filter.owner);
+  if (filter.partId !== undefined && filter.partId !== '') {
+    const partId = filter.partId;
+    query = query.where((eb) =>
+      eb.or([
+        eb('builds.motorId', '=', partId),
+        eb('builds.controllerId', '=', partId),
+        eb('builds.propellerId', '=', partId),
+        eb('builds.vehicleId', '=', partId),
+        eb(
+          'builds.id',
+          'in',
+          eb
+            .selectFrom('supplyPacks')
+            .innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId')
+            .select('supplies.buildId')
+            .where('supplyPacks.batteryId', '=', partId),
+        ),
+      ]),
+    );
+  }
+  if (filter.text !== undefined && filter.text.trim() !== '') {
+    // LIKE with escaped wildcards: the user's % and _ are literal characters.
+    const pattern = `%${filter.text.trim().toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    query = query.where((eb) =>
+      eb.or(
+        (['builds.name', 'vehicles.name', 'vehicles.owner', 'motors.name', 'controllers.name'] as const).map((column) =>
+          sql<boolean>`lower(${eb.ref(column)}) like ${pattern} escape '\\'`,
+        ),
+      ),
+    );
+  }
+  if (filter.limit !== undefined) query = query.limit(filter.limit);
+  const rows = await query.execute();
+  const labels = await supplyLabels(db, rows.length <= 900 ? rows.map((r) => r.id) : null);
+  return rows.map((r) => ({
+    ...r,
+    kind: r.kind as VehicleKind,
+    status: r.status as Status | null,
+    supplyLabels: labels.get(r.id)?.labels ?? [],
+    batteryIds: labels.get(r.id)?.batteryIds ?? [],
+  }));
+}
+
+/** Pack names per supply; `null` ids reads every build's at once, cheaper than a huge IN list. */
+async function supplyLabels(db: DbHandle, buildIds: string[] | null): Promise<Map<string, { labels: string[]; batteryIds: string[] }>> {
+  let query = db
+    .selectFrom('supplyPacks')
+    .innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId')
+    .innerJoin('batteries', 'batteries.id', 'supplyPacks.batteryId')
+    .select(['supplies.buildId', 'supplies.id as supplyId', 'supplies.arrangement', 'batteries.id as batteryId', 'batteries.name'])
+    .orderBy('supplies.buildId')
+    .orderBy('supplies.position')
+    .orderBy('supplyPacks.position');
+  if (buildIds !== null) {
+    if (buildIds.length === 0) return new Map();
+    query = query.where('supplies.buildId', 'in', buildIds);
+  }
+  const rows = await query.execute();
+  const out = new Map<string, { labels: string[]; batteryIds: string[] }>();
+  let lastSupply = '';
+  for (const r of rows) {
+    let entry = out.get(r.buildId);
+    if (!entry) {
+      entry = { labels: [], batteryIds: [] };
+      out.set(r.buildId, entry);
+    }
+    entry.batteryIds.push(r.batteryId);
+    const joiner = r.arrangement === 'series' ? ' + ' : ' ∥ ';
+    if (r.supplyId === lastSupply) entry.labels[entry.labels.length - 1] += joiner + r.name;
+    else entry.labels.push(r.name);
+    lastSupply = r.supplyId;
+  }
+  return out;
+}

@@ -1,0 +1,159 @@
+import type { Build, Supply, Arrangement } from '../../core/domain';
+import { chunks, type DbHandle } from '../db-handle';
+import type { BuildRow, BuildTable } from '../schema';
+
+export type BuildFields = Omit<Build, 'id' | 'version' | 'archivedAt'>;
+
+function rowToBuild(row: BuildRow, supplies: Supply[]): Build {
+  return {
+    id: row.id,
+    version: row.version,
+    archivedAt: row.archivedAt,
+    notes: row.notes,
+    name: row.name,
+    vehicleId: row.vehicleId,
+    motorId: row.motorId,
+    motorCount: row.motorCount,
+    controllerId: row.controllerId,
+    propellerId: row.propellerId,
+    gearing: {
+      pinionTeeth: row.pinionTeeth,
+      spurTeeth: row.spurTeeth,
+      internalRatio: row.internalRatio,
+      tireDiameterMm: row.tireDiameterMm,
+      drivetrainEfficiency: row.drivetrainEfficiency,
+    },
+    supplies,
+    measuredPeakCurrentA: row.measuredPeakCurrentA,
+    measuredAverageCurrentA: row.measuredAverageCurrentA,
+    tightThreshold: row.tightThreshold,
+  };
+}
+
+type BuildColumns = Omit<BuildTable, 'id' | 'version' | 'archivedAt' | 'createdAt' | 'updatedAt'>;
+
+function buildToColumns(fields: Partial<BuildFields>): Partial<BuildColumns> {
+  const { gearing, supplies: _supplies, ...rest } = fields;
+  return { ...rest, ...(gearing ?? {}) };
+}
+
+/** Reads the supplies of many builds at once, in their stored order. */
+export async function loadSupplies(db: DbHandle, buildIds: readonly string[]): Promise<Map<string, Supply[]>> {
+  const byBuild = new Map<string, Supply[]>();
+  const byId = new Map<string, Supply>();
+  for (const part of chunks(buildIds)) {
+    const supplies = await db
+      .selectFrom('supplies')
+      .select(['id', 'buildId', 'arrangement'])
+      .where('buildId', 'in', part)
+      .orderBy('buildId')
+      .orderBy('position')
+      .execute();
+    for (const s of supplies) {
+      const supply: Supply = { id: s.id, arrangement: s.arrangement as Arrangement, batteryIds: [] };
+      byId.set(s.id, supply);
+      const list = byBuild.get(s.buildId);
+      if (list) list.push(supply);
+      else byBuild.set(s.buildId, [supply]);
+    }
+    const packs = await db
+      .selectFrom('supplyPacks')
+      .innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId')
+      .select(['supplyPacks.supplyId', 'supplyPacks.batteryId'])
+      .where('supplies.buildId', 'in', part)
+      .orderBy('supplyPacks.supplyId')
+      .orderBy('supplyPacks.position')
+      .execute();
+    for (const p of packs) byId.get(p.supplyId)?.batteryIds.push(p.batteryId);
+  }
+  return byBuild;
+}
+
+export async function getBuilds(db: DbHandle, ids: readonly string[]): Promise<Build[]> {
+  const unique = [...new Set(ids)];
+  const supplies = await loadSupplies(db, unique);
+  const out: Build[] = [];
+  for (const part of chunks(unique)) {
+    const rows = await db.selectFrom('builds').selectAll().where('id', 'in', part).execute();
+    for (const row of rows) out.push(rowToBuild(row, supplies.get(row.id) ?? []));
+  }
+  return out;
+}
+
+export async function getBuild(db: DbHandle, id: string): Promise<Build | undefined> {
+  return (await getBuilds(db, [id]))[0];
+}
+
+async function writeSupplies(db: DbHandle, buildId: string, supplies: readonly Supply[]): Promise<void> {
+  await db.deleteFrom('supplies').where('buildId', '=', buildId).execute();
+  if (supplies.length === 0) return;
+  await db
+    .insertInto('supplies')
+    .values(supplies.map((s, position) => ({ id: s.id, buildId, position, arrangement: s.arrangement })))
+    .execute();
+  const packs = supplies.flatMap((s) => s.batteryIds.map((batteryId, position) => ({ supplyId: s.id, position, batteryId })));
+  if (packs.length > 0) await db.insertInto('supplyPacks').values(packs).execute();
+}
+
+export async function insertBuild(db: DbHandle, id: string, fields: BuildFields, now: string): Promise<void> {
+  await db
+    .insertInto('builds')
+    .values({ ...(buildToColumns(fields) as BuildColumns), id, version: 1, archivedAt: null, createdAt: now, updatedAt: now })
+    .execute();
+  await writeSupplies(db, id, fields.supplies);
+}
+
+/** Writes only at the version the caller read; 0 means a conflict or a missing build. */
+export async function updateBuildAtVersion(
+  db: DbHandle,
+  id: string,
+  expectedVersion: number,
+  patch: Partial<BuildFields> & { archivedAt?: string | null },
+  now: string,
+): Promise<number> {
+  const result = await db
+    .updateTable('builds')
+    .set({ ...buildToColumns(patch), updatedAt: now })
+    .set((eb) => ({ version: eb('version', '+', 1) }))
+    .where('id', '=', id)
+    .where('version', '=', expectedVersion)
+    .executeTakeFirst();
+  const written = Number(result.numUpdatedRows);
+  if (written > 0 && patch.supplies) await writeSupplies(db, id, patch.supplies);
+  return written;
+}
+
+export type PartKind = 'batteries' | 'motors' | 'controllers' | 'propellers' | 'vehicles';
+
+/** The builds (archived or not) that use a part, found through the part → builds indexes. */
+export async function buildIdsUsing(db: DbHandle, kind: PartKind, id: string): Promise<string[]> {
+  if (kind === 'batteries') {
+    const rows = await db
+      .selectFrom('supplyPacks')
+      .innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId')
+      .select('supplies.buildId')
+      .distinct()
+      .where('supplyPacks.batteryId', '=', id)
+      .execute();
+    return rows.map((r) => r.buildId);
+  }
+  const column = ({ motors: 'motorId', controllers: 'controllerId', propellers: 'propellerId', vehicles: 'vehicleId' } as const)[kind];
+  const rows = await db.selectFrom('builds').select('id').where(column, '=', id).execute();
+  return rows.map((r) => r.id);
+}
+
+/** Builds of vehicles in a class, for a class rule change. */
+export async function buildIdsInClass(db: DbHandle, className: string): Promise<string[]> {
+  const rows = await db
+    .selectFrom('builds')
+    .innerJoin('vehicles', 'vehicles.id', 'builds.vehicleId')
+    .select('builds.id')
+    .where('vehicles.className', '=', className)
+    .execute();
+  return rows.map((r) => r.id);
+}
+
+export async function allBuildIds(db: DbHandle): Promise<string[]> {
+  const rows = await db.selectFrom('builds').select('id').execute();
+  return rows.map((r) => r.id);
+}

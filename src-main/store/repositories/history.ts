@@ -1,0 +1,109 @@
+import type { Status } from '../../core/domain';
+import type { DbHandle } from '../db-handle';
+import { chunks } from '../db-handle';
+
+export interface VerdictChange {
+  buildId: string;
+  /** Null for the build's overall status. */
+  supplyId: string | null;
+  from: Status | null;
+  to: Status;
+}
+
+export interface HistoryEntryInput {
+  at: string;
+  actor: string;
+  action: string;
+  entityKind: string;
+  entityId: string;
+  summary: string;
+  reason: string;
+  before: unknown;
+  after: unknown;
+  verdictChanges: VerdictChange[];
+  /** Builds this write re-checked, so their timelines show it. */
+  buildIds: readonly string[];
+}
+
+export interface HistoryEntry {
+  id: number;
+  at: string;
+  actor: string;
+  action: string;
+  entityKind: string;
+  entityId: string;
+  summary: string;
+  reason: string;
+  before: unknown;
+  after: unknown;
+  verdictChanges: VerdictChange[];
+}
+
+export async function appendHistory(db: DbHandle, entry: HistoryEntryInput): Promise<number> {
+  const inserted = await db
+    .insertInto('history')
+    .values({
+      at: entry.at,
+      actor: entry.actor,
+      action: entry.action,
+      entityKind: entry.entityKind,
+      entityId: entry.entityId,
+      summary: entry.summary,
+      reason: entry.reason,
+      before: entry.before === null || entry.before === undefined ? null : JSON.stringify(entry.before),
+      after: entry.after === null || entry.after === undefined ? null : JSON.stringify(entry.after),
+      verdictChanges: JSON.stringify(entry.verdictChanges),
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  // better-sqlite3 may hand back a BigInt row id.
+  const historyId = Number(inserted.id);
+  const buildIds = [...new Set(entry.buildIds)];
+  for (const part of chunks(buildIds, 400)) {
+    await db
+      .insertInto('historyBuilds')
+      .values(part.map((buildId) => ({ historyId, buildId })))
+      .execute();
+  }
+  return historyId;
+}
+
+export interface HistoryQuery {
+  entityKind?: string;
+  entityId?: string;
+  /** Every entry that touched this build, its own edits and its parts'. */
+  buildId?: string;
+  /** Entries older than this id, for paging back. */
+  beforeId?: number;
+  limit: number;
+}
+
+export async function listHistory(db: DbHandle, q: HistoryQuery): Promise<HistoryEntry[]> {
+  let query = db.selectFrom('history').selectAll('history').orderBy('history.id', 'desc').limit(q.limit);
+  if (q.buildId !== undefined) {
+    const buildId = q.buildId;
+    query = query.where((eb) =>
+      eb.or([
+        eb.and([eb('history.entityKind', '=', 'builds'), eb('history.entityId', '=', buildId)]),
+        eb('history.id', 'in', eb.selectFrom('historyBuilds').select('historyId').where('historyBuilds.buildId', '=', buildId)),
+      ]),
+    );
+  }
+  if (q.entityKind !== undefined) query = query.where('history.entityKind', '=', q.entityKind);
+  if (q.entityId !== undefined) query = query.where('history.entityId', '=', q.entityId);
+  if (q.beforeId !== undefined) query = query.where('history.id', '<', q.beforeId);
+  const rows = await query.execute();
+  return rows.map((r) => ({
+    id: Number(r.id),
+    at: r.at,
+    actor: r.actor,
+    action: r.action,
+    entityKind: r.entityKind,
+    entityId: r.entityId,
+    summary: r.summary,
+    reason: r.reason,
+    before: r.before === null ? null : (JSON.parse(r.before) as unknown),
+    after: r.after === null ? null : (JSON.parse(r.after) as unknown),
+    verdictChanges: JSON.parse(r.verdictChanges) as VerdictChange[],
+  }));
+}

@@ -1,0 +1,32 @@
+import type { Battery, ClassRule, Controller, Motor, Propeller, Vehicle } from '../../core/domain';
+import type { PartTableName } from '../schema';
+
+/** The record type each part table holds. */
+export interface PartRecords {
+  batteries: Battery;
+  motors: Motor;
+  controllers: Controller;
+  propellers: Propeller;
+  vehicles: Vehicle;
+  classRules: ClassRule;
+}
+
+/** Fields a caller may set: everything but the bookkeeping. */
+export type PartFields<T extends PartTableName> = Omit<PartRecords[T], 'id' | 'version' | 'archivedAt'>;
+
+/** The columns that hold booleans as 0/1, per table. */
+const BOOLEAN_COLUMNS: Partial<Record<PartTableName, readonly string[]>> = {
+  batteries: ['retired'],
+};
+
+export function rowToRecord<T extends PartTableName>(table: T, row: Record<string, unknown>): PartRecords[T] {
+  const { createdAt: _c, updatedAt: _u, ...rest } = row;
+  for (const column of BOOLEAN_COLUMNS[table] ?? []) rest[column] = rest[column] === 1 || rest[column] === true;
+  return rest as unknown as PartRecords[T];
+}
+
+export function fieldsToColumns(table: PartTableName, fields: Record<string, unknown>): Record<string, unknown> {
+  const out: Record<string, unknown> = { ...fields };
+  for (const column of BOOLEAN_COLUMNS[table] ?? []) if (column in out) out[column] = out[column] ? 1 : 0;
+  return out;
+}

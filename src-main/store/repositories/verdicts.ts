@@ -1,0 +1,92 @@
+import type { BuildVerdict, Status, SupplyVerdict } from '../../core/domain';
+import { chunks, type DbHandle } from '../db-handle';
+import type { NewVerdictRow } from '../schema';
+
+/** The stored status of every supply of a build, keyed by supply id. */
+export interface StoredStatuses {
+  status: Status;
+  supplies: Map<string, Status>;
+}
+
+export function encodeSupplyStatuses(supplies: readonly SupplyVerdict[]): string {
+  return supplies.map((s) => `${s.supplyId}=${s.status}`).join(',');
+}
+
+export function decodeSupplyStatuses(text: string): Map<string, Status> {
+  const out = new Map<string, Status>();
+  if (text === '') return out;
+  for (const pair of text.split(',')) {
+    const at = pair.lastIndexOf('=');
+    out.set(pair.slice(0, at), pair.slice(at + 1) as Status);
+  }
+  return out;
+}
+
+export async function getStoredStatuses(db: DbHandle, buildIds: readonly string[]): Promise<Map<string, StoredStatuses>> {
+  const out = new Map<string, StoredStatuses>();
+  for (const part of chunks(buildIds)) {
+    const rows = await db.selectFrom('verdicts').select(['buildId', 'status', 'supplyStatuses']).where('buildId', 'in', part).execute();
+    for (const r of rows) out.set(r.buildId, { status: r.status as Status, supplies: decodeSupplyStatuses(r.supplyStatuses) });
+  }
+  return out;
+}
+
+/** The figures the builds list shows without opening the detail. */
+export function verdictToRow(verdict: BuildVerdict, evaluatedAt: string): NewVerdictRow {
+  let supplyVoltageFullV: number | null = null;
+  let theoreticalSpeedKmh: number | null = null;
+  let peakCurrentA: number | null = null;
+  let peakCurrentLimitA: number | null = null;
+  for (const s of verdict.supplies) {
+    const f = s.figures;
+    if (f.packVoltageFullV !== null && (supplyVoltageFullV === null || f.packVoltageFullV > supplyVoltageFullV)) supplyVoltageFullV = f.packVoltageFullV;
+    if (f.theoreticalSpeedKmh !== null && (theoreticalSpeedKmh === null || f.theoreticalSpeedKmh > theoreticalSpeedKmh)) theoreticalSpeedKmh = f.theoreticalSpeedKmh;
+    if (f.peakCurrentA !== null && (peakCurrentA === null || f.peakCurrentA > peakCurrentA)) peakCurrentA = f.peakCurrentA;
+    for (const finding of s.findings) {
+      if (finding.unit === 'A' && finding.limit !== null && (peakCurrentLimitA === null || finding.limit < peakCurrentLimitA)) {
+        peakCurrentLimitA = finding.limit;
+      }
+    }
+  }
+  return {
+    buildId: verdict.buildId,
+    status: verdict.status,
+    supplyVoltageFullV,
+    theoreticalSpeedKmh,
+    peakCurrentA,
+    peakCurrentLimitA,
+    supplyStatuses: encodeSupplyStatuses(verdict.supplies),
+    supplies: JSON.stringify(verdict.supplies),
+    evaluatedAt,
+  };
+}
+
+const ROWS_PER_INSERT = 100;
+
+/** Upserts verdict rows in batches: one statement per hundred builds keeps a large re-check fast. */
+export async function writeVerdicts(db: DbHandle, rows: readonly NewVerdictRow[]): Promise<void> {
+  for (const part of chunks(rows, ROWS_PER_INSERT)) {
+    await db
+      .insertInto('verdicts')
+      .values(part)
+      .onConflict((oc) =>
+        oc.column('buildId').doUpdateSet((eb) => ({
+          status: eb.ref('excluded.status'),
+          supplyVoltageFullV: eb.ref('excluded.supplyVoltageFullV'),
+          theoreticalSpeedKmh: eb.ref('excluded.theoreticalSpeedKmh'),
+          peakCurrentA: eb.ref('excluded.peakCurrentA'),
+          peakCurrentLimitA: eb.ref('excluded.peakCurrentLimitA'),
+          supplyStatuses: eb.ref('excluded.supplyStatuses'),
+          supplies: eb.ref('excluded.supplies'),
+          evaluatedAt: eb.ref('excluded.evaluatedAt'),
+        })),
+      )
+      .execute();
+  }
+}
+
+export async function getVerdict(db: DbHandle, buildId: string): Promise<{ status: Status; supplies: SupplyVerdict[]; evaluatedAt: string } | undefined> {
+  const row = await db.selectFrom('verdicts').select(['status', 'supplies', 'evaluatedAt']).where('buildId', '=', buildId).executeTakeFirst();
+  if (!row) return undefined;
+  return { status: row.status as Status, supplies: JSON.parse(row.supplies) as SupplyVerdict[], evaluatedAt: row.evaluatedAt };
+}

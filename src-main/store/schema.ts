@@ -1,0 +1,189 @@
+import type { Generated, Insertable, Selectable, Updateable } from 'kysely';
+
+// Column names are camelCase, the same as the rigbook-fleet fields, so rows map to records
+// without a renaming layer; Kysely quotes every identifier, which keeps this portable to
+// PostgreSQL. Booleans are 0/1 integers and lists are JSON text, the common denominator.
+
+interface Meta {
+  id: string;
+  version: number;
+  archivedAt: string | null;
+  notes: string;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface BatteryTable extends Meta {
+  name: string;
+  chemistry: string;
+  cellsSeries: number;
+  cellsParallel: number;
+  capacityMah: number;
+  cRatingContinuous: number | null;
+  cRatingBurst: number | null;
+  cellResistanceOhm: number | null;
+  massKg: number | null;
+  cycleCount: number;
+  retired: number;
+}
+
+export interface MotorTable extends Meta {
+  name: string;
+  kv: number;
+  resistanceOhm: number | null;
+  noLoadCurrentA: number | null;
+  maxCurrentA: number | null;
+  maxPowerW: number | null;
+  maxVoltageV: number | null;
+  maxRpm: number | null;
+  poles: number | null;
+  massKg: number | null;
+}
+
+export interface ControllerTable extends Meta {
+  name: string;
+  maxVoltageV: number | null;
+  maxCells: number | null;
+  continuousCurrentA: number | null;
+  burstCurrentA: number | null;
+  resistanceOhm: number | null;
+  massKg: number | null;
+}
+
+export interface PropellerTable extends Meta {
+  name: string;
+  diameterMm: number;
+  pitchMm: number | null;
+  blades: number;
+  thrustCoefficient: number | null;
+  powerCoefficient: number | null;
+}
+
+export interface VehicleTable extends Meta {
+  name: string;
+  kind: string;
+  massKg: number | null;
+  dragAreaM2: number | null;
+  rollingCoefficient: number | null;
+  tractionCoefficient: number | null;
+  owner: string;
+  className: string;
+}
+
+export interface ClassRuleTable extends Meta {
+  className: string;
+  ruleId: string;
+  figure: string;
+  limit: number;
+  unit: string;
+}
+
+export interface BuildTable extends Meta {
+  name: string;
+  vehicleId: string;
+  motorId: string | null;
+  motorCount: number;
+  controllerId: string | null;
+  propellerId: string | null;
+  pinionTeeth: number | null;
+  spurTeeth: number | null;
+  internalRatio: number;
+  tireDiameterMm: number | null;
+  drivetrainEfficiency: number;
+  measuredPeakCurrentA: number | null;
+  measuredAverageCurrentA: number | null;
+  tightThreshold: number | null;
+}
+
+export interface SupplyTable {
+  id: string;
+  buildId: string;
+  position: number;
+  arrangement: string;
+}
+
+export interface SupplyPackTable {
+  supplyId: string;
+  position: number;
+  batteryId: string;
+}
+
+/** The stored verdict of one build: its status, the key figures for the list, and every supply's detail. */
+export interface VerdictTable {
+  buildId: string;
+  status: string;
+  supplyVoltageFullV: number | null;
+  theoreticalSpeedKmh: number | null;
+  peakCurrentA: number | null;
+  /** The tightest current limit the peak current is checked against, for the list. */
+  peakCurrentLimitA: number | null;
+  /** `supplyId=status` pairs joined by commas: cheap to compare on a re-check without parsing JSON. */
+  supplyStatuses: string;
+  /** JSON: SupplyVerdict[] */
+  supplies: string;
+  evaluatedAt: string;
+}
+
+export interface HistoryTable {
+  id: Generated<number>;
+  at: string;
+  actor: string;
+  action: string;
+  entityKind: string;
+  entityId: string;
+  summary: string;
+  reason: string;
+  /** JSON of the record before the write; null for a create. */
+  before: string | null;
+  after: string | null;
+  /** JSON: VerdictChange[] */
+  verdictChanges: string;
+}
+
+/** Which builds a history entry touched, so a build's timeline includes part edits. */
+export interface HistoryBuildTable {
+  historyId: number;
+  buildId: string;
+}
+
+export interface SettingTable {
+  key: string;
+  value: string;
+}
+
+export interface Db {
+  batteries: BatteryTable;
+  motors: MotorTable;
+  controllers: ControllerTable;
+  propellers: PropellerTable;
+  vehicles: VehicleTable;
+  classRules: ClassRuleTable;
+  builds: BuildTable;
+  supplies: SupplyTable;
+  supplyPacks: SupplyPackTable;
+  verdicts: VerdictTable;
+  history: HistoryTable;
+  historyBuilds: HistoryBuildTable;
+  settings: SettingTable;
+}
+
+export type BatteryRow = Selectable<BatteryTable>;
+export type NewBatteryRow = Insertable<BatteryTable>;
+export type BatteryPatch = Updateable<BatteryTable>;
+export type MotorRow = Selectable<MotorTable>;
+export type ControllerRow = Selectable<ControllerTable>;
+export type PropellerRow = Selectable<PropellerTable>;
+export type VehicleRow = Selectable<VehicleTable>;
+export type ClassRuleRow = Selectable<ClassRuleTable>;
+export type BuildRow = Selectable<BuildTable>;
+export type NewBuildRow = Insertable<BuildTable>;
+export type BuildPatch = Updateable<BuildTable>;
+export type SupplyRow = Selectable<SupplyTable>;
+export type SupplyPackRow = Selectable<SupplyPackTable>;
+export type VerdictRow = Selectable<VerdictTable>;
+export type NewVerdictRow = Insertable<VerdictTable>;
+export type HistoryRow = Selectable<HistoryTable>;
+export type NewHistoryRow = Insertable<HistoryTable>;
+
+/** The part tables that share one shape of repository. */
+export type PartTableName = 'batteries' | 'motors' | 'controllers' | 'propellers' | 'vehicles' | 'classRules';

@@ -1,0 +1,69 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { test as base, expect } from '@playwright/test';
+
+/** A real loopback shell on its own store, started from the built bundle as a user would. */
+export interface Shell {
+  url: string;
+  openUrl: string;
+  token: string;
+  dbPath: string;
+  /** Calls the API as a second client would (another window, the command line). */
+  api<T = unknown>(name: string, args: unknown): Promise<T>;
+}
+
+export async function startShell(extraArgs: string[] = []): Promise<{ shell: Shell; stop: () => Promise<void> }> {
+  const dir = mkdtempSync(path.join(tmpdir(), 'rigbook-e2e-'));
+  const dbPath = path.join(dir, 'store.sqlite');
+  const token = `e2e${Math.random().toString(36).slice(2)}`;
+  const child: ChildProcess = spawn(process.execPath, ['dist-main/local-main.cjs', '--db', dbPath, ...extraArgs], {
+    env: { ...process.env, RIGBOOK_TOKEN: token },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  const url = await new Promise<string>((resolve, reject) => {
+    let out = '';
+    const timer = setTimeout(() => reject(new Error(`shell did not start: ${out}`)), 20_000);
+    child.stdout?.on('data', (d: Buffer) => {
+      out += d.toString();
+      const m = /serving on (http:\/\/127\.0\.0\.1:\d+\/)/.exec(out);
+      if (m?.[1]) {
+        clearTimeout(timer);
+        resolve(m[1]);
+      }
+    });
+    child.stderr?.on('data', (d: Buffer) => (out += d.toString()));
+    child.on('exit', (code) => reject(new Error(`shell exited with ${code}: ${out}`)));
+  });
+  const shell: Shell = {
+    url,
+    openUrl: `${url}#token=${token}`,
+    token,
+    dbPath,
+    async api<T>(name: string, args: unknown): Promise<T> {
+      const res = await fetch(`${url}api/${name}`, { method: 'POST', headers: { 'content-type': 'application/json', 'x-rigbook-token': token }, body: JSON.stringify(args) });
+      const body = (await res.json()) as { ok: boolean; value?: T; error?: { message: string } };
+      if (!body.ok) throw new Error(`${name}: ${body.error?.message}`);
+      return body.value as T;
+    },
+  };
+  const stop = async () => {
+    child.kill('SIGTERM');
+    await new Promise((r) => setTimeout(r, 200));
+    rmSync(dir, { recursive: true, force: true });
+  };
+  return { shell, stop };
+}
+
+export const test = base.extend<{ shell: Shell }>({
+  shell: async ({}, use) => {
+    const { shell, stop } = await startShell();
+    await use(shell);
+    await stop();
+  },
+});
+
+export { expect };
+
+export const SCREENSHOT_DIR = path.resolve('tests/artifacts/screens');
