@@ -133,7 +133,6 @@ export async function up(db: Kysely<unknown>): Promise<void> {
       .addColumn('peakCurrentA', 'real')
       .addColumn('peakCurrentLimitA', 'real')
       .addColumn('supplyStatuses', 'text', (c) => c.notNull())
-      .addColumn('supplies', 'text', (c) => c.notNull())
       .addColumn('evaluatedAt', 'text', (c) => c.notNull())
       .execute();
     await s

@@ -64,7 +64,7 @@ function pushRule(env: RuleEnv, id: BuiltInRuleId, value: Known, limit: Known, s
     unit: t.unit,
     value: finite(value),
     limit: finite(limit),
-    tightThreshold: env.threshold,
+    tightThreshold: t.ratedMaximum ? 0 : env.threshold,
     what: env.several && t.perMotor ? `${t.what} per motor` : t.what,
     limitName: t.limitName,
     risk: env.lithium && t.riskLithium ? t.riskLithium : t.risk,

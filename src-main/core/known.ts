@@ -39,8 +39,3 @@ export function nonNegative(x: number | null | undefined, field: string): Known 
 export function count(x: number | null | undefined, field: string): Known {
   return usable(x) && Number.isInteger(x) && x >= 1 ? known(x) : lacking(field);
 }
-
-/** A finite value or null: figures never carry NaN or Infinity. */
-export function finiteOrNull(x: number | null): number | null {
-  return x !== null && Number.isFinite(x) ? x : null;
-}

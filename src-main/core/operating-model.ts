@@ -28,56 +28,68 @@ export const NOT_APPLICABLE = 'figure.notApplicable';
 
 const isGround = (kind: string): boolean => kind === 'car' || kind === 'truck';
 
+/** Everything a result lacks, so a technician can fill in all of it at once. */
+function lackingAll(base: readonly Known<unknown>[], extra: readonly Known<unknown>[]): Known {
+  return lacking(...missingOf(...base, ...extra));
+}
+
+const anyMissing = (ks: readonly Known<unknown>[]): boolean => ks.some((k) => k.value === null);
+
 export function operate(inp: BuildInputs, supply: Known<SupplyModel>): Operation {
   const { kind, kv, motorResistanceOhm: rm, noLoadCurrentA: i0, motorCount } = inp;
+  const base: Known<unknown>[] = [kind, supply, kv, rm, i0, motorCount];
+  const notApplicable = lacking(NOT_APPLICABLE);
+  if (kind.value === null) {
+    const none = lackingAll(base, []);
+    return { peakMotorA: none, continuousMotorA: none, loadedTopSpeedKmh: none, loadedRpm: none, thrustN: none, tipSpeedMps: none };
+  }
+  const ground = isGround(kind.value);
+  const { finalDrive, tireDiameterMm, drivetrainEfficiency, massKg, tractionCoefficient, dragAreaM2, rollingCoefficient } = inp;
+  const { propDiameterM, powerCoefficient, thrustCoefficient } = inp;
+  const peakNeeds = ground ? [finalDrive, tireDiameterMm, drivetrainEfficiency, massKg, tractionCoefficient] : [propDiameterM, powerCoefficient];
+  const contNeeds = ground ? [finalDrive, tireDiameterMm, drivetrainEfficiency, massKg, dragAreaM2, rollingCoefficient] : peakNeeds;
+
   if (
-    kind.value === null ||
     supply.value === null ||
     kv.value === null ||
     rm.value === null ||
     i0.value === null ||
-    motorCount.value === null
+    motorCount.value === null ||
+    (anyMissing(peakNeeds) && anyMissing(contNeeds))
   ) {
-    const base = missingOf(kind, supply, kv, rm, i0, motorCount);
-    const none = lacking(...base);
-    return { peakMotorA: none, continuousMotorA: none, loadedTopSpeedKmh: none, loadedRpm: none, thrustN: none, tipSpeedMps: none };
+    const peak = lackingAll(base, peakNeeds);
+    const cont = lackingAll(base, contNeeds);
+    return {
+      peakMotorA: peak,
+      continuousMotorA: cont,
+      loadedTopSpeedKmh: ground ? cont : notApplicable,
+      loadedRpm: cont,
+      thrustN: ground ? notApplicable : lackingAll(base, [...peakNeeds, thrustCoefficient]),
+      tipSpeedMps: ground ? notApplicable : peak,
+    };
   }
   const n = motorCount.value;
   // Each motor sees its own winding and controller, and the pack drop of all motors together.
   const loopR = rm.value + inp.controllerResistanceOhm + n * supply.value.modelResistanceOhm;
   const m = motorParams(kv.value, loopR, i0.value);
   const volts = supply.value.fullV;
-  const notApplicable = lacking(NOT_APPLICABLE);
 
-  if (isGround(kind.value)) {
-    const { finalDrive, tireDiameterMm, drivetrainEfficiency, massKg, tractionCoefficient, dragAreaM2, rollingCoefficient } = inp;
-    if (finalDrive.value === null || tireDiameterMm.value === null || drivetrainEfficiency.value === null) {
-      const none = lacking(...missingOf(finalDrive, tireDiameterMm, drivetrainEfficiency));
-      return {
-        peakMotorA: lacking(...missingOf(none, massKg, tractionCoefficient)),
-        continuousMotorA: lacking(...missingOf(none, massKg, dragAreaM2, rollingCoefficient)),
-        loadedTopSpeedKmh: lacking(...missingOf(none, massKg, dragAreaM2, rollingCoefficient)),
-        loadedRpm: lacking(...missingOf(none, massKg, dragAreaM2, rollingCoefficient)),
-        thrustN: notApplicable,
-        tipSpeedMps: notApplicable,
-      };
-    }
+  if (ground && finalDrive.value !== null && tireDiameterMm.value !== null && drivetrainEfficiency.value !== null) {
     const d = { motorCount: n, finalDrive: finalDrive.value, tireDiameterMm: tireDiameterMm.value, efficiency: drivetrainEfficiency.value };
     let continuousMotorA: Known;
     let loadedTopSpeedKmh: Known;
     let loadedRpm: Known;
     if (massKg.value !== null && dragAreaM2.value !== null && rollingCoefficient.value !== null) {
-      const top = loadedTopSpeed(m, volts, d, {
-        massKg: massKg.value,
-        dragAreaM2: dragAreaM2.value,
-        rollingCoefficient: rollingCoefficient.value,
-        airDensity: AIR_DENSITY,
-      });
+      const road = { massKg: massKg.value, dragAreaM2: dragAreaM2.value, rollingCoefficient: rollingCoefficient.value, airDensity: AIR_DENSITY };
+      // The current is judged at full charge (the worst case); the speed a driver sees is
+      // quoted at nominal voltage, like the theoretical speed beside it.
+      const top = loadedTopSpeed(m, volts, d, road);
+      const cruising = loadedTopSpeed(m, supply.value.nominalV, d, road);
       continuousMotorA = known(top.currentA);
-      loadedTopSpeedKmh = known(mpsToKmh(top.speedMps));
-      loadedRpm = known(radPerSToRpm(top.omegaRadS));
+      loadedTopSpeedKmh = known(mpsToKmh(cruising.speedMps));
+      loadedRpm = known(radPerSToRpm(cruising.omegaRadS));
     } else {
-      continuousMotorA = loadedTopSpeedKmh = loadedRpm = lacking(...missingOf(massKg, dragAreaM2, rollingCoefficient));
+      continuousMotorA = loadedTopSpeedKmh = loadedRpm = lackingAll([], contNeeds);
     }
     let peakMotorA: Known;
     if (massKg.value !== null && tractionCoefficient.value !== null) {
@@ -85,22 +97,14 @@ export function operate(inp: BuildInputs, supply: Known<SupplyModel>): Operation
       // Drag can ask for more at top speed than the tyres allow at launch; the peak is the larger.
       peakMotorA = known(continuousMotorA.value === null ? launch : Math.max(launch, continuousMotorA.value));
     } else {
-      peakMotorA = lacking(...missingOf(massKg, tractionCoefficient));
+      peakMotorA = lackingAll([], peakNeeds);
     }
     return { peakMotorA, continuousMotorA, loadedTopSpeedKmh, loadedRpm, thrustN: notApplicable, tipSpeedMps: notApplicable };
   }
-
-  const { propDiameterM, powerCoefficient, thrustCoefficient } = inp;
-  if (propDiameterM.value === null || powerCoefficient.value === null) {
-    const none = lacking(...missingOf(propDiameterM, powerCoefficient));
-    return {
-      peakMotorA: none,
-      continuousMotorA: none,
-      loadedTopSpeedKmh: notApplicable,
-      loadedRpm: none,
-      thrustN: lacking(...missingOf(none, thrustCoefficient)),
-      tipSpeedMps: none,
-    };
+  if (ground || propDiameterM.value === null || powerCoefficient.value === null) {
+    // Unreachable in practice (the guard above covers it); kept so the types stay honest.
+    const peak = lackingAll([], peakNeeds);
+    return { peakMotorA: peak, continuousMotorA: peak, loadedTopSpeedKmh: peak, loadedRpm: peak, thrustN: notApplicable, tipSpeedMps: notApplicable };
   }
   const point = staticPropPoint(m, volts, {
     diameterM: propDiameterM.value,

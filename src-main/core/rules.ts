@@ -37,6 +37,11 @@ export interface RuleText {
   readonly tightHint: string;
   /** The figure is per motor when a build has several. */
   readonly perMotor: boolean;
+  /**
+   * The maker's rating is already a maximum at full charge (a "4S" controller is built for
+   * 16.8 V), so reaching it exactly is within the rating: no tight band, only over.
+   */
+  readonly ratedMaximum?: true;
 }
 
 const PACK_RISK =
@@ -53,6 +58,7 @@ export const RULE_TEXT: Readonly<Record<BuiltInRuleId, RuleText>> = {
     fix: 'Use fewer cells or a controller rated for this voltage.',
     tightHint: 'There is no room for a higher-voltage pack (for example LiHV cells or one more cell).',
     perMotor: false,
+    ratedMaximum: true,
   },
   'motor-voltage': {
     unit: 'V',
@@ -62,6 +68,7 @@ export const RULE_TEXT: Readonly<Record<BuiltInRuleId, RuleText>> = {
     fix: 'Use fewer cells or a motor rated for this voltage.',
     tightHint: 'There is no room for a higher-voltage pack (for example LiHV cells or one more cell).',
     perMotor: false,
+    ratedMaximum: true,
   },
   'motor-speed': {
     unit: 'rpm',

@@ -1,8 +1,9 @@
 import type { Battery, BuildContext, BuildVerdict, ClassRule, Status } from '../core/domain';
 import { evaluateBuild } from '../core/evaluate';
 import type { DbHandle } from '../store/db-handle';
-import { getBuilds } from '../store/repositories/builds';
-import { getParts } from '../store/repositories/parts';
+import { selectedBuildIds, selectsNothing, type BuildSelector } from '../store/build-selector';
+import { loadBuilds } from '../store/repositories/builds';
+import { rowToRecord } from '../store/repositories/part-records';
 import type { VerdictChange } from '../store/repositories/history';
 import { getStoredStatuses, verdictToRow, writeVerdicts } from '../store/repositories/verdicts';
 
@@ -11,40 +12,61 @@ export interface RecheckResult {
   changes: VerdictChange[];
 }
 
-/** Resolves every record the given builds refer to, with one query per table. */
-export async function loadBuildContexts(db: DbHandle, buildIds: readonly string[], defaultTightThreshold: number): Promise<BuildContext[]> {
-  const builds = await getBuilds(db, buildIds);
-  const ids = (pick: (b: (typeof builds)[number]) => (string | null)[]) => builds.flatMap(pick).filter((x): x is string => x !== null);
-  const [vehicles, motors, controllers, propellers, batteries] = await Promise.all([
-    getParts(db, 'vehicles', ids((b) => [b.vehicleId])),
-    getParts(db, 'motors', ids((b) => [b.motorId])),
-    getParts(db, 'controllers', ids((b) => [b.controllerId])),
-    getParts(db, 'propellers', ids((b) => [b.propellerId])),
-    getParts(db, 'batteries', ids((b) => b.supplies.flatMap((s) => s.batteryIds))),
+type RefTable = 'vehicles' | 'motors' | 'controllers' | 'propellers';
+const REF_COLUMN = { vehicles: 'vehicleId', motors: 'motorId', controllers: 'controllerId', propellers: 'propellerId' } as const;
+
+/** The records of one table that the selected builds point to, through a subquery. */
+async function referenced<T extends RefTable>(db: DbHandle, table: T, selector: BuildSelector) {
+  const rows = await db
+    .selectFrom(table as 'motors')
+    .selectAll()
+    .where('id', 'in', db.selectFrom('builds').select(`builds.${REF_COLUMN[table]}` as 'builds.motorId').where('builds.id', 'in', selectedBuildIds(db, selector)))
+    .execute();
+  return new Map(rows.map((row) => [row.id, rowToRecord(table, row)]));
+}
+
+async function referencedPacks(db: DbHandle, selector: BuildSelector): Promise<Map<string, Battery>> {
+  const rows = await db
+    .selectFrom('batteries')
+    .selectAll()
+    .where(
+      'id',
+      'in',
+      db.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplyPacks.batteryId').where('supplies.buildId', 'in', selectedBuildIds(db, selector)),
+    )
+    .execute();
+  return new Map(rows.map((row) => [row.id, rowToRecord('batteries', row)]));
+}
+
+/** Resolves every record the selected builds refer to, with one query per table. */
+export async function loadBuildContexts(db: DbHandle, selector: BuildSelector, defaultTightThreshold: number): Promise<BuildContext[]> {
+  if (selectsNothing(selector)) return [];
+  const [builds, vehicles, motors, controllers, propellers, batteries] = await Promise.all([
+    loadBuilds(db, selector),
+    referenced(db, 'vehicles', selector),
+    referenced(db, 'motors', selector),
+    referenced(db, 'controllers', selector),
+    referenced(db, 'propellers', selector),
+    referencedPacks(db, selector),
   ]);
-  const classNames = [...new Set(vehicles.map((x) => x.className).filter((c) => c !== ''))];
+  const classNames = [...new Set([...vehicles.values()].map((x) => x.className).filter((c) => c !== ''))];
   const rules = classNames.length === 0 ? [] : await db.selectFrom('classRules').selectAll().where('className', 'in', classNames).where('archivedAt', 'is', null).execute();
   const rulesByClass = new Map<string, ClassRule[]>();
-  for (const { createdAt: _c, updatedAt: _u, ...rule } of rules) {
+  for (const row of rules) {
+    const rule = rowToRecord('classRules', row);
     const list = rulesByClass.get(rule.className) ?? [];
     list.push(rule);
     rulesByClass.set(rule.className, list);
   }
-  const byId = <T extends { id: string }>(list: T[]) => new Map(list.map((x) => [x.id, x]));
-  const vehicleMap = byId(vehicles);
-  const motorMap = byId(motors);
-  const controllerMap = byId(controllers);
-  const propellerMap = byId(propellers);
-  const batteryMap: Map<string, Battery> = byId(batteries);
   return builds.map((build) => {
-    const vehicle = vehicleMap.get(build.vehicleId) ?? null;
+    const vehicle = (vehicles.get(build.vehicleId) as BuildContext['vehicle'] | undefined) ?? null;
     return {
       build,
       vehicle,
-      motor: build.motorId === null ? null : (motorMap.get(build.motorId) ?? null),
-      controller: build.controllerId === null ? null : (controllerMap.get(build.controllerId) ?? null),
-      propeller: build.propellerId === null ? null : (propellerMap.get(build.propellerId) ?? null),
-      batteries: batteryMap,
+      motor: build.motorId === null ? null : ((motors.get(build.motorId) as BuildContext['motor'] | undefined) ?? null),
+      controller: build.controllerId === null ? null : ((controllers.get(build.controllerId) as BuildContext['controller'] | undefined) ?? null),
+      propeller: build.propellerId === null ? null : ((propellers.get(build.propellerId) as BuildContext['propeller'] | undefined) ?? null),
+      batteries,
       classRules: vehicle ? (rulesByClass.get(vehicle.className) ?? []) : [],
       defaultTightThreshold,
     } satisfies BuildContext;
@@ -52,10 +74,7 @@ export async function loadBuildContexts(db: DbHandle, buildIds: readonly string[
 }
 
 /** Status changes between what was stored and what the evaluation says now, per build and per supply. */
-export function diffStatuses(
-  verdict: BuildVerdict,
-  stored: { status: Status; supplies: Map<string, Status> } | undefined,
-): VerdictChange[] {
+export function diffStatuses(verdict: BuildVerdict, stored: { status: Status; supplies: Map<string, Status> } | undefined): VerdictChange[] {
   const changes: VerdictChange[] = [];
   if (stored?.status !== verdict.status) changes.push({ buildId: verdict.buildId, supplyId: null, from: stored?.status ?? null, to: verdict.status });
   for (const s of verdict.supplies) {
@@ -65,13 +84,13 @@ export function diffStatuses(
   return changes;
 }
 
-/** Evaluates the builds and stores their verdicts; run inside the write's transaction. */
-export async function recheckBuilds(db: DbHandle, buildIds: readonly string[], defaultTightThreshold: number, evaluatedAt: string): Promise<RecheckResult> {
-  if (buildIds.length === 0) return { verdicts: [], changes: [] };
-  const contexts = await loadBuildContexts(db, buildIds, defaultTightThreshold);
-  const stored = await getStoredStatuses(db, buildIds);
+/** Evaluates the selected builds and stores their verdicts; run inside the write's transaction. */
+export async function recheckBuilds(db: DbHandle, selector: BuildSelector, defaultTightThreshold: number, evaluatedAt: string): Promise<RecheckResult> {
+  if (selectsNothing(selector)) return { verdicts: [], changes: [] };
+  const [contexts, stored] = await Promise.all([loadBuildContexts(db, selector, defaultTightThreshold), getStoredStatuses(db, selector)]);
   const verdicts = contexts.map(evaluateBuild);
-  const changes = verdicts.flatMap((verdict) => diffStatuses(verdict, stored.get(verdict.buildId)));
+  const changes: VerdictChange[] = [];
+  for (const verdict of verdicts) for (const change of diffStatuses(verdict, stored.get(verdict.buildId))) changes.push(change);
   await writeVerdicts(db, verdicts.map((verdict) => verdictToRow(verdict, evaluatedAt)));
   return { verdicts, changes };
 }

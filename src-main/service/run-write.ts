@@ -3,6 +3,7 @@ import type { Db } from '../store/schema';
 import { appendHistory, type HistoryEntryInput, type VerdictChange } from '../store/repositories/history';
 import { readSettings } from '../store/repositories/settings';
 import { recheckBuilds } from './recheck';
+import { byIds, type BuildSelector } from '../store/build-selector';
 import type { BuildVerdict } from '../core/domain';
 import type { ServiceContext } from './service-context';
 
@@ -10,9 +11,9 @@ import type { ServiceContext } from './service-context';
 export interface WritePlan<R> {
   result: R;
   /** The history entry, less what the write path fills in itself. */
-  history: Omit<HistoryEntryInput, 'at' | 'actor' | 'verdictChanges' | 'buildIds'> | null;
-  /** Builds whose verdict this write may change. */
-  recheck: readonly string[];
+  history: Omit<HistoryEntryInput, 'at' | 'actor' | 'verdictChanges' | 'builds'> | null;
+  /** Builds whose verdict this write may change: a list of ids or a selector query. */
+  recheck: readonly string[] | BuildSelector;
   changed: { kind: string; ids: string[] };
 }
 
@@ -21,6 +22,10 @@ export interface WriteOutcome<R> {
   verdicts: BuildVerdict[];
   verdictChanges: VerdictChange[];
   historyId: number | null;
+}
+
+function toSelector(recheck: readonly string[] | BuildSelector): BuildSelector {
+  return Array.isArray(recheck) ? byIds(recheck as readonly string[]) : (recheck as BuildSelector);
 }
 
 class PreviewRollback<R> extends Error {
@@ -47,7 +52,8 @@ export async function runWrite<R>(
       const plan = await work(trx, at);
       changed = plan.changed;
       const settings = await readSettings(trx);
-      const recheck = await recheckBuilds(trx, plan.recheck, settings.tightThreshold, at);
+      const selector = toSelector(plan.recheck);
+      const recheck = await recheckBuilds(trx, selector, settings.tightThreshold, at);
       let historyId: number | null = null;
       if (plan.history) {
         historyId = await appendHistory(trx, {
@@ -55,7 +61,7 @@ export async function runWrite<R>(
           at,
           actor: ctx.actor,
           verdictChanges: recheck.changes,
-          buildIds: plan.recheck,
+          builds: selector,
         });
       }
       const done: WriteOutcome<R> = { result: plan.result, verdicts: recheck.verdicts, verdictChanges: recheck.changes, historyId };

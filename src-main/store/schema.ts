@@ -108,7 +108,11 @@ export interface SupplyPackTable {
   batteryId: string;
 }
 
-/** The stored verdict of one build: its status, the key figures for the list, and every supply's detail. */
+/**
+ * The stored verdict of one build: its status, each supply's status and the key figures for
+ * the list. The findings themselves are evaluated afresh when a sheet is opened (the inputs
+ * are the same, so they agree), which keeps a 10 000-build re-check's writes small.
+ */
 export interface VerdictTable {
   buildId: string;
   status: string;
@@ -119,8 +123,6 @@ export interface VerdictTable {
   peakCurrentLimitA: number | null;
   /** `supplyId=status` pairs joined by commas: cheap to compare on a re-check without parsing JSON. */
   supplyStatuses: string;
-  /** JSON: SupplyVerdict[] */
-  supplies: string;
   evaluatedAt: string;
 }
 

@@ -5,7 +5,8 @@ import type { DbHandle } from '../../store/db-handle';
 import { getBuild, insertBuild, updateBuildAtVersion, type BuildFields } from '../../store/repositories/builds';
 import { listBuildSummaries } from '../../store/repositories/build-list';
 import { getPart, getParts } from '../../store/repositories/parts';
-import { getVerdict } from '../../store/repositories/verdicts';
+import { getEvaluatedAt } from '../../store/repositories/verdicts';
+import { byIds } from '../../store/build-selector';
 import { readSettings } from '../../store/repositories/settings';
 import { ServiceError } from '../contract';
 import { defineHandler } from '../define-handler';
@@ -74,15 +75,20 @@ export const listBuilds = defineHandler(listInput, async (ctx, input) => listBui
 
 export const getBuildSheet = defineHandler(record({ id: id() }), async (ctx, input) => {
   const build = await requireBuild(ctx.db, input.id);
-  const [vehicle, motor, controller, propeller, batteries, verdict] = await Promise.all([
-    getPart(ctx.db, 'vehicles', build.vehicleId),
-    build.motorId ? getPart(ctx.db, 'motors', build.motorId) : undefined,
-    build.controllerId ? getPart(ctx.db, 'controllers', build.controllerId) : undefined,
-    build.propellerId ? getPart(ctx.db, 'propellers', build.propellerId) : undefined,
-    getParts(ctx.db, 'batteries', build.supplies.flatMap((s) => s.batteryIds)),
-    getVerdict(ctx.db, build.id),
-  ]);
-  return { build, vehicle: vehicle ?? null, motor: motor ?? null, controller: controller ?? null, propeller: propeller ?? null, batteries, verdict: verdict ?? null };
+  const settings = await readSettings(ctx.db);
+  const [context] = await loadBuildContexts(ctx.db, byIds([build.id]), settings.tightThreshold);
+  const evaluatedAt = await getEvaluatedAt(ctx.db, build.id);
+  if (!context) throw new ServiceError('not-found', `id: no build with id "${input.id}"`, 'id');
+  const verdict = evaluateBuild(context);
+  return {
+    build,
+    vehicle: context.vehicle,
+    motor: context.motor,
+    controller: context.controller,
+    propeller: context.propeller,
+    batteries: build.supplies.flatMap((s) => s.batteryIds).flatMap((packId) => context.batteries.get(packId) ?? []),
+    verdict: { status: verdict.status, supplies: verdict.supplies, evaluatedAt: evaluatedAt ?? '' },
+  };
 });
 
 export const createBuild = defineHandler(buildCreateSchema, async (ctx, input) => {
@@ -186,6 +192,6 @@ export const previewChange = defineHandler(previewInput, async (ctx, input) => {
   }
   const ids = outcome.verdicts.map((x) => x.buildId);
   const settings = await readSettings(ctx.db);
-  const before = (await loadBuildContexts(ctx.db, ids, settings.tightThreshold)).map(evaluateBuild);
+  const before = (await loadBuildContexts(ctx.db, byIds(ids), settings.tightThreshold)).map(evaluateBuild);
   return { before, after: outcome.verdicts, verdictChanges: outcome.verdictChanges };
 });

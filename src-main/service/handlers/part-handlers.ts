@@ -2,7 +2,7 @@ import * as v from 'valibot';
 import type { PartTableName } from '../../store/schema';
 import { getPart, insertPart, listParts, updatePartAtVersion } from '../../store/repositories/parts';
 import type { PartFields, PartRecords } from '../../store/repositories/part-records';
-import { buildIdsInClass, buildIdsUsing } from '../../store/repositories/builds';
+import type { BuildSelector } from '../../store/build-selector';
 import type { DbHandle } from '../../store/db-handle';
 import { ServiceError } from '../contract';
 import { defineHandler } from '../define-handler';
@@ -20,9 +20,9 @@ const idInput = record({ id: id() });
 const listInput = v.optional(record({ includeArchived: v.optional(flag(), false) }), {});
 export const reasonField = () => v.optional(text(500), '');
 
-async function affectedBuilds(db: DbHandle, table: PartTableName, before: Record<string, unknown>): Promise<string[]> {
-  if (table === 'classRules') return buildIdsInClass(db, String(before.className));
-  return buildIdsUsing(db, table, String(before.id));
+function affectedBuilds(table: PartTableName, record: Record<string, unknown>): BuildSelector {
+  if (table === 'classRules') return { by: 'class', className: String(record.className) };
+  return { by: 'part', kind: table, id: String(record.id) };
 }
 
 export async function requirePart<T extends PartTableName>(db: DbHandle, table: T, partId: string, field = 'id'): Promise<PartRecords[T]> {
@@ -54,7 +54,8 @@ export function createHandler<T extends PartTableName, S extends v.GenericSchema
     const outcome = await runWrite(ctx, async (trx, at) => {
       if (await getPart(trx, table, newId)) throw new ServiceError('conflict', `id: a ${RECORD_LABELS[table]} with id "${newId}" already exists`, 'id');
       const stored = await insertPart(trx, table, newId, fields as unknown as PartFields<T>, at);
-      const recheck = table === 'classRules' ? await affectedBuilds(trx, table, stored as unknown as Record<string, unknown>) : [];
+      // A new pack or motor is used by no build yet; a new class rule applies to its class at once.
+      const recheck: BuildSelector = table === 'classRules' ? affectedBuilds(table, stored as unknown as Record<string, unknown>) : { by: 'ids', ids: [] };
       return {
         result: stored,
         history: { action: 'create', entityKind: table, entityId: newId, summary: `Added ${RECORD_LABELS[table]} "${recordName(stored)}"`, reason: '', before: null, after: stored },
@@ -85,7 +86,10 @@ export async function writePartPatch<T extends PartTableName>(
       const beforeRecord = before as unknown as Record<string, unknown>;
       const afterRecord = after as unknown as Record<string, unknown>;
       // A class rule moved to another class re-checks both classes' builds.
-      const recheck = [...new Set([...(await affectedBuilds(trx, table, beforeRecord)), ...(await affectedBuilds(trx, table, afterRecord))])];
+      const recheck: BuildSelector =
+        table === 'classRules' && beforeRecord.className !== afterRecord.className
+          ? { by: 'any', of: [affectedBuilds(table, beforeRecord), affectedBuilds(table, afterRecord)] }
+          : affectedBuilds(table, afterRecord);
       return {
         result: after,
         history: {

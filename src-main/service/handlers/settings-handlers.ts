@@ -1,5 +1,4 @@
 import * as v from 'valibot';
-import { allBuildIds } from '../../store/repositories/builds';
 import { readSettings, writeSettings, type Settings } from '../../store/repositories/settings';
 import { defineHandler } from '../define-handler';
 import { runWrite } from '../run-write';
@@ -25,7 +24,7 @@ export const updateSettings = defineHandler(
         history: thresholdChanged
           ? { action: 'update', entityKind: 'settings', entityId: 'tightThreshold', summary: `Default tight threshold ${before.tightThreshold} → ${after.tightThreshold}`, reason: '', before, after }
           : null,
-        recheck: thresholdChanged ? await allBuildIds(trx) : [],
+        recheck: thresholdChanged ? { by: 'all' } : [],
         changed: { kind: 'settings', ids: Object.keys(input) },
       };
     });

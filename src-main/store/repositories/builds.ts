@@ -1,6 +1,7 @@
 import type { Build, Supply, Arrangement } from '../../core/domain';
 import { chunks, type DbHandle } from '../db-handle';
 import type { BuildRow, BuildTable } from '../schema';
+import { byIds, selectedBuildIds, selectorCondition, type BuildSelector } from '../build-selector';
 
 export type BuildFields = Omit<Build, 'id' | 'version' | 'archivedAt'>;
 
@@ -37,46 +38,46 @@ function buildToColumns(fields: Partial<BuildFields>): Partial<BuildColumns> {
   return { ...rest, ...(gearing ?? {}) };
 }
 
-/** Reads the supplies of many builds at once, in their stored order. */
-export async function loadSupplies(db: DbHandle, buildIds: readonly string[]): Promise<Map<string, Supply[]>> {
+/** Reads the supplies of the selected builds, in their stored order. */
+export async function loadSupplies(db: DbHandle, selector: BuildSelector): Promise<Map<string, Supply[]>> {
   const byBuild = new Map<string, Supply[]>();
   const byId = new Map<string, Supply>();
-  for (const part of chunks(buildIds)) {
-    const supplies = await db
-      .selectFrom('supplies')
-      .select(['id', 'buildId', 'arrangement'])
-      .where('buildId', 'in', part)
-      .orderBy('buildId')
-      .orderBy('position')
-      .execute();
-    for (const s of supplies) {
-      const supply: Supply = { id: s.id, arrangement: s.arrangement as Arrangement, batteryIds: [] };
-      byId.set(s.id, supply);
-      const list = byBuild.get(s.buildId);
-      if (list) list.push(supply);
-      else byBuild.set(s.buildId, [supply]);
-    }
-    const packs = await db
-      .selectFrom('supplyPacks')
-      .innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId')
-      .select(['supplyPacks.supplyId', 'supplyPacks.batteryId'])
-      .where('supplies.buildId', 'in', part)
-      .orderBy('supplyPacks.supplyId')
-      .orderBy('supplyPacks.position')
-      .execute();
-    for (const p of packs) byId.get(p.supplyId)?.batteryIds.push(p.batteryId);
+  const supplies = await db
+    .selectFrom('supplies')
+    .select(['id', 'buildId', 'arrangement'])
+    .where('buildId', 'in', selectedBuildIds(db, selector))
+    .orderBy('buildId')
+    .orderBy('position')
+    .execute();
+  for (const s of supplies) {
+    const supply: Supply = { id: s.id, arrangement: s.arrangement as Arrangement, batteryIds: [] };
+    byId.set(s.id, supply);
+    const list = byBuild.get(s.buildId);
+    if (list) list.push(supply);
+    else byBuild.set(s.buildId, [supply]);
   }
+  const packs = await db
+    .selectFrom('supplyPacks')
+    .innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId')
+    .select(['supplyPacks.supplyId', 'supplyPacks.batteryId'])
+    .where('supplies.buildId', 'in', selectedBuildIds(db, selector))
+    .orderBy('supplyPacks.supplyId')
+    .orderBy('supplyPacks.position')
+    .execute();
+  for (const p of packs) byId.get(p.supplyId)?.batteryIds.push(p.batteryId);
   return byBuild;
 }
 
+/** The selected builds with their supplies; one query per table however many there are. */
+export async function loadBuilds(db: DbHandle, selector: BuildSelector): Promise<Build[]> {
+  const supplies = await loadSupplies(db, selector);
+  const rows = await db.selectFrom('builds').selectAll().where((eb) => selectorCondition(db, eb, selector)).orderBy('id').execute();
+  return rows.map((row) => rowToBuild(row, supplies.get(row.id) ?? []));
+}
+
 export async function getBuilds(db: DbHandle, ids: readonly string[]): Promise<Build[]> {
-  const unique = [...new Set(ids)];
-  const supplies = await loadSupplies(db, unique);
   const out: Build[] = [];
-  for (const part of chunks(unique)) {
-    const rows = await db.selectFrom('builds').selectAll().where('id', 'in', part).execute();
-    for (const row of rows) out.push(rowToBuild(row, supplies.get(row.id) ?? []));
-  }
+  for (const part of chunks([...new Set(ids)])) out.push(...(await loadBuilds(db, byIds(part))));
   return out;
 }
 
@@ -121,36 +122,6 @@ export async function updateBuildAtVersion(
   const written = Number(result.numUpdatedRows);
   if (written > 0 && patch.supplies) await writeSupplies(db, id, patch.supplies);
   return written;
-}
-
-export type PartKind = 'batteries' | 'motors' | 'controllers' | 'propellers' | 'vehicles';
-
-/** The builds (archived or not) that use a part, found through the part → builds indexes. */
-export async function buildIdsUsing(db: DbHandle, kind: PartKind, id: string): Promise<string[]> {
-  if (kind === 'batteries') {
-    const rows = await db
-      .selectFrom('supplyPacks')
-      .innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId')
-      .select('supplies.buildId')
-      .distinct()
-      .where('supplyPacks.batteryId', '=', id)
-      .execute();
-    return rows.map((r) => r.buildId);
-  }
-  const column = ({ motors: 'motorId', controllers: 'controllerId', propellers: 'propellerId', vehicles: 'vehicleId' } as const)[kind];
-  const rows = await db.selectFrom('builds').select('id').where(column, '=', id).execute();
-  return rows.map((r) => r.id);
-}
-
-/** Builds of vehicles in a class, for a class rule change. */
-export async function buildIdsInClass(db: DbHandle, className: string): Promise<string[]> {
-  const rows = await db
-    .selectFrom('builds')
-    .innerJoin('vehicles', 'vehicles.id', 'builds.vehicleId')
-    .select('builds.id')
-    .where('vehicles.className', '=', className)
-    .execute();
-  return rows.map((r) => r.id);
 }
 
 export async function allBuildIds(db: DbHandle): Promise<string[]> {

@@ -1,6 +1,6 @@
 import type { Status } from '../../core/domain';
 import type { DbHandle } from '../db-handle';
-import { chunks } from '../db-handle';
+import { selectedBuildIds, selectsNothing, type BuildSelector } from '../build-selector';
 
 export interface VerdictChange {
   buildId: string;
@@ -22,7 +22,7 @@ export interface HistoryEntryInput {
   after: unknown;
   verdictChanges: VerdictChange[];
   /** Builds this write re-checked, so their timelines show it. */
-  buildIds: readonly string[];
+  builds: BuildSelector;
 }
 
 export interface HistoryEntry {
@@ -58,11 +58,12 @@ export async function appendHistory(db: DbHandle, entry: HistoryEntryInput): Pro
     .executeTakeFirstOrThrow();
   // better-sqlite3 may hand back a BigInt row id.
   const historyId = Number(inserted.id);
-  const buildIds = [...new Set(entry.buildIds)];
-  for (const part of chunks(buildIds, 400)) {
+  if (!selectsNothing(entry.builds)) {
+    // One INSERT … SELECT links the entry to every re-checked build, however many there are.
     await db
       .insertInto('historyBuilds')
-      .values(part.map((buildId) => ({ historyId, buildId })))
+      .columns(['historyId', 'buildId'])
+      .expression(selectedBuildIds(db, entry.builds).clearSelect().select((eb) => [eb.val(historyId).as('historyId'), 'builds.id as buildId']))
       .execute();
   }
   return historyId;

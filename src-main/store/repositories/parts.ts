@@ -1,3 +1,4 @@
+import { sql } from 'kysely';
 import type { DbHandle } from '../db-handle';
 import type { PartTableName } from '../schema';
 import { fieldsToColumns, rowToRecord, type PartFields, type PartRecords } from './part-records';
@@ -36,11 +37,10 @@ export async function getParts<T extends PartTableName>(db: DbHandle, table: T, 
 }
 
 export async function listParts<T extends PartTableName>(db: DbHandle, table: T, options: ListOptions = {}): Promise<PartRecords[T][]> {
-  let query = db
-    .selectFrom(table as AnyTable)
-    .selectAll()
-    .orderBy('name')
-    .orderBy('id');
+  let query = db.selectFrom(table as AnyTable).selectAll();
+  // Class rules have no name column: their class and rule id are what a person reads.
+  query = table === 'classRules' ? query.orderBy(sql.ref('className')).orderBy(sql.ref('ruleId')) : query.orderBy('name');
+  query = query.orderBy('id');
   if (!options.includeArchived) query = query.where('archivedAt', 'is', null);
   const rows = await query.execute();
   return rows.map((row) => rowToRecord(table, row));

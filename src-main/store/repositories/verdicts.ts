@@ -1,5 +1,6 @@
 import type { BuildVerdict, Status, SupplyVerdict } from '../../core/domain';
 import { chunks, type DbHandle } from '../db-handle';
+import { selectedBuildIds, type BuildSelector } from '../build-selector';
 import type { NewVerdictRow } from '../schema';
 
 /** The stored status of every supply of a build, keyed by supply id. */
@@ -22,12 +23,10 @@ export function decodeSupplyStatuses(text: string): Map<string, Status> {
   return out;
 }
 
-export async function getStoredStatuses(db: DbHandle, buildIds: readonly string[]): Promise<Map<string, StoredStatuses>> {
+export async function getStoredStatuses(db: DbHandle, selector: BuildSelector): Promise<Map<string, StoredStatuses>> {
   const out = new Map<string, StoredStatuses>();
-  for (const part of chunks(buildIds)) {
-    const rows = await db.selectFrom('verdicts').select(['buildId', 'status', 'supplyStatuses']).where('buildId', 'in', part).execute();
-    for (const r of rows) out.set(r.buildId, { status: r.status as Status, supplies: decodeSupplyStatuses(r.supplyStatuses) });
-  }
+  const rows = await db.selectFrom('verdicts').select(['buildId', 'status', 'supplyStatuses']).where('buildId', 'in', selectedBuildIds(db, selector)).execute();
+  for (const r of rows) out.set(r.buildId, { status: r.status as Status, supplies: decodeSupplyStatuses(r.supplyStatuses) });
   return out;
 }
 
@@ -56,14 +55,14 @@ export function verdictToRow(verdict: BuildVerdict, evaluatedAt: string): NewVer
     peakCurrentA,
     peakCurrentLimitA,
     supplyStatuses: encodeSupplyStatuses(verdict.supplies),
-    supplies: JSON.stringify(verdict.supplies),
     evaluatedAt,
   };
 }
 
-const ROWS_PER_INSERT = 100;
+// 9 columns a row: 3 000 rows stay under SQLite's 32 766 bound parameters.
+const ROWS_PER_INSERT = 3000;
 
-/** Upserts verdict rows in batches: one statement per hundred builds keeps a large re-check fast. */
+/** Upserts verdict rows in large batches: a few statements for a 10 000-build re-check. */
 export async function writeVerdicts(db: DbHandle, rows: readonly NewVerdictRow[]): Promise<void> {
   for (const part of chunks(rows, ROWS_PER_INSERT)) {
     await db
@@ -77,7 +76,6 @@ export async function writeVerdicts(db: DbHandle, rows: readonly NewVerdictRow[]
           peakCurrentA: eb.ref('excluded.peakCurrentA'),
           peakCurrentLimitA: eb.ref('excluded.peakCurrentLimitA'),
           supplyStatuses: eb.ref('excluded.supplyStatuses'),
-          supplies: eb.ref('excluded.supplies'),
           evaluatedAt: eb.ref('excluded.evaluatedAt'),
         })),
       )
@@ -85,8 +83,8 @@ export async function writeVerdicts(db: DbHandle, rows: readonly NewVerdictRow[]
   }
 }
 
-export async function getVerdict(db: DbHandle, buildId: string): Promise<{ status: Status; supplies: SupplyVerdict[]; evaluatedAt: string } | undefined> {
-  const row = await db.selectFrom('verdicts').select(['status', 'supplies', 'evaluatedAt']).where('buildId', '=', buildId).executeTakeFirst();
-  if (!row) return undefined;
-  return { status: row.status as Status, supplies: JSON.parse(row.supplies) as SupplyVerdict[], evaluatedAt: row.evaluatedAt };
+/** When the stored verdict was last computed; the detail itself is evaluated fresh on reading. */
+export async function getEvaluatedAt(db: DbHandle, buildId: string): Promise<string | null> {
+  const row = await db.selectFrom('verdicts').select('evaluatedAt').where('buildId', '=', buildId).executeTakeFirst();
+  return row?.evaluatedAt ?? null;
 }
