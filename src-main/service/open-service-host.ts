@@ -3,6 +3,7 @@ import { userInfo } from 'node:os';
 import { openStore } from '../store/open-database';
 import type { EventListener, ServiceHost } from './contract';
 import { dispatch } from './dispatch';
+import { recheckIfEngineChanged } from './engine-upgrade';
 import type { ServiceContext } from './service-context';
 
 export interface HostOptions {
@@ -43,6 +44,7 @@ export async function openServiceHost(options: HostOptions): Promise<ServiceHost
       }
     },
   };
+  await recheckIfEngineChanged(ctx);
   return {
     ctx,
     dbPath: store.path,

@@ -6,9 +6,11 @@ export interface Settings {
   tightThreshold: number;
   /** Whether the first-start offer of the demo fleet was answered. */
   demoOffered: boolean;
+  /** The rules engine that computed the stored verdicts; 0 before any. */
+  engineVersion: number;
 }
 
-export const DEFAULT_SETTINGS: Settings = { units: 'metric', tightThreshold: 0.15, demoOffered: false };
+export const DEFAULT_SETTINGS: Settings = { units: 'metric', tightThreshold: 0.15, demoOffered: false, engineVersion: 0 };
 
 export async function readSettings(db: DbHandle): Promise<Settings> {
   const rows = await db.selectFrom('settings').select(['key', 'value']).execute();
