@@ -93,6 +93,7 @@ export async function up(db: Kysely<unknown>): Promise<void> {
       .addColumn('figure', 'text', (c) => c.notNull())
       .addColumn('limit', 'real', (c) => c.notNull())
       .addColumn('unit', 'text', (c) => c.notNull().defaultTo(''))
+      .addColumn('tightThreshold', 'real')
       .execute();
     await withMeta(s.createTable('builds'))
       .addColumn('name', 'text', (c) => c.notNull())

@@ -1,81 +1,35 @@
 import type { Generated, Insertable, Selectable, Updateable } from 'kysely';
+import type { Battery, ClassRule, Controller, Motor, Propeller, RecordMeta, Vehicle } from '../core/domain';
 
 // Column names are camelCase, the same as the rigbook-fleet fields, so rows map to records
 // without a renaming layer; Kysely quotes every identifier, which keeps this portable to
 // PostgreSQL. Booleans are 0/1 integers and lists are JSON text, the common denominator.
 
-interface Meta {
-  id: string;
-  version: number;
-  archivedAt: string | null;
-  notes: string;
+// Part tables hold the domain records column for column, plus bookkeeping timestamps; only
+// booleans change type (0/1 integers), so the table types are derived from the records and
+// cannot drift from them. Enumerated text columns keep their union types: every write passes
+// the service's schemas first.
+interface Stamps {
   createdAt: string;
   updatedAt: string;
 }
 
-export interface BatteryTable extends Meta {
-  name: string;
-  chemistry: string;
-  cellsSeries: number;
-  cellsParallel: number;
-  capacityMah: number;
-  cRatingContinuous: number | null;
-  cRatingBurst: number | null;
-  cellResistanceOhm: number | null;
-  massKg: number | null;
-  cycleCount: number;
+interface Meta extends RecordMeta, Stamps {}
+
+export interface BatteryTable extends Omit<Battery, 'retired'>, Stamps {
   retired: number;
 }
 
-export interface MotorTable extends Meta {
-  name: string;
-  kv: number;
-  resistanceOhm: number | null;
-  noLoadCurrentA: number | null;
-  maxCurrentA: number | null;
-  maxPowerW: number | null;
-  maxVoltageV: number | null;
-  maxRpm: number | null;
-  poles: number | null;
-  massKg: number | null;
-}
+export interface MotorTable extends Motor, Stamps {}
 
-export interface ControllerTable extends Meta {
-  name: string;
-  maxVoltageV: number | null;
-  maxCells: number | null;
-  continuousCurrentA: number | null;
-  burstCurrentA: number | null;
-  resistanceOhm: number | null;
-  massKg: number | null;
-}
+export interface ControllerTable extends Controller, Stamps {}
 
-export interface PropellerTable extends Meta {
-  name: string;
-  diameterMm: number;
-  pitchMm: number | null;
-  blades: number;
-  thrustCoefficient: number | null;
-  powerCoefficient: number | null;
-}
+export interface PropellerTable extends Propeller, Stamps {}
 
-export interface VehicleTable extends Meta {
-  name: string;
-  kind: string;
-  massKg: number | null;
-  dragAreaM2: number | null;
-  rollingCoefficient: number | null;
-  tractionCoefficient: number | null;
-  owner: string;
-  className: string;
-}
+export interface VehicleTable extends Vehicle, Stamps {}
 
-export interface ClassRuleTable extends Meta {
-  className: string;
-  ruleId: string;
-  figure: string;
-  limit: number;
-  unit: string;
+export interface ClassRuleTable extends Omit<ClassRule, 'tightThreshold'>, Stamps {
+  tightThreshold: number | null;
 }
 
 export interface BuildTable extends Meta {

@@ -99,7 +99,8 @@ export const classRuleSchemas = schemasFor(
     figure: v.pipe(text(60), v.minLength(1, 'is required')),
     limit: number({ min: -1e9, max: 1e9 }),
     unit: text(12),
+    tightThreshold: nullable(number({ min: 0, max: 0.9 })),
     notes: notes(),
   },
-  { unit: '', notes: '' },
+  { unit: '', tightThreshold: null, notes: '' },
 );

@@ -25,19 +25,8 @@ export interface HistoryEntryInput {
   builds: BuildSelector;
 }
 
-export interface HistoryEntry {
-  id: number;
-  at: string;
-  actor: string;
-  action: string;
-  entityKind: string;
-  entityId: string;
-  summary: string;
-  reason: string;
-  before: unknown;
-  after: unknown;
-  verdictChanges: VerdictChange[];
-}
+/** An entry as read back: its id instead of the builds it linked. */
+export type HistoryEntry = Omit<HistoryEntryInput, 'builds'> & { id: number };
 
 export async function appendHistory(db: DbHandle, entry: HistoryEntryInput): Promise<number> {
   const inserted = await db
