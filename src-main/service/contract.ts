@@ -18,7 +18,12 @@ export type ServiceEvent =
   /** Builds whose stored verdict was rewritten by a write. */
   | { type: 'verdicts-changed'; buildIds: string[] }
   /** Records of a kind were created, updated or archived. */
-  | { type: 'records-changed'; kind: string; ids: string[] };
+  | { type: 'records-changed'; kind: string; ids: string[] }
+  /**
+   * A long task got this far; `done` reaches `total` at the end. `kind` says what it works on
+   * (`fleet` for imports and exports, `store` for a backup), `task` which step (`check`, `write`, `export`, `backup`).
+   */
+  | { type: 'progress'; kind: string; task: string; done: number; total: number };
 
 export type EventListener = (event: ServiceEvent) => void;
 

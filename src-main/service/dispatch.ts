@@ -13,7 +13,11 @@ export function isHandlerName(name: string): name is HandlerName {
 export function toApiError(error: unknown, log: (message: string) => void = (m) => process.stderr.write(`${m}\n`)): ApiError {
   if (error instanceof ServiceError) return error.field === undefined ? { kind: error.kind, message: error.message } : { kind: error.kind, message: error.message, field: error.field };
   const code = (error as { code?: unknown } | null)?.code;
-  if (code === 'SQLITE_BUSY' || code === 'SQLITE_LOCKED') return { kind: 'conflict', message: 'The store is busy with another write. Nothing was saved; try again.' };
+  // better-sqlite3 reports extended codes: a write whose read went stale while another
+  // process committed fails with SQLITE_BUSY_SNAPSHOT, which is the same story for the user.
+  if (typeof code === 'string' && (code.startsWith('SQLITE_BUSY') || code.startsWith('SQLITE_LOCKED'))) {
+    return { kind: 'conflict', message: 'The store is busy with another write. Nothing was saved; try again.' };
+  }
   if (typeof code === 'string' && code.startsWith('SQLITE_CONSTRAINT')) {
     log(`constraint: ${String((error as Error).message)}`);
     return { kind: 'invalid', message: 'The change breaks a link between records (a referenced record is missing or still in use). Nothing was saved.' };

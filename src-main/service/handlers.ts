@@ -5,6 +5,9 @@ import { archiveBuild, createBuild, getBuildSheet, listBuilds, previewChange, up
 import { listHistoryEntries } from './handlers/history-handlers';
 import { getSettings, updateSettings } from './handlers/settings-handlers';
 import { storeInfo } from './handlers/store-handlers';
+import { exportCsvHandler, exportFleetHandler, importCsvHandler, importFleetHandler } from './handlers/fleet-handlers';
+import { backupStoreHandler } from './handlers/backup-handlers';
+import { loadDemoHandler } from './handlers/demo-handlers';
 import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from './schemas/part-schemas';
 
 /**
@@ -52,6 +55,13 @@ export const handlers = {
   'settings.get': getSettings,
   'settings.update': updateSettings,
   'store.info': storeInfo,
+  // Fleet files, CSV, the demo fleet and backups (restore is command-line only: it replaces the file).
+  'fleet.export': exportFleetHandler,
+  'fleet.import': importFleetHandler,
+  'fleet.exportCsv': exportCsvHandler,
+  'fleet.importCsv': importCsvHandler,
+  'demo.load': loadDemoHandler,
+  'store.backup': backupStoreHandler,
 } satisfies Record<string, AnyHandler>;
 
 export type Handlers = typeof handlers;

@@ -1,6 +1,8 @@
 import { randomBytes } from 'node:crypto';
+import { existsSync } from 'node:fs';
 import { userInfo } from 'node:os';
 import { openStore } from '../store/open-database';
+import { backupFolderFor, rollingBackup } from '../store/backup';
 import type { EventListener, ServiceHost } from './contract';
 import { dispatch } from './dispatch';
 import { recheckIfEngineChanged } from './engine-upgrade';
@@ -11,6 +13,8 @@ export interface HostOptions {
   actor?: string;
   now?: () => Date;
   newId?: (prefix: string) => string;
+  /** A copy of the store at every start, in `backups/` beside it, keeping the newest `keep` (the shells pass { keep: 5 }). */
+  autoBackup?: { keep: number };
 }
 
 export function randomId(prefix: string): string {
@@ -26,14 +30,26 @@ function osUser(): string {
 }
 
 /** Opens the store (migrating it) and returns the one surface both shells and the command line use. */
-export async function openServiceHost(options: HostOptions): Promise<ServiceHost & { ctx: ServiceContext }> {
+export async function openServiceHost(options: HostOptions): Promise<ServiceHost & { ctx: ServiceContext; autoBackupPath: string | null }> {
+  // A store created just now holds nothing worth a copy.
+  const existed = options.dbPath !== ':memory:' && existsSync(options.dbPath);
   const store = await openStore(options.dbPath);
+  let autoBackupPath: string | null = null;
+  if (options.autoBackup && existed) {
+    try {
+      autoBackupPath = await rollingBackup(store.raw, backupFolderFor(store.path), options.autoBackup.keep);
+    } catch (error) {
+      // A full disk must not keep a shop out of its records; the failure is logged.
+      process.stderr.write(`Rigbook: the automatic backup at start was not written: ${error instanceof Error ? error.message : String(error)}\n`);
+    }
+  }
   const listeners = new Set<EventListener>();
   const ctx: ServiceContext = {
     db: store.db,
     actor: options.actor ?? osUser(),
     now: options.now ?? (() => new Date()),
     newId: options.newId ?? randomId,
+    raw: store.raw,
     emit: (event) => {
       for (const listener of listeners) {
         try {
@@ -47,6 +63,7 @@ export async function openServiceHost(options: HostOptions): Promise<ServiceHost
   await recheckIfEngineChanged(ctx);
   return {
     ctx,
+    autoBackupPath,
     dbPath: store.path,
     call: (name, args) => dispatch(ctx, name, args),
     subscribe: (listener) => {

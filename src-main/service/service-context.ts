@@ -1,3 +1,4 @@
+import type BetterSqlite3 from 'better-sqlite3';
 import type { Kysely } from 'kysely';
 import type { Db } from '../store/schema';
 import type { ServiceEvent } from './contract';
@@ -10,4 +11,6 @@ export interface ServiceContext {
   emit: (event: ServiceEvent) => void;
   /** Fresh ids for new records; replaceable so tests and imports stay deterministic. */
   newId: (prefix: string) => string;
+  /** The SQLite handle under `db`, for the online backup API only; absent where the store is not a SQLite file. */
+  raw?: BetterSqlite3.Database;
 }

@@ -6,7 +6,9 @@ export function validate<S extends v.GenericSchema>(schema: S, input: unknown): 
   const result = v.safeParse(schema, input, { abortPipeEarly: true });
   if (result.success) return result.output;
   const issue = result.issues[0];
-  const field = v.getDotPath(issue) ?? undefined;
-  const message = field ? `${field}: ${issue.message}` : `Input ${issue.message}`;
+  const path = v.getDotPath(issue);
+  // A key that is the empty string has no name to show, so the problem is reported as the input's.
+  const field = path === null || path === '' ? undefined : path;
+  const message = field !== undefined ? `${field}: ${issue.message}` : path === '' ? 'Input has a field with an empty name, which Rigbook does not know' : `Input ${issue.message}`;
   throw new ServiceError('invalid', message, field);
 }

@@ -56,12 +56,30 @@ export async function startShell(extraArgs: string[] = []): Promise<{ shell: She
   return { shell, stop };
 }
 
-export const test = base.extend<{ shell: Shell }>({
+export const test = base.extend<{ shell: Shell; consoleErrors: string[] }>({
   shell: async ({}, use) => {
     const { shell, stop } = await startShell();
     await use(shell);
     await stop();
   },
+  // Every test fails on a console error or an uncaught exception in the page; a CSP violation
+  // (an inline style or script the policy refuses) is reported as a console error too.
+  consoleErrors: [
+    async ({ page, shell }, use) => {
+      void shell;
+      const errors: string[] = [];
+      page.on('console', (message) => {
+        if (message.type() === 'error') errors.push(message.text());
+      });
+      page.on('pageerror', (error) => errors.push(`uncaught: ${error.message}`));
+      await page.addInitScript(() => {
+        document.addEventListener('securitypolicyviolation', (e) => console.error(`CSP violation: ${e.violatedDirective} ${e.blockedURI}`));
+      });
+      await use(errors);
+      expect(errors, 'errors in the page console').toEqual([]);
+    },
+    { auto: true },
+  ],
 });
 
 export { expect };

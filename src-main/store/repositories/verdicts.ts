@@ -30,22 +30,30 @@ export async function getStoredStatuses(db: DbHandle, selector: BuildSelector): 
   return out;
 }
 
-/** The figures the builds list shows without opening the detail. */
+/**
+ * The figures the builds list shows without opening the detail. The current shown is the one
+ * of the tightest current check (smallest margin), paired with that check's own limit, so a
+ * per-motor limit is never set against a whole-supply current.
+ */
 export function verdictToRow(verdict: BuildVerdict, evaluatedAt: string): NewVerdictRow {
   let supplyVoltageFullV: number | null = null;
   let theoreticalSpeedKmh: number | null = null;
   let peakCurrentA: number | null = null;
   let peakCurrentLimitA: number | null = null;
+  let tightest = Number.POSITIVE_INFINITY;
   for (const s of verdict.supplies) {
     const f = s.figures;
     if (f.packVoltageFullV !== null && (supplyVoltageFullV === null || f.packVoltageFullV > supplyVoltageFullV)) supplyVoltageFullV = f.packVoltageFullV;
     if (f.theoreticalSpeedKmh !== null && (theoreticalSpeedKmh === null || f.theoreticalSpeedKmh > theoreticalSpeedKmh)) theoreticalSpeedKmh = f.theoreticalSpeedKmh;
-    if (f.peakCurrentA !== null && (peakCurrentA === null || f.peakCurrentA > peakCurrentA)) peakCurrentA = f.peakCurrentA;
     for (const finding of s.findings) {
-      if (finding.unit === 'A' && finding.limit !== null && (peakCurrentLimitA === null || finding.limit < peakCurrentLimitA)) {
+      if (finding.unit !== 'A' || finding.margin === null || finding.value === null || finding.limit === null) continue;
+      if (finding.margin < tightest) {
+        tightest = finding.margin;
+        peakCurrentA = finding.value;
         peakCurrentLimitA = finding.limit;
       }
     }
+    if (peakCurrentA === null && f.peakCurrentA !== null) peakCurrentA = f.peakCurrentA;
   }
   return {
     buildId: verdict.buildId,

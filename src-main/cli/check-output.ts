@@ -1,0 +1,76 @@
+import type { BuildVerdict, Finding, Status, SupplyVerdict } from '../core/domain';
+import { STATUSES } from '../core/domain';
+import type { FleetRecords } from '../service/fleet/fleet-format';
+import { formatNumber, formatPercent } from './format-number';
+
+/** The finding fields the check output carries, in this order. */
+const FINDING_FIELDS = ['rule', 'status', 'value', 'limit', 'unit', 'margin', 'message'] as const;
+
+export interface CheckJson {
+  builds: { id: string; status: Status; supplies: { batteryIds: string[]; status: Status; figures: SupplyVerdict['figures']; findings: Pick<Finding, (typeof FINDING_FIELDS)[number]>[] }[] }[];
+}
+
+/** Exactly the documented shape: `{ builds: [{ id, status, supplies: [{ batteryIds, status, figures, findings }] }] }`. */
+export function checkJson(verdicts: readonly BuildVerdict[]): CheckJson {
+  return {
+    builds: verdicts.map((v) => ({
+      id: v.buildId,
+      status: v.status,
+      supplies: v.supplies.map((s) => ({
+        batteryIds: [...s.batteryIds],
+        status: s.status,
+        figures: s.figures,
+        findings: s.findings.map((f) => ({ rule: f.rule, status: f.status, value: f.value, limit: f.limit, unit: f.unit, margin: f.margin, message: f.message })),
+      })),
+    })),
+  };
+}
+
+function pad(text: string, width: number): string {
+  return text.length >= width ? `${text} ` : text + ' '.repeat(width - text.length);
+}
+
+const WORD: Readonly<Record<Status, string>> = { over: 'OVER', tight: 'TIGHT', incomplete: 'INCOMPLETE', clear: 'clear' };
+
+function figureLine(s: SupplyVerdict): string {
+  const f = s.figures;
+  const parts = [
+    `pack ${formatNumber(f.packVoltageNominalV)} V nominal / ${formatNumber(f.packVoltageFullV)} V full`,
+    `Kt ${formatNumber(f.torqueConstantNmPerA)} N·m/A`,
+    `no-load ${formatNumber(f.noLoadRpm)} rpm`,
+  ];
+  if (f.finalDriveRatio !== null) parts.push(`final drive ${formatNumber(f.finalDriveRatio)}`);
+  if (f.theoreticalSpeedKmh !== null) parts.push(`${formatNumber(f.theoreticalSpeedKmh)} km/h theoretical`);
+  parts.push(`peak ${formatNumber(f.peakCurrentA)} A`, `continuous ${formatNumber(f.continuousCurrentA)} A`);
+  if (f.currentSource) parts.push(`(${f.currentSource === 'measured' ? 'measured' : 'model'})`);
+  return parts.join(' · ');
+}
+
+/** A readable report: per build, per supply, the key figures and a table of the findings, with the full message of each that needs attention. */
+export function checkText(fleet: FleetRecords, verdicts: readonly BuildVerdict[]): string {
+  const names = new Map(fleet.builds.map((b) => [b.id, b.name]));
+  const packNames = new Map(fleet.batteries.map((b) => [b.id, b.name]));
+  const supplyArrangement = new Map(fleet.builds.flatMap((b) => b.supplies.map((s) => [`${b.id}/${s.id}`, s.arrangement] as const)));
+  const lines: string[] = [];
+  for (const v of verdicts) {
+    lines.push(`${WORD[v.status]}  ${names.get(v.buildId) ?? v.buildId}  [${v.buildId}]`);
+    v.supplies.forEach((s, i) => {
+      const packs = s.batteryIds.map((id) => packNames.get(id) ?? id).join(supplyArrangement.get(`${v.buildId}/${s.supplyId}`) === 'parallel' ? ' ∥ ' : ' + ');
+      lines.push(`  supply ${i + 1} of ${v.supplies.length}: ${packs || '(no packs)'}  →  ${WORD[s.status]}`);
+      lines.push(`    ${figureLine(s)}`);
+      lines.push(`    ${pad('status', 12)}${pad('rule', 24)}${pad('value', 14)}${pad('limit', 14)}margin`);
+      for (const f of s.findings) {
+        const value = f.value === null ? '–' : `${formatNumber(f.value)} ${f.unit}`;
+        const limit = f.limit === null ? '–' : `${formatNumber(f.limit)} ${f.unit}`;
+        lines.push(`    ${pad(WORD[f.status], 12)}${pad(f.rule, 24)}${pad(value, 14)}${pad(limit, 14)}${formatPercent(f.margin)}`);
+      }
+      for (const f of s.findings) if (f.status !== 'clear') lines.push(`    ${WORD[f.status]} ${f.rule}: ${f.message}`);
+    });
+    lines.push('');
+  }
+  const counts = new Map<Status, number>(STATUSES.map((s) => [s, 0]));
+  for (const v of verdicts) counts.set(v.status, (counts.get(v.status) ?? 0) + 1);
+  lines.push(`${verdicts.length} build${verdicts.length === 1 ? '' : 's'} checked: ${STATUSES.map((s) => `${counts.get(s)} ${s}`).join(', ')}.`);
+  if ((counts.get('over') ?? 0) > 0) lines.push("Over means a part is used past its rating: follow the part maker's ratings before running it.");
+  return `${lines.join('\n')}\n`;
+}

@@ -1,0 +1,46 @@
+import { evaluateFleet } from '../../service/fleet/evaluate-fleet';
+import { problemLine } from '../../service/fleet/fleet-problems';
+import { inspectFleet } from '../../service/fleet/inspect-fleet';
+import { readJsonText } from '../../service/fleet/read-fleet-text';
+import { checkJson, checkText } from '../check-output';
+import { flagValue, type Command } from '../command';
+import { EXIT } from '../exit-codes';
+import { readInputFile } from '../read-input-file';
+
+export const checkCommand: Command = {
+  name: 'check',
+  summary: 'check every build in a fleet file against its parts’ ratings (no store needed)',
+  help: `Usage: rigbook check FILE [--json]
+
+Reads a rigbook-fleet file, checks that it is valid (the same checks as an import), and
+evaluates every build and supply with nothing but the file: no store is opened or changed.
+Archived builds are left out. The default tight threshold (15 %) applies unless a build or
+its class sets one.
+
+  --json   print { "builds": [ { "id", "status", "supplies": [ { "batteryIds",
+           "status", "figures", "findings" } ] } ] } instead of the table
+
+Exits 0 when nothing is over, 1 when something is over, 2 when the file cannot be read,
+3 when it is not a valid rigbook-fleet file (every problem is listed with its place).`,
+  options: {},
+  positionals: { min: 1, max: 1 },
+  async run({ positionals, values, io }) {
+    const file = positionals[0]!;
+    const { text } = readInputFile(io, file);
+    const read = readJsonText(text);
+    if (!read.ok) {
+      io.err(`Cannot read ${file}: ${read.reason}\n`);
+      return EXIT.unreadable;
+    }
+    const inspection = inspectFleet(read.value);
+    if (!inspection.ok) {
+      io.err(`${file} is not a valid rigbook-fleet file (${inspection.problems.length} problem${inspection.problems.length === 1 ? '' : 's'}):\n`);
+      for (const p of inspection.problems) io.err(`  ${problemLine(p)}\n`);
+      return EXIT.invalid;
+    }
+    const verdicts = evaluateFleet(inspection.fleet);
+    if (flagValue(values, 'json')) io.out(`${JSON.stringify(checkJson(verdicts), null, 2)}\n`);
+    else io.out(checkText(inspection.fleet, verdicts));
+    return verdicts.some((v) => v.status === 'over') ? EXIT.over : EXIT.ok;
+  },
+};

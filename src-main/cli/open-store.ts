@@ -1,0 +1,59 @@
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import type { ApiError } from '../service/contract';
+import { openServiceHost } from '../service/open-service-host';
+import { resolveDbPath } from '../store/data-location';
+import { CliFailure, type CliIo } from './cli-io';
+import { EXIT } from './exit-codes';
+import { progressPrinter } from './progress-line';
+
+export type Host = Awaited<ReturnType<typeof openServiceHost>>;
+
+/** `--db PATH`, then RIGBOOK_DB, then the shared per-user data folder (as the app itself). */
+export function storePath(io: CliIo, explicit: string | undefined): string {
+  const chosen = resolveDbPath(explicit, io.env);
+  return resolve(io.cwd, chosen);
+}
+
+export interface StoreOptions {
+  /** Refuse rather than create an empty store (backup of a store that is not there). */
+  mustExist?: boolean;
+  /** Take the rolling start-up copy first (commands that write). */
+  autoBackup?: boolean;
+}
+
+/** How many rolling copies the command line keeps, the same as the app's shells. */
+export const AUTO_BACKUPS_KEPT = 5;
+
+/** Opens the store through the same service host the app uses, prints progress events, and always closes it. */
+export async function withStore<T>(io: CliIo, dbPath: string, options: StoreOptions, work: (host: Host, existed: boolean) => Promise<T>): Promise<T> {
+  const existed = existsSync(dbPath);
+  if (options.mustExist && !existed) throw new CliFailure(EXIT.store, `There is no store at ${dbPath} (give another with --db PATH or RIGBOOK_DB).`);
+  let host: Host;
+  try {
+    host = await openServiceHost({ dbPath, ...(options.autoBackup ? { autoBackup: { keep: AUTO_BACKUPS_KEPT } } : {}) });
+  } catch (error) {
+    throw new CliFailure(EXIT.store, `The store at ${dbPath} could not be opened: ${error instanceof Error ? error.message : String(error)}`);
+  }
+  const progress = progressPrinter(io);
+  const stop = host.subscribe(progress.onEvent);
+  try {
+    return await work(host, existed);
+  } finally {
+    progress.finish();
+    stop();
+    await host.close();
+  }
+}
+
+/** Exit code for an error the service returned. */
+export function exitFor(error: ApiError): number {
+  return error.kind === 'invalid' || error.kind === 'not-found' ? EXIT.invalid : EXIT.store;
+}
+
+/** Calls a handler and turns a refusal into a CliFailure carrying the service's own message. */
+export async function callOrFail(host: Host, name: string, args: unknown): Promise<unknown> {
+  const result = await host.call(name, args);
+  if (!result.ok) throw new CliFailure(exitFor(result.error), result.error.message);
+  return result.value;
+}

@@ -1,0 +1,46 @@
+// The rigbook-fleet interchange file, version 1: the domain records as they are, grouped by
+// kind, so a file can be read by a person, written by a script and checked without a store.
+
+import type { Battery, Build, ClassRule, Controller, Motor, Propeller, Vehicle } from '../../core/domain';
+
+export const FLEET_FORMAT = 'rigbook-fleet';
+export const FLEET_VERSION = 1;
+
+/** Part kinds in the order a file lists them (and the order they are written: builds refer to them). */
+export const FLEET_PART_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classRules'] as const;
+export type FleetPartKind = (typeof FLEET_PART_KINDS)[number];
+export const FLEET_KINDS = [...FLEET_PART_KINDS, 'builds'] as const;
+export type FleetKind = (typeof FLEET_KINDS)[number];
+
+export interface FleetRecords {
+  batteries: Battery[];
+  motors: Motor[];
+  controllers: Controller[];
+  propellers: Propeller[];
+  vehicles: Vehicle[];
+  classRules: ClassRule[];
+  builds: Build[];
+}
+
+export type FleetRecord<K extends FleetKind> = FleetRecords[K][number];
+
+/** A whole file. `classRules` is optional on reading; an export always writes it. */
+export interface FleetFile extends FleetRecords {
+  format: typeof FLEET_FORMAT;
+  version: typeof FLEET_VERSION;
+}
+
+export function emptyFleet(): FleetFile {
+  return { format: FLEET_FORMAT, version: FLEET_VERSION, batteries: [], motors: [], controllers: [], propellers: [], vehicles: [], classRules: [], builds: [] };
+}
+
+/** How problems and counts name each kind, in the trade's words. */
+export const KIND_WORDS: Readonly<Record<FleetKind, { one: string; many: string }>> = {
+  batteries: { one: 'pack', many: 'packs' },
+  motors: { one: 'motor', many: 'motors' },
+  controllers: { one: 'speed controller', many: 'speed controllers' },
+  propellers: { one: 'propeller', many: 'propellers' },
+  vehicles: { one: 'vehicle', many: 'vehicles' },
+  classRules: { one: 'class rule', many: 'class rules' },
+  builds: { one: 'build', many: 'builds' },
+};

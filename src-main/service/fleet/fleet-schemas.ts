@@ -1,0 +1,49 @@
+// Record schemas of the rigbook-fleet file, built from the service's own create schemas so a
+// file can never hold what the UI would refuse. Files differ in three ways only: ids are
+// required, records may carry their `version` and `archivedAt`, and a supply's id may be left
+// out (it is then derived from the build's id, so re-reading a file gives the same ids).
+
+import * as v from 'valibot';
+import { buildCreateSchema } from '../schemas/build-schemas';
+import { count, id, nullable, record } from '../schemas/field-builders';
+import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from '../schemas/part-schemas';
+import type { FleetKind } from './fleet-format';
+
+const MAX_VERSION = 1_000_000_000;
+
+const bookkeeping = {
+  /** Kept for a record new to the store; an update of a stored record bumps the stored version instead. */
+  version: v.optional(count(1, MAX_VERSION), 1),
+  archivedAt: v.optional(nullable(v.pipe(v.string('must be text'), v.isoTimestamp('must be an ISO time such as 2026-12-01T08:00:00.000Z'))), null),
+};
+
+function fileRecord<const E extends v.ObjectEntries & { id: unknown }>(entries: E) {
+  const { id: _optionalId, ...rest } = entries;
+  return record({ id: id(), ...(rest as Omit<E, 'id'>), ...bookkeeping });
+}
+
+export const fleetRecordSchemas = {
+  batteries: fileRecord(batterySchemas.create.entries),
+  motors: fileRecord(motorSchemas.create.entries),
+  controllers: fileRecord(controllerSchemas.create.entries),
+  propellers: fileRecord(propellerSchemas.create.entries),
+  vehicles: fileRecord(vehicleSchemas.create.entries),
+  classRules: fileRecord(classRuleSchemas.create.entries),
+  builds: fileRecord(buildCreateSchema.entries),
+} as const;
+
+export type FleetRecordOutput<K extends FleetKind> = v.InferOutput<(typeof fleetRecordSchemas)[K]>;
+
+/** Field order of each kind in files and CSV headers: id first, then the fields as the forms list them, then bookkeeping. */
+export const FIELD_ORDER: Readonly<Record<FleetKind, readonly string[]>> = {
+  batteries: Object.keys(fleetRecordSchemas.batteries.entries),
+  motors: Object.keys(fleetRecordSchemas.motors.entries),
+  controllers: Object.keys(fleetRecordSchemas.controllers.entries),
+  propellers: Object.keys(fleetRecordSchemas.propellers.entries),
+  vehicles: Object.keys(fleetRecordSchemas.vehicles.entries),
+  classRules: Object.keys(fleetRecordSchemas.classRules.entries),
+  builds: Object.keys(fleetRecordSchemas.builds.entries),
+};
+
+export const GEARING_ORDER: readonly string[] = ['pinionTeeth', 'spurTeeth', 'internalRatio', 'tireDiameterMm', 'drivetrainEfficiency'];
+export const SUPPLY_ORDER: readonly string[] = ['id', 'arrangement', 'batteryIds'];

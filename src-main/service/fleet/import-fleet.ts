@@ -1,0 +1,346 @@
+// Import of a whole rigbook-fleet value: every problem first (shape, fields, duplicate ids,
+// references to the file and the store), then all of it or nothing in one transaction
+// together with the re-check of the builds it touched and one history entry.
+//
+// Policy for records that already exist:
+//   merge    (default) a record whose id is stored is overwritten with the file's fields and
+//            its stored version bumped; an identical one is left alone; new ones keep the
+//            file's version (1 when left out). Nothing the file leaves out is removed.
+//   replace  every part and build is removed first (history and settings stay), then the
+//            file is written with its versions as given: a file exported and imported again
+//            gives back the same records.
+
+import type { BuildVerdict, Status } from '../../core/domain';
+import { STATUSES } from '../../core/domain';
+import type { DbHandle } from '../../store/db-handle';
+import type { BuildSelector } from '../../store/build-selector';
+import {
+  buildIdsUsingAny,
+  clearFleetTables,
+  deleteSuppliesOf,
+  insertBuildRows,
+  insertPartRows,
+  insertSupplyRows,
+  readFleetIds,
+  type ClearedCounts,
+  type PartsInUse,
+} from '../../store/fleet-rows';
+import { getBuilds, updateBuildAtVersion } from '../../store/repositories/builds';
+import type { VerdictChange } from '../../store/repositories/history';
+import { getParts, updatePartAtVersion } from '../../store/repositories/parts';
+import type { PartRecords } from '../../store/repositories/part-records';
+import { ServiceError } from '../contract';
+import { runWrite } from '../run-write';
+import type { ServiceContext } from '../service-context';
+import { sameFields } from './canonical-record';
+import { FLEET_KINDS, FLEET_PART_KINDS, KIND_WORDS, type FleetKind, type FleetPartKind, type FleetRecords } from './fleet-format';
+import { sortProblems, type FleetProblem } from './fleet-problems';
+import { NO_STORED_IDS, referenceProblems } from './fleet-references';
+import { progressCounter, type OnProgress } from './progress';
+import { validateFleet } from './validate-fleet';
+import { readJsonText } from './read-fleet-text';
+
+export const IMPORT_MODES = ['merge', 'replace'] as const;
+export type ImportMode = (typeof IMPORT_MODES)[number];
+
+export interface ImportOptions {
+  mode: ImportMode;
+  /** Runs everything, reports it, and rolls it back. */
+  dryRun?: boolean;
+  /** Said in the history entry. */
+  reason?: string;
+  /** What was imported, for the history entry: `file`, `csv`, `demo`. */
+  source?: string;
+  /** Refuse (as a conflict, nothing written) when the store already holds any part or build. */
+  requireEmptyStore?: boolean;
+  onProgress?: OnProgress;
+}
+
+export interface KindCounts {
+  added: number;
+  updated: number;
+  unchanged: number;
+}
+
+/** The most build-level verdict changes a report lists; the count says how many there were. */
+export const MAX_LISTED_CHANGES = 500;
+
+export interface ImportReport {
+  /** False when the file was refused: `problems` says why, and nothing was written. */
+  ok: boolean;
+  /** Refused because the text is not JSON (or CSV) at all, rather than for what it holds. */
+  unreadable: boolean;
+  dryRun: boolean;
+  mode: ImportMode;
+  source: string;
+  problems: FleetProblem[];
+  counts: Record<FleetKind, KindCounts>;
+  /** What a replace removed first; null for a merge. */
+  removed: ClearedCounts | null;
+  rechecked: number;
+  /** How many re-checked builds ended at each verdict. */
+  statuses: Record<Status, number>;
+  /** Builds whose overall verdict changed (the first MAX_LISTED_CHANGES). */
+  verdictChanges: VerdictChange[];
+  verdictChangeCount: number;
+  historyId: number | null;
+}
+
+function zeroCounts(): Record<FleetKind, KindCounts> {
+  const out = {} as Record<FleetKind, KindCounts>;
+  for (const kind of FLEET_KINDS) out[kind] = { added: 0, updated: 0, unchanged: 0 };
+  return out;
+}
+
+function zeroStatuses(): Record<Status, number> {
+  const out = {} as Record<Status, number>;
+  for (const s of STATUSES) out[s] = 0;
+  return out;
+}
+
+export function refusedReport(options: ImportOptions, problems: FleetProblem[], unreadable = false): ImportReport {
+  return {
+    ok: false,
+    unreadable,
+    dryRun: options.dryRun ?? false,
+    mode: options.mode,
+    source: options.source ?? 'file',
+    problems,
+    counts: zeroCounts(),
+    removed: null,
+    rechecked: 0,
+    statuses: zeroStatuses(),
+    verdictChanges: [],
+    verdictChangeCount: 0,
+    historyId: null,
+  };
+}
+
+/** Thrown inside the transaction to leave it with nothing written. */
+class ImportRefused extends Error {
+  constructor(readonly problems: FleetProblem[]) {
+    super('import refused');
+  }
+}
+
+/** "added 3 packs, 1 build; updated 1 motor; 4 unchanged" */
+export function describeCounts(counts: Record<FleetKind, KindCounts>): string {
+  const list = (field: 'added' | 'updated') =>
+    FLEET_KINDS.filter((k) => counts[k][field] > 0)
+      .map((k) => `${counts[k][field]} ${counts[k][field] === 1 ? KIND_WORDS[k].one : KIND_WORDS[k].many}`)
+      .join(', ');
+  const unchanged = FLEET_KINDS.reduce((n, k) => n + counts[k].unchanged, 0);
+  const parts: string[] = [];
+  const added = list('added');
+  const updated = list('updated');
+  if (added) parts.push(`added ${added}`);
+  if (updated) parts.push(`updated ${updated}`);
+  if (unchanged > 0) parts.push(`${unchanged} unchanged`);
+  return parts.length > 0 ? parts.join('; ') : 'nothing in the file';
+}
+
+/** Past this many builds a merge re-checks every build: one query instead of an id list too long for one statement. */
+const RECHECK_ALL_ABOVE = 20_000;
+
+interface Written {
+  counts: Record<FleetKind, KindCounts>;
+  removed: ClearedCounts | null;
+  recheck: readonly string[] | BuildSelector;
+  changedIds: Partial<Record<FleetKind, string[]>>;
+}
+
+async function writeParts<K extends FleetPartKind>(
+  trx: DbHandle,
+  kind: K,
+  records: readonly PartRecords[K][],
+  merging: boolean,
+  at: string,
+  written: Written,
+  tick: () => void,
+): Promise<{ changed: PartRecords[K][]; before: Map<string, PartRecords[K]> }> {
+  const before = new Map<string, PartRecords[K]>();
+  if (merging && records.length > 0) for (const r of await getParts(trx, kind, records.map((x) => x.id))) before.set(r.id, r);
+  const added: PartRecords[K][] = [];
+  const changed: PartRecords[K][] = [];
+  for (const record of records) {
+    const stored = before.get(record.id);
+    if (!stored) added.push(record);
+    else if (!sameFields(kind, record, stored)) changed.push(record);
+    else written.counts[kind].unchanged++;
+  }
+  await insertPartRows(trx, kind, added, at);
+  for (const record of changed) {
+    const stored = before.get(record.id)!;
+    const { id, version: _fileVersion, ...fields } = record as PartRecords[K] & { version: number };
+    const n = await updatePartAtVersion(trx, kind, id, stored.version, fields as never, at);
+    if (n !== 1) throw new Error(`import: ${kind} ${id} was not updated`);
+    tick();
+  }
+  written.counts[kind].added = added.length;
+  written.counts[kind].updated = changed.length;
+  written.changedIds[kind] = [...added, ...changed].map((r) => r.id);
+  for (let i = 0; i < added.length; i++) tick();
+  return { changed, before };
+}
+
+async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, at: string, onProgress?: OnProgress): Promise<Written> {
+  const merging = mode === 'merge';
+  const written: Written = { counts: zeroCounts(), removed: null, recheck: [], changedIds: {} };
+  if (!merging) written.removed = await clearFleetTables(trx);
+  const total = FLEET_KINDS.reduce((n, k) => n + fleet[k].length, 0);
+  const progress = progressCounter(onProgress, 'write', total);
+  let done = 0;
+  const tick = () => progress(++done);
+  progress(0);
+
+  const usedBy: { [K in keyof PartsInUse]: string[] } = { batteries: [], motors: [], controllers: [], propellers: [], vehicles: [] };
+  const classNames = new Set<string>();
+  for (const kind of FLEET_PART_KINDS) {
+    const { changed, before } = await writeParts(trx, kind, fleet[kind] as PartRecords[typeof kind][], merging, at, written, tick);
+    for (const record of changed) {
+      if (kind === 'classRules') {
+        const rule = record as PartRecords['classRules'];
+        classNames.add(rule.className);
+        classNames.add((before.get(rule.id) as PartRecords['classRules']).className);
+      } else {
+        usedBy[kind].push(record.id);
+      }
+    }
+    for (let i = 0; i < written.counts[kind].unchanged; i++) tick();
+  }
+
+  const storedBuilds = new Map((merging && fleet.builds.length > 0 ? await getBuilds(trx, fleet.builds.map((b) => b.id)) : []).map((b) => [b.id, b]));
+  const addedBuilds = fleet.builds.filter((b) => !storedBuilds.has(b.id));
+  const changedBuilds = fleet.builds.filter((b) => {
+    const stored = storedBuilds.get(b.id);
+    return stored !== undefined && !sameFields('builds', b, stored);
+  });
+  written.counts.builds = { added: addedBuilds.length, updated: changedBuilds.length, unchanged: fleet.builds.length - addedBuilds.length - changedBuilds.length };
+  written.changedIds.builds = [...addedBuilds, ...changedBuilds].map((b) => b.id);
+  // Supplies of every rewritten build go first, so one may move a supply id to another.
+  await deleteSuppliesOf(
+    trx,
+    changedBuilds.map((b) => b.id),
+  );
+  for (const build of changedBuilds) {
+    const { id, version: _fileVersion, supplies: _supplies, ...fields } = build;
+    const n = await updateBuildAtVersion(trx, id, storedBuilds.get(id)!.version, fields, at);
+    if (n !== 1) throw new Error(`import: build ${id} was not updated`);
+    tick();
+  }
+  await insertSupplyRows(trx, changedBuilds);
+  const beforeNew = done;
+  await insertBuildRows(trx, addedBuilds, at, (n) => progress(beforeNew + n));
+  done += addedBuilds.length + written.counts.builds.unchanged;
+  progress(done);
+
+  if (!merging) {
+    written.recheck = { by: 'all' };
+  } else {
+    const ids = new Set(fleet.builds.map((b) => b.id));
+    for (const id of await buildIdsUsingAny(trx, usedBy, [...classNames])) ids.add(id);
+    written.recheck = ids.size > RECHECK_ALL_ABOVE ? { by: 'all' } : [...ids];
+  }
+  return written;
+}
+
+/** Counts of what the store holds, archived records included, as "3 builds, 12 packs". */
+export async function describeStoreContents(db: DbHandle): Promise<string> {
+  const held: string[] = [];
+  for (const kind of FLEET_KINDS) {
+    const row = await db
+      .selectFrom(kind as 'builds')
+      .select((eb) => eb.fn.countAll<number>().as('n'))
+      .executeTakeFirstOrThrow();
+    const n = Number(row.n);
+    if (n > 0) held.push(`${n} ${n === 1 ? KIND_WORDS[kind].one : KIND_WORDS[kind].many}`);
+  }
+  return held.join(', ');
+}
+
+async function refuseUnlessEmpty(db: DbHandle): Promise<void> {
+  const held = await describeStoreContents(db);
+  if (held !== '') {
+    throw new ServiceError(
+      'conflict',
+      `merge: the store already holds records (${held}). The demo fleet is invented; loading it would mix its records with yours. Nothing was loaded. Back up first and load it with merge to add it anyway.`,
+      'merge',
+    );
+  }
+}
+
+function tally(verdicts: readonly BuildVerdict[]): Record<Status, number> {
+  const out = zeroStatuses();
+  for (const v of verdicts) out[v.status]++;
+  return out;
+}
+
+export async function importFleet(ctx: ServiceContext, input: unknown, options: ImportOptions): Promise<ImportReport> {
+  const source = options.source ?? 'file';
+  const validation = validateFleet(input, options.onProgress);
+  if (!validation.envelopeOk) return refusedReport(options, validation.problems);
+  let written: Written | null = null;
+  try {
+    const outcome = await runWrite(
+      ctx,
+      async (trx, at) => {
+        // Checked inside the transaction, so no other writer can change what the references resolve to.
+        const stored = options.mode === 'merge' ? await readFleetIds(trx) : NO_STORED_IDS;
+        if (options.requireEmptyStore) await refuseUnlessEmpty(trx);
+        const problems = [...validation.problems, ...referenceProblems(validation.fleet, validation.fileIds, stored, validation.buildPlaces)];
+        if (problems.length > 0) throw new ImportRefused(sortProblems(problems, FLEET_KINDS));
+        written = await writeFleet(trx, validation.fleet, options.mode, at, options.onProgress);
+        const what = source === 'demo' ? 'the demo fleet' : source === 'csv' ? 'a CSV file' : 'a fleet file';
+        return {
+          result: null,
+          history: {
+            action: 'import',
+            entityKind: 'fleet',
+            entityId: source,
+            summary: `Imported ${what} (${options.mode}): ${describeCounts(written.counts)}${written.removed ? `; removed what the store held first` : ''}`,
+            reason: options.reason ?? '',
+            before: written.removed,
+            after: { mode: options.mode, source, counts: written.counts },
+          },
+          recheck: written.recheck,
+          changed: { kind: 'fleet', ids: [] },
+        };
+      },
+      { preview: options.dryRun ?? false },
+    );
+    const done = written as Written | null;
+    if (!done) throw new Error('import: nothing was written');
+    if (!options.dryRun) {
+      for (const kind of FLEET_KINDS) {
+        const ids = done.changedIds[kind] ?? [];
+        if (ids.length > 0) ctx.emit({ type: 'records-changed', kind, ids });
+      }
+    }
+    const buildChanges = outcome.verdictChanges.filter((c) => c.supplyId === null);
+    return {
+      ok: true,
+      unreadable: false,
+      dryRun: options.dryRun ?? false,
+      mode: options.mode,
+      source,
+      problems: [],
+      counts: done.counts,
+      removed: done.removed,
+      rechecked: outcome.verdicts.length,
+      statuses: tally(outcome.verdicts),
+      verdictChanges: buildChanges.slice(0, MAX_LISTED_CHANGES),
+      verdictChangeCount: buildChanges.length,
+      historyId: options.dryRun ? null : outcome.historyId,
+    };
+  } catch (error) {
+    if (error instanceof ImportRefused) return refusedReport(options, error.problems);
+    throw error;
+  }
+}
+
+/** Import of a file's text: not JSON at all is refused as unreadable, with where reading stopped. */
+export async function importFleetText(ctx: ServiceContext, text: string, options: ImportOptions): Promise<ImportReport> {
+  const read = readJsonText(text);
+  if (!read.ok) return refusedReport(options, [{ place: '', message: read.reason }], true);
+  return importFleet(ctx, read.value, options);
+}

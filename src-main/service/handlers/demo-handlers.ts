@@ -1,0 +1,20 @@
+import * as v from 'valibot';
+import { demoFleet } from '../../../demo-fixtures/demo-fleet';
+import { defineHandler } from '../define-handler';
+import { importFleet } from '../fleet/import-fleet';
+import { flag, record } from '../schemas/field-builders';
+import { progressEvents } from './fleet-handlers';
+
+/**
+ * Loads the invented demo fleet. It refuses a store that already holds records, so invented
+ * builds never mix with a shop's own, unless asked to merge.
+ */
+export const loadDemoHandler = defineHandler(v.optional(record({ merge: v.optional(flag(), false) }), {}), async (ctx, input) =>
+  importFleet(ctx, demoFleet(), {
+    mode: 'merge',
+    source: 'demo',
+    reason: 'demo fleet',
+    requireEmptyStore: !input.merge,
+    onProgress: progressEvents(ctx, 'fleet'),
+  }),
+);

@@ -1,0 +1,215 @@
+// Copies of the store as files: the online backup (consistent while the store is open and
+// being written), the rolling copies taken at start, and the checks a file must pass before
+// it may replace the store.
+
+import Database from 'better-sqlite3';
+import { closeSync, existsSync, mkdirSync, openSync, readdirSync, readSync, renameSync, rmSync, statSync } from 'node:fs';
+import { basename, dirname, join } from 'node:path';
+import { MIGRATIONS } from './migration-provider';
+import { timestampForFile } from './open-database';
+
+/** Tables every Rigbook store has had since its first schema. */
+export const RIGBOOK_TABLES = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'builds', 'supplies', 'supplyPacks', 'history', 'settings'] as const;
+const MIGRATION_TABLE = 'kysely_migration';
+const SQLITE_HEADER = 'SQLite format 3\u0000';
+
+function removeQuietly(path: string): void {
+  for (const p of [path, `${path}-wal`, `${path}-shm`, `${path}-journal`]) rmSync(p, { force: true });
+}
+
+/**
+ * Makes a fresh copy a single self-contained file (a copy of a WAL store is marked WAL too,
+ * and would grow -wal and -shm files beside it whenever it is opened) and checks it.
+ * Returns SQLite's integrity verdict: 'ok' or what is wrong.
+ */
+function settleCopy(path: string): string {
+  const db = new Database(path, { fileMustExist: true });
+  try {
+    db.pragma('journal_mode = DELETE');
+    const rows = db.pragma('integrity_check') as { integrity_check: string }[];
+    return rows.map((r) => r.integrity_check).join('; ');
+  } finally {
+    db.close();
+  }
+}
+
+/**
+ * Writes a consistent copy of the open store to `destination` with SQLite's online backup:
+ * other writes may go on meanwhile. The copy is written beside the destination, checked, and
+ * only then renamed into place, so a failed backup never leaves a half file or spoils an
+ * older backup of the same name.
+ */
+export async function backUpStore(raw: Database.Database, destination: string, onProgress?: (done: number, total: number) => void): Promise<{ path: string; bytes: number }> {
+  mkdirSync(dirname(destination), { recursive: true });
+  const partial = join(dirname(destination), `.${basename(destination)}.partial-${process.pid}`);
+  removeQuietly(partial);
+  try {
+    await raw.backup(partial, {
+      progress: ({ totalPages, remainingPages }) => {
+        onProgress?.(totalPages - remainingPages, totalPages);
+        // Pages per step (1 MB at SQLite's default page size): quick, yet other writes get in between.
+        return 256;
+      },
+    });
+    const integrity = settleCopy(partial);
+    if (integrity !== 'ok') throw new Error(`the copy failed its integrity check (${integrity})`);
+    renameSync(partial, destination);
+  } catch (error) {
+    removeQuietly(partial);
+    throw error;
+  }
+  return { path: destination, bytes: statSync(destination).size };
+}
+
+/** `unreadable`: missing or not a SQLite file at all; otherwise a SQLite file refused for what it holds. */
+export type StoreFileCheck = { ok: true; migrations: string[] } | { ok: false; reason: string; unreadable: boolean };
+
+function hasSqliteHeader(path: string): boolean {
+  const fd = openSync(path, 'r');
+  try {
+    const buf = Buffer.alloc(16);
+    const n = readSync(fd, buf, 0, 16, 0);
+    return n === 16 && buf.toString('latin1') === SQLITE_HEADER;
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/**
+ * Whether a file may become the store: a SQLite file that passes integrity_check, holds
+ * Rigbook's tables, and was migrated only by migrations this build knows (a file from a newer
+ * Rigbook is refused rather than opened with a schema this one does not understand).
+ */
+export function checkStoreFile(path: string): StoreFileCheck {
+  if (!existsSync(path)) return { ok: false, reason: `there is no file at ${path}`, unreadable: true };
+  if (!statSync(path).isFile()) return { ok: false, reason: `${path} is not a file`, unreadable: true };
+  if (!hasSqliteHeader(path)) return { ok: false, reason: 'it is not a SQLite file (a Rigbook backup is a SQLite file, usually ending in .sqlite)', unreadable: true };
+  let db: Database.Database | undefined;
+  try {
+    db = new Database(path, { readonly: true, fileMustExist: true });
+    const integrity = (db.pragma('integrity_check') as { integrity_check: string }[]).map((r) => r.integrity_check);
+    if (integrity.length !== 1 || integrity[0] !== 'ok') {
+      return { ok: false, reason: `it is damaged: SQLite's integrity check says ${integrity.slice(0, 3).join('; ')}${integrity.length > 3 ? ' …' : ''}`, unreadable: false };
+    }
+    const tables = new Set((db.prepare("select name from sqlite_master where type = 'table'").all() as { name: string }[]).map((r) => r.name));
+    const lacking = RIGBOOK_TABLES.filter((t) => !tables.has(t));
+    if (!tables.has(MIGRATION_TABLE) || lacking.length > 0) {
+      return { ok: false, reason: `it is a SQLite file but not a Rigbook store (missing: ${[...(tables.has(MIGRATION_TABLE) ? [] : ['the schema version table']), ...lacking].join(', ')})`, unreadable: false };
+    }
+    const migrations = (db.prepare(`select name from ${MIGRATION_TABLE} order by name`).all() as { name: string }[]).map((r) => r.name);
+    const unknown = migrations.filter((m) => !(m in MIGRATIONS));
+    if (unknown.length > 0) {
+      return { ok: false, reason: `it was written by a newer Rigbook (schema ${unknown.at(-1)}); this one knows up to ${Object.keys(MIGRATIONS).sort().at(-1)}. Update Rigbook to restore it.`, unreadable: false };
+    }
+    if (migrations.length === 0) return { ok: false, reason: 'it has no schema version recorded; it is not a Rigbook store', unreadable: false };
+    return { ok: true, migrations };
+  } catch (error) {
+    const code = (error as { code?: string }).code;
+    if (code === 'SQLITE_NOTADB' || code === 'SQLITE_CORRUPT') return { ok: false, reason: `it is damaged or not a database (${(error as Error).message})`, unreadable: false };
+    return { ok: false, reason: `it cannot be read: ${(error as Error).message}`, unreadable: false };
+  } finally {
+    db?.close();
+  }
+}
+
+/**
+ * True when another program (a Rigbook window, another command) has the store open: an
+ * exclusive lock cannot be had. Replacing a file under an open store would lose its writes.
+ */
+export function storeInUse(path: string): boolean {
+  if (!existsSync(path)) return false;
+  let db: Database.Database | undefined;
+  try {
+    db = new Database(path, { fileMustExist: true, timeout: 0 });
+    db.pragma('locking_mode = EXCLUSIVE');
+    db.exec('BEGIN EXCLUSIVE');
+    db.exec('COMMIT');
+    // Fold any write-ahead log into the file, so the file kept aside is complete on its own.
+    db.pragma('wal_checkpoint(TRUNCATE)');
+    return false;
+  } catch (error) {
+    const code = (error as { code?: string }).code;
+    if (code === 'SQLITE_BUSY' || code === 'SQLITE_LOCKED') return true;
+    // A damaged store is exactly what a restore is for; it is not "in use".
+    return false;
+  } finally {
+    db?.close();
+  }
+}
+
+export interface RestoreResult {
+  /** Where the replaced store was kept; null when there was none. */
+  keptAs: string | null;
+  migrations: string[];
+}
+
+/**
+ * Replaces the store file with a checked copy of `candidate`. The store must be closed. The
+ * replaced file is kept beside it, renamed with the time, and the candidate itself is left
+ * untouched (a backup stays a backup).
+ */
+export async function restoreStore(candidate: string, target: string, now = new Date()): Promise<RestoreResult> {
+  const check = checkStoreFile(candidate);
+  if (!check.ok) throw new RestoreRefused(`The file was not restored: ${check.reason}. Nothing was replaced.`, check.unreadable ? 'unreadable' : 'invalid');
+  if (storeInUse(target)) throw new RestoreRefused('The store is open in Rigbook or another command. Close it and run the restore again. Nothing was replaced.', 'in-use');
+  mkdirSync(dirname(target), { recursive: true });
+  const staged = join(dirname(target), `.${basename(target)}.restoring-${process.pid}`);
+  removeQuietly(staged);
+  const source = new Database(candidate, { readonly: true, fileMustExist: true });
+  try {
+    await source.backup(staged);
+  } catch (error) {
+    removeQuietly(staged);
+    throw error;
+  } finally {
+    source.close();
+  }
+  const stagedIntegrity = settleCopy(staged);
+  if (stagedIntegrity !== 'ok') {
+    removeQuietly(staged);
+    throw new RestoreRefused(`The copy of the file failed its integrity check (${stagedIntegrity}). Nothing was replaced.`);
+  }
+  let keptAs: string | null = null;
+  if (existsSync(target)) {
+    const stem = basename(target).replace(/\.sqlite$/i, '');
+    keptAs = join(dirname(target), `${stem}.replaced-${timestampForFile(now)}.sqlite`);
+    renameSync(target, keptAs);
+    for (const suffix of ['-wal', '-shm']) if (existsSync(target + suffix)) renameSync(target + suffix, keptAs + suffix);
+  }
+  try {
+    renameSync(staged, target);
+  } catch (error) {
+    if (keptAs) renameSync(keptAs, target);
+    removeQuietly(staged);
+    throw error;
+  }
+  return { keptAs, migrations: check.migrations };
+}
+
+export class RestoreRefused extends Error {
+  constructor(
+    message: string,
+    readonly reason: 'unreadable' | 'invalid' | 'in-use' = 'invalid',
+  ) {
+    super(message);
+    this.name = 'RestoreRefused';
+  }
+}
+
+export const AUTO_BACKUP_PREFIX = 'auto-';
+
+/** The folder rolling and manual backups go to: `backups/` beside the store. */
+export function backupFolderFor(dbPath: string): string {
+  return join(dirname(dbPath), 'backups');
+}
+
+/** A copy at start, keeping the newest `keep` of them; older automatic copies are removed, nothing else is. */
+export async function rollingBackup(raw: Database.Database, folder: string, keep: number, now = new Date()): Promise<string> {
+  const path = join(folder, `${AUTO_BACKUP_PREFIX}${timestampForFile(now)}.sqlite`);
+  await backUpStore(raw, path);
+  const autos = readdirSync(folder)
+    .filter((name) => name.startsWith(AUTO_BACKUP_PREFIX) && name.endsWith('.sqlite'))
+    .sort();
+  for (const old of autos.slice(0, Math.max(0, autos.length - Math.max(1, keep)))) rmSync(join(folder, old), { force: true });
+  return path;
+}

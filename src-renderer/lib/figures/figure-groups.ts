@@ -1,0 +1,101 @@
+import type { Figures, VehicleKind } from '../../../src-main/core/domain';
+import type { DisplayQuantity, UnitSystem } from '../../../src-main/core/units';
+import { MISSING, fixed } from '../format/number';
+import { displayUnit, toDisplay } from '../../../src-main/core/units';
+
+export interface FigureDef {
+  key: string;
+  label: string;
+  /** A unit that reads the same in both systems (V, A, W, rpm). */
+  unit?: string;
+  /** A quantity shown in the user's system (km/h or mph, mm or in). */
+  quantity?: DisplayQuantity;
+  decimals: number;
+  /** Stored value × scale is shown (ohm → milliohm). */
+  scale?: number;
+  hint?: string;
+}
+
+export interface FigureGroup {
+  id: 'supply' | 'motor' | 'drivetrain' | 'propeller';
+  title: string;
+  figures: readonly FigureDef[];
+}
+
+export const SUPPLY_FIGURES: FigureGroup = {
+  id: 'supply',
+  title: 'Supply',
+  figures: [
+    { key: 'packVoltageNominalV', label: 'Nominal voltage', unit: 'V', decimals: 1 },
+    { key: 'packVoltageFullV', label: 'Full-charge voltage', unit: 'V', decimals: 2 },
+    { key: 'packVoltageCutoffV', label: 'Cut-off voltage', unit: 'V', decimals: 1 },
+    { key: 'capacityMah', label: 'Capacity', unit: 'mAh', decimals: 0 },
+    { key: 'packResistanceOhm', label: 'Pack resistance', unit: 'mΩ', scale: 1000, decimals: 1 },
+    { key: 'loadedVoltageV', label: 'Voltage at peak current', unit: 'V', decimals: 2 },
+    { key: 'peakCurrentA', label: 'Peak current', unit: 'A', decimals: 1 },
+    { key: 'continuousCurrentA', label: 'Continuous current', unit: 'A', decimals: 1 },
+    { key: 'peakPowerW', label: 'Peak power', unit: 'W', decimals: 0 },
+  ],
+};
+
+export const MOTOR_FIGURES: FigureGroup = {
+  id: 'motor',
+  title: 'Motor',
+  figures: [
+    { key: 'noLoadRpm', label: 'No-load speed, nominal', unit: 'rpm', decimals: 0, hint: 'Kv × nominal supply voltage' },
+    { key: 'noLoadRpmFull', label: 'No-load speed, full charge', unit: 'rpm', decimals: 0 },
+    { key: 'loadedRpm', label: 'Loaded speed', unit: 'rpm', decimals: 0 },
+    { key: 'torqueConstantNmPerA', label: 'Torque constant Kt', unit: 'N·m/A', decimals: 4, hint: '60 ÷ (2π · Kv)' },
+    { key: 'motorPeakCurrentA', label: 'Peak current per motor', unit: 'A', decimals: 1 },
+    { key: 'motorContinuousCurrentA', label: 'Continuous current per motor', unit: 'A', decimals: 1 },
+    { key: 'motorPeakPowerW', label: 'Peak power per motor', unit: 'W', decimals: 0 },
+  ],
+};
+
+export const DRIVETRAIN_FIGURES: FigureGroup = {
+  id: 'drivetrain',
+  title: 'Drivetrain',
+  figures: [
+    { key: 'finalDriveRatio', label: 'Final drive ratio', unit: ':1', decimals: 2, hint: 'spur ÷ pinion × internal ratio' },
+    { key: 'rolloutMm', label: 'Rollout', quantity: 'lengthMm', decimals: 1, hint: 'distance per motor turn' },
+    { key: 'theoreticalSpeedKmh', label: 'Theoretical speed', quantity: 'speedKmh', decimals: 1, hint: 'at nominal no-load speed, no slip' },
+    { key: 'loadedTopSpeedKmh', label: 'Loaded top speed', quantity: 'speedKmh', decimals: 1, hint: 'where motor torque meets road load' },
+  ],
+};
+
+export const PROPELLER_FIGURES: FigureGroup = {
+  id: 'propeller',
+  title: 'Propeller',
+  figures: [
+    { key: 'thrustN', label: 'Static thrust', quantity: 'forceN', decimals: 1 },
+    { key: 'tipSpeedMps', label: 'Tip speed', quantity: 'speedMps', decimals: 0 },
+  ],
+};
+
+const GROUND: readonly VehicleKind[] = ['car', 'truck'];
+
+/** Supply, motor, then drivetrain for cars and trucks or propeller for the rest. */
+export function figureGroupsFor(kind: VehicleKind | null): FigureGroup[] {
+  const third = kind === null ? null : GROUND.includes(kind) ? DRIVETRAIN_FIGURES : PROPELLER_FIGURES;
+  return third ? [SUPPLY_FIGURES, MOTOR_FIGURES, third] : [SUPPLY_FIGURES, MOTOR_FIGURES, DRIVETRAIN_FIGURES, PROPELLER_FIGURES];
+}
+
+export function figureUnit(def: FigureDef, system: UnitSystem): string {
+  return def.quantity ? displayUnit(def.quantity, system) : (def.unit ?? '');
+}
+
+/** The figure's number alone, in display units; an en dash where the figure is missing. */
+export function figureNumber(def: FigureDef, figures: Figures | null | undefined, system: UnitSystem): string {
+  const raw = figures?.[def.key];
+  if (typeof raw !== 'number' || !Number.isFinite(raw)) return MISSING;
+  const scaled = raw * (def.scale ?? 1);
+  const shown = def.quantity ? toDisplay(scaled, def.quantity, system) : scaled;
+  return fixed(shown, def.decimals);
+}
+
+export function figureText(def: FigureDef, figures: Figures | null | undefined, system: UnitSystem): string {
+  const n = figureNumber(def, figures, system);
+  if (n === MISSING) return n;
+  const unit = figureUnit(def, system);
+  return unit === ':1' ? `${n}:1` : `${n} ${unit}`;
+}

@@ -1,0 +1,17 @@
+// Dates in a fixed, unambiguous form (2025-03-14 09:05): shop records are read across locales.
+
+const pad = (n: number): string => String(n).padStart(2, '0');
+
+export function dateTime(iso: string, zone: 'local' | 'utc' = 'local'): string {
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return iso;
+  const [y, mo, da, h, mi] =
+    zone === 'utc'
+      ? [d.getUTCFullYear(), d.getUTCMonth() + 1, d.getUTCDate(), d.getUTCHours(), d.getUTCMinutes()]
+      : [d.getFullYear(), d.getMonth() + 1, d.getDate(), d.getHours(), d.getMinutes()];
+  return `${y}-${pad(mo)}-${pad(da)} ${pad(h)}:${pad(mi)}`;
+}
+
+export function dateOnly(iso: string, zone: 'local' | 'utc' = 'local'): string {
+  return dateTime(iso, zone).slice(0, 10);
+}

@@ -1,0 +1,43 @@
+// Numbers as the screens show them: a fixed count of decimals per figure, a thin space before
+// units, and an en dash where a figure is missing.
+
+export const MISSING = '–';
+
+// One formatter per decimal count: building an Intl formatter per call costs more than the
+// rest of a list row's update.
+const FORMATTERS = new Map<number, Intl.NumberFormat>();
+
+export function fixed(value: number | null | undefined, decimals: number): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return MISSING;
+  let f = FORMATTERS.get(decimals);
+  if (!f) {
+    f = new Intl.NumberFormat('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals });
+    FORMATTERS.set(decimals, f);
+  }
+  return f.format(value);
+}
+
+/** Three significant figures for small values, whole numbers from 100 up (with thousands separators). */
+export function smart(value: number | null | undefined): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return MISSING;
+  const a = Math.abs(value);
+  if (a >= 100) return fixed(value, 0);
+  if (a >= 10) return fixed(value, 1);
+  if (a >= 1) return fixed(value, 2);
+  if (a === 0) return '0';
+  return String(Number(value.toPrecision(3)));
+}
+
+export function withUnit(text: string, unit: string): string {
+  return text === MISSING || unit === '' ? text : `${text} ${unit}`;
+}
+
+export function percent(ratio: number | null | undefined, decimals = 0): string {
+  if (ratio === null || ratio === undefined || !Number.isFinite(ratio)) return MISSING;
+  return `${fixed(ratio * 100, decimals)} %`;
+}
+
+/** Up to six significant digits without float noise, for a value put back into an input. */
+export function editable(value: number): string {
+  return String(Number(value.toPrecision(6)));
+}

@@ -1,0 +1,98 @@
+// Hash routes: the screen lives in the address, so a reload (or a bookmark) opens it again.
+
+export const PART_SLUGS = ['packs', 'motors', 'controllers', 'propellers'] as const;
+export type PartSlug = (typeof PART_SLUGS)[number];
+
+export const HISTORY_KINDS = ['builds', 'batteries', 'motors', 'controllers', 'propellers', 'vehicles'] as const;
+export type HistoryKind = (typeof HISTORY_KINDS)[number];
+
+export type Route =
+  | { name: 'builds' }
+  | { name: 'build-new' }
+  | { name: 'build'; id: string }
+  | { name: 'build-edit'; id: string }
+  | { name: 'build-swap'; id: string }
+  | { name: 'parts'; slug: PartSlug; id: string | null }
+  | { name: 'vehicles'; id: string | null }
+  | { name: 'history'; kind: HistoryKind | null; id: string | null }
+  | { name: 'settings' };
+
+export type Tab = 'builds' | 'parts' | 'vehicles' | 'history' | 'settings';
+
+const isPartSlug = (s: string | undefined): s is PartSlug => (PART_SLUGS as readonly string[]).includes(s ?? '');
+const isHistoryKind = (s: string | undefined): s is HistoryKind => (HISTORY_KINDS as readonly string[]).includes(s ?? '');
+
+function decode(segment: string | undefined): string | null {
+  if (segment === undefined || segment === '') return null;
+  try {
+    return decodeURIComponent(segment);
+  } catch {
+    return null;
+  }
+}
+
+/** Reads `#/builds/abc` into a route; anything unknown opens the builds list. */
+export function parseRoute(hash: string): Route {
+  const path = hash.replace(/^#\/?/, '').split('?')[0] ?? '';
+  const [head, a, b] = path.split('/');
+  switch (head) {
+    case 'builds': {
+      if (a === 'new') return { name: 'build-new' };
+      const id = decode(a);
+      if (id === null) return { name: 'builds' };
+      if (b === 'edit') return { name: 'build-edit', id };
+      if (b === 'swap') return { name: 'build-swap', id };
+      return { name: 'build', id };
+    }
+    case 'parts':
+      return { name: 'parts', slug: isPartSlug(a) ? a : 'packs', id: isPartSlug(a) ? decode(b) : null };
+    case 'vehicles':
+      return { name: 'vehicles', id: decode(a) };
+    case 'history':
+      return isHistoryKind(a) && decode(b) !== null ? { name: 'history', kind: a, id: decode(b) } : { name: 'history', kind: null, id: null };
+    case 'settings':
+      return { name: 'settings' };
+    default:
+      return { name: 'builds' };
+  }
+}
+
+const enc = encodeURIComponent;
+
+export function formatRoute(route: Route): string {
+  switch (route.name) {
+    case 'builds':
+      return '#/builds';
+    case 'build-new':
+      return '#/builds/new';
+    case 'build':
+      return `#/builds/${enc(route.id)}`;
+    case 'build-edit':
+      return `#/builds/${enc(route.id)}/edit`;
+    case 'build-swap':
+      return `#/builds/${enc(route.id)}/swap`;
+    case 'parts':
+      return route.id === null ? `#/parts/${route.slug}` : `#/parts/${route.slug}/${enc(route.id)}`;
+    case 'vehicles':
+      return route.id === null ? '#/vehicles' : `#/vehicles/${enc(route.id)}`;
+    case 'history':
+      return route.kind !== null && route.id !== null ? `#/history/${route.kind}/${enc(route.id)}` : '#/history';
+    case 'settings':
+      return '#/settings';
+  }
+}
+
+export function tabOf(route: Route): Tab {
+  switch (route.name) {
+    case 'builds':
+    case 'build-new':
+    case 'build':
+    case 'build-edit':
+    case 'build-swap':
+      return 'builds';
+    default:
+      return route.name;
+  }
+}
+
+export const href = formatRoute;

@@ -1,0 +1,134 @@
+import type { ApiError } from '../../../src-main/service/contract';
+import type { Build, BuildVerdict } from '../../../src-main/core/domain';
+import type { UnitSystem } from '../../../src-main/core/units';
+import { asApiError, type Client } from '../api/client';
+import { draftChanges, draftToRecord, errorFieldKey, fieldLabel, messageForField, toDraft, type Draft } from '../forms/draft';
+import { BUILD_FIELD_LIST, GEARING_KEYS, flattenBuild, nestBuild, suppliesEqual, type SupplyDraft } from '../builds/build-fields';
+
+const NEW_BUILD = {
+  name: '',
+  vehicleId: '',
+  motorId: '',
+  motorCount: 1,
+  controllerId: '',
+  propellerId: '',
+  'gearing.internalRatio': 1,
+  'gearing.drivetrainEfficiency': 0.9,
+  notes: '',
+};
+
+/** Creating or editing a build: every field, its supplies of packs, and the service's errors by field. */
+export class BuildFormState {
+  record = $state.raw<Build | null>(null);
+  base = $state<Draft>({});
+  draft = $state<Draft>({});
+  supplies = $state<SupplyDraft[]>([]);
+  baseSupplies = $state.raw<SupplyDraft[]>([]);
+  reason = $state('');
+  errors = $state<Record<string, string>>({});
+  formError = $state<ApiError | null>(null);
+  saving = $state(false);
+  loaded = $state(false);
+  notice = $state<string | null>(null);
+
+  conflict = $derived(this.formError?.kind === 'conflict');
+
+  constructor(
+    private readonly client: Client,
+    readonly id: string | null,
+    private readonly units: UnitSystem,
+  ) {
+    if (id === null) this.reset(null);
+  }
+
+  private reset(build: Build | null): void {
+    this.record = build;
+    this.base = toDraft(BUILD_FIELD_LIST, build ? flattenBuild(build) : null, this.units, NEW_BUILD);
+    this.draft = { ...this.base };
+    const supplies = build ? build.supplies.map((s) => ({ id: s.id, arrangement: s.arrangement, batteryIds: [...s.batteryIds] })) : [{ arrangement: 'series' as const, batteryIds: [''] }];
+    this.baseSupplies = supplies.map((s) => ({ ...s, batteryIds: [...s.batteryIds] }));
+    this.supplies = supplies;
+    this.errors = {};
+    this.formError = null;
+    this.loaded = true;
+  }
+
+  async load(): Promise<void> {
+    if (this.id === null) return;
+    try {
+      const sheet = await this.client.call('builds.get', { id: this.id });
+      this.reset(sheet.build);
+    } catch (error) {
+      this.formError = asApiError(error);
+    }
+  }
+
+  addSupply(): void {
+    this.supplies.push({ arrangement: 'series', batteryIds: [''] });
+  }
+
+  removeSupply(index: number): void {
+    this.supplies.splice(index, 1);
+  }
+
+  addPack(supply: number): void {
+    this.supplies[supply]?.batteryIds.push('');
+  }
+
+  removePack(supply: number, pack: number): void {
+    this.supplies[supply]?.batteryIds.splice(pack, 1);
+  }
+
+  /** Supplies as the service takes them; empty pack slots are left out rather than sent as bad ids. */
+  private suppliesInput() {
+    return this.supplies
+      .map((s) => ({ ...(s.id ? { id: s.id } : {}), arrangement: s.arrangement, batteryIds: s.batteryIds.filter((id) => id !== '') }))
+      .filter((s) => s.batteryIds.length > 0);
+  }
+
+  private fail(error: unknown): void {
+    const e = asApiError(error);
+    const key = errorFieldKey(e.field);
+    const def = key ? BUILD_FIELD_LIST.find((f) => f.key === key) : undefined;
+    this.errors = key ? { [key.startsWith('supplies') ? 'supplies' : key]: messageForField(e.message, e.field) } : {};
+    this.formError = def ? { ...e, message: `${fieldLabel(def, this.units)}: ${messageForField(e.message, e.field)}` } : e;
+  }
+
+  /** Saves; returns the build and its verdict, or null when the save failed (nothing typed is lost). */
+  async save(): Promise<{ record: Build; verdict: BuildVerdict | null } | null> {
+    this.saving = true;
+    this.errors = {};
+    this.formError = null;
+    try {
+      if (this.record === null) {
+        const fields = nestBuild(draftToRecord(BUILD_FIELD_LIST, this.draft, this.units));
+        const result = (await this.client.callUntyped('builds.create', { ...fields, supplies: this.suppliesInput() })) as { record: Build; verdict: BuildVerdict | null };
+        this.reset(result.record);
+        return result;
+      }
+      const flat = draftChanges(BUILD_FIELD_LIST, this.draft, this.base, this.units);
+      // Gearing is replaced whole by a patch: send all of it when any part changed.
+      if (GEARING_KEYS.some((k) => `gearing.${k}` in flat)) {
+        for (const k of GEARING_KEYS) flat[`gearing.${k}`] ??= draftToRecord(BUILD_FIELD_LIST, this.draft, this.units)[`gearing.${k}`];
+      }
+      const changes = nestBuild(flat);
+      if (!suppliesEqual(this.supplies, this.baseSupplies)) changes.supplies = this.suppliesInput();
+      if (Object.keys(changes).length === 0) {
+        this.notice = 'Nothing changed.';
+        return { record: this.record, verdict: null };
+      }
+      const result = (await this.client.callUntyped('builds.update', { id: this.record.id, expectedVersion: this.record.version, changes, reason: this.reason.trim() })) as {
+        record: Build;
+        verdict: BuildVerdict | null;
+      };
+      this.reason = '';
+      this.reset(result.record);
+      return result;
+    } catch (error) {
+      this.fail(error);
+      return null;
+    } finally {
+      this.saving = false;
+    }
+  }
+}

@@ -1,0 +1,213 @@
+import type { ApiError } from '../../../src-main/service/contract';
+import type { BuildVerdict, Gearing } from '../../../src-main/core/domain';
+import type { UnitSystem } from '../../../src-main/core/units';
+import { asApiError, type Client } from '../api/client';
+import type { BuildSheet } from './build-sheet.svelte';
+import { fromDraftValue, toDraftValue, errorFieldKey, messageForField } from '../forms/draft';
+import { BUILD_FIELDS, GEARING_KEYS } from '../builds/build-fields';
+import { PART_FIELDS, type FieldDef } from '../parts/part-fields';
+import { partApi } from '../parts/part-api';
+import type { PartTable } from '../parts/part-kinds';
+
+export type SwapMode = 'part' | 'gearing' | 'record';
+
+export interface PreviewResult {
+  before: BuildVerdict[];
+  after: BuildVerdict[];
+  verdictChanges: { buildId: string; supplyId: string | null; from: BuildVerdict['status'] | null; to: BuildVerdict['status'] }[];
+}
+
+/** A slot of the build a replacement can go into: the motor, controller, propeller or one pack of a supply. */
+export type Slot = 'motorId' | 'controllerId' | 'propellerId' | `pack:${number}:${number}`;
+
+export const GEARING_DEFS: readonly FieldDef[] = GEARING_KEYS.map((k) => BUILD_FIELDS[k]);
+
+/**
+ * A what-if on one build: a part swapped, the gearing changed, or a shared part's record
+ * edited. The preview runs the real write and rolls it back; nothing is stored until Save.
+ */
+export class SwapPreviewState {
+  sheet = $state.raw<BuildSheet | null>(null);
+  mode = $state<SwapMode>('part');
+  slot = $state<Slot>('motorId');
+  replacementId = $state('');
+  gearing = $state<Record<string, string>>({});
+  recordTarget = $state('');
+  recordField = $state('');
+  recordValue = $state('');
+  reason = $state('');
+  result = $state.raw<PreviewResult | null>(null);
+  error = $state<ApiError | null>(null);
+  fieldError = $state<string | null>(null);
+  busy = $state(false);
+  saved = $state(false);
+
+  constructor(
+    private readonly client: Client,
+    readonly id: string,
+    private readonly units: UnitSystem,
+  ) {}
+
+  async load(): Promise<void> {
+    try {
+      const sheet = await this.client.call('builds.get', { id: this.id });
+      this.sheet = sheet;
+      this.resetGearing();
+      this.slot = sheet.build.supplies.length > 0 ? 'pack:0:0' : 'motorId';
+    } catch (error) {
+      this.error = asApiError(error);
+    }
+  }
+
+  resetGearing(): void {
+    const g = this.sheet?.build.gearing;
+    const out: Record<string, string> = {};
+    for (const def of GEARING_DEFS) out[def.key] = String(toDraftValue(def, g ? g[def.key.slice('gearing.'.length) as keyof Gearing] : null, this.units));
+    this.gearing = out;
+  }
+
+  /** The id now in a slot, for showing what is being replaced. */
+  currentIn(slot: Slot): string | null {
+    const b = this.sheet?.build;
+    if (!b) return null;
+    if (slot === 'motorId' || slot === 'controllerId' || slot === 'propellerId') return b[slot];
+    const [, s, p] = slot.split(':');
+    return b.supplies[Number(s)]?.batteryIds[Number(p)] ?? null;
+  }
+
+  slotTable(slot: Slot): PartTable {
+    if (slot === 'motorId') return 'motors';
+    if (slot === 'controllerId') return 'controllers';
+    if (slot === 'propellerId') return 'propellers';
+    return 'batteries';
+  }
+
+  /** The build's parts whose records can be edited here, as `table:id`. */
+  recordTargets(): { value: string; table: PartTable; id: string }[] {
+    const s = this.sheet;
+    if (!s) return [];
+    const out: { value: string; table: PartTable; id: string }[] = [];
+    for (const b of s.batteries) out.push({ value: `batteries:${b.id}`, table: 'batteries', id: b.id });
+    if (s.motor) out.push({ value: `motors:${s.motor.id}`, table: 'motors', id: s.motor.id });
+    if (s.controller) out.push({ value: `controllers:${s.controller.id}`, table: 'controllers', id: s.controller.id });
+    if (s.propeller) out.push({ value: `propellers:${s.propeller.id}`, table: 'propellers', id: s.propeller.id });
+    if (s.vehicle) out.push({ value: `vehicles:${s.vehicle.id}`, table: 'vehicles', id: s.vehicle.id });
+    return out;
+  }
+
+  recordFields(): FieldDef[] {
+    const [table] = this.recordTarget.split(':');
+    const defs = PART_FIELDS[(table ?? '') as PartTable] ?? [];
+    return defs.filter((d) => d.type === 'number' || d.type === 'integer');
+  }
+
+  private targetRecord(): { table: PartTable; record: { id: string; version: number } & Record<string, unknown> } | null {
+    const [table, id] = this.recordTarget.split(':') as [PartTable, string];
+    const s = this.sheet;
+    if (!s || !id) return null;
+    const all: ({ id: string; version: number } & Record<string, unknown>)[] = [
+      ...(s.batteries as unknown as ({ id: string; version: number } & Record<string, unknown>)[]),
+      ...([s.motor, s.controller, s.propeller, s.vehicle].filter((x) => x !== null) as unknown as ({ id: string; version: number } & Record<string, unknown>)[]),
+    ];
+    const record = all.find((r) => r.id === id);
+    return record ? { table, record } : null;
+  }
+
+  /** The current value of the chosen record field, in display units. */
+  currentRecordValue(): string {
+    const t = this.targetRecord();
+    const def = this.recordFields().find((d) => d.key === this.recordField);
+    if (!t || !def) return '';
+    return String(toDraftValue(def, t.record[def.key], this.units));
+  }
+
+  private buildChanges(): Record<string, unknown> | null {
+    const b = this.sheet?.build;
+    if (!b) return null;
+    if (this.mode === 'part') {
+      if (this.replacementId === '') return null;
+      if (this.slot.startsWith('pack:')) {
+        const [, s, p] = this.slot.split(':').map(Number) as [number, number, number];
+        const supplies = b.supplies.map((sup, i) => ({
+          id: sup.id,
+          arrangement: sup.arrangement,
+          batteryIds: sup.batteryIds.map((x, j) => (i === s && j === p ? this.replacementId : x)),
+        }));
+        return { supplies };
+      }
+      return { [this.slot]: this.replacementId };
+    }
+    const gearing: Record<string, unknown> = {};
+    for (const def of GEARING_DEFS) gearing[def.key.slice('gearing.'.length)] = fromDraftValue(def, this.gearing[def.key] ?? '', this.units);
+    return { gearing };
+  }
+
+  /** What the preview or save call takes. */
+  private request(): { build: Record<string, unknown> } | { part: Record<string, unknown> } | null {
+    const b = this.sheet?.build;
+    if (!b) return null;
+    if (this.mode === 'record') {
+      const t = this.targetRecord();
+      const def = this.recordFields().find((d) => d.key === this.recordField);
+      if (!t || !def) return null;
+      return { part: { kind: t.table, id: t.record.id, expectedVersion: t.record.version, changes: { [def.key]: fromDraftValue(def, this.recordValue, this.units) }, reason: this.reason.trim() } };
+    }
+    const changes = this.buildChanges();
+    return changes ? { build: { id: b.id, expectedVersion: b.version, changes, reason: this.reason.trim() } } : null;
+  }
+
+  private fail(error: unknown): void {
+    const e = asApiError(error);
+    this.error = e;
+    this.fieldError = e.field ? `${errorFieldKey(e.field)}: ${messageForField(e.message, e.field)}` : null;
+  }
+
+  async preview(): Promise<void> {
+    const req = this.request();
+    this.error = null;
+    this.fieldError = null;
+    if (!req) {
+      this.error = { kind: 'invalid', message: this.mode === 'record' ? 'Pick a part, a field and a new value first.' : 'Pick a replacement first.' };
+      return;
+    }
+    this.busy = true;
+    try {
+      this.result = (await this.client.callUntyped('builds.preview', req)) as PreviewResult;
+    } catch (error) {
+      this.result = null;
+      this.fail(error);
+    } finally {
+      this.busy = false;
+    }
+  }
+
+  /** Writes the change for real, with the reason, through the same operation an edit uses. */
+  async save(): Promise<boolean> {
+    const req = this.request();
+    if (!req) return false;
+    this.busy = true;
+    this.error = null;
+    try {
+      if ('build' in req) {
+        await this.client.callUntyped('builds.update', req.build);
+      } else {
+        const p = req.part as { kind: PartTable; id: string; expectedVersion: number; changes: Record<string, unknown>; reason: string };
+        await partApi.update(this.client, p.kind, p.id, p.expectedVersion, p.changes, p.reason);
+      }
+      this.saved = true;
+      return true;
+    } catch (error) {
+      this.fail(error);
+      return false;
+    } finally {
+      this.busy = false;
+    }
+  }
+
+  /** Drops the preview; the store was never touched. */
+  clear(): void {
+    this.result = null;
+    this.error = null;
+    this.fieldError = null;
+  }
+}

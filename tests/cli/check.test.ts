@@ -1,0 +1,131 @@
+import { spawnSync } from 'node:child_process';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { unit } from 'mathjs';
+import { afterEach, describe, expect, it } from 'vitest';
+import { tempDir } from '../helpers/temp-dir';
+import { rigbook } from './run';
+
+const EXAMPLE = join(process.cwd(), 'demo-fixtures', 'example-fleet.json');
+const temps: ReturnType<typeof tempDir>[] = [];
+function temp() {
+  const t = tempDir();
+  temps.push(t);
+  return t;
+}
+afterEach(() => temps.splice(0).forEach((t) => t.remove()));
+
+interface CheckOutput {
+  builds: { id: string; status: string; supplies: { batteryIds: string[]; status: string; figures: Record<string, number | string | null>; findings: Record<string, unknown>[] }[] }[];
+}
+
+describe('rigbook check', () => {
+  it('--json prints exactly the documented shape, and exits 1 when something is over', async () => {
+    const t = temp();
+    const run = await rigbook(['check', EXAMPLE, '--json'], { env: { RIGBOOK_DB: t.file('never.sqlite') } });
+    expect(run.code).toBe(1);
+    const out = JSON.parse(run.out) as CheckOutput;
+    expect(Object.keys(out)).toEqual(['builds']);
+    expect(out.builds.map((b) => [b.id, b.status])).toEqual([
+      ['truck-on-3s', 'clear'],
+      ['truck-on-6s', 'over'],
+    ]);
+    for (const b of out.builds) {
+      expect(Object.keys(b)).toEqual(['id', 'status', 'supplies']);
+      for (const s of b.supplies) {
+        expect(Object.keys(s)).toEqual(['batteryIds', 'status', 'figures', 'findings']);
+        expect(Object.keys(s.figures)).toEqual(
+          expect.arrayContaining(['packVoltageNominalV', 'packVoltageFullV', 'torqueConstantNmPerA', 'noLoadRpm', 'finalDriveRatio', 'theoreticalSpeedKmh', 'peakCurrentA', 'continuousCurrentA']),
+        );
+        for (const finding of s.findings) expect(Object.keys(finding)).toEqual(['rule', 'status', 'value', 'limit', 'unit', 'margin', 'message']);
+      }
+    }
+    // Pure: no store was opened or created.
+    expect(existsSync(t.file('never.sqlite'))).toBe(false);
+  });
+
+  it('the figures agree with values worked out independently', async () => {
+    const run = await rigbook(['check', EXAMPLE, '--json']);
+    const out = JSON.parse(run.out) as CheckOutput;
+    const f = out.builds[0]!.supplies[0]!.figures;
+    // 3 cells × 3.7 V nominal, × 4.20 V full (LiPo, cell makers' specification sheets).
+    expect(f.packVoltageNominalV).toBeCloseTo(11.1, 9);
+    expect(f.packVoltageFullV).toBeCloseTo(12.6, 9);
+    // Kt = 1 / Kv in SI units (N·m/A = V·s/rad); Kv converted with mathjs: 3200 rev/min per volt.
+    const kvRad = unit(3200, 'cycle/minute').toNumber('rad/s');
+    expect(f.torqueConstantNmPerA).toBeCloseTo(1 / kvRad, 12);
+    // The trade's no-load figure: Kv × nominal voltage.
+    expect(f.noLoadRpm).toBeCloseTo(3200 * 11.1, 6);
+    // Final drive = spur / pinion × internal ratio: 46 / 14 × 2.85.
+    expect(f.finalDriveRatio).toBeCloseTo((46 / 14) * 2.85, 12);
+    // Wheel rpm × circumference (110 mm tyre), converted to km/h with mathjs.
+    const wheelRevPerMin = (3200 * 11.1) / ((46 / 14) * 2.85);
+    const expectedKmh = unit(wheelRevPerMin * Math.PI * unit(110, 'mm').toNumber('m'), 'm/minute').toNumber('km/h');
+    expect(f.theoreticalSpeedKmh).toBeCloseTo(expectedKmh, 9);
+
+    const over = out.builds[1]!.supplies[0]!.findings.find((x) => x.rule === 'controller-voltage')!;
+    // 6 × 4.20 V against a controller rated for 4 cells (4 × 4.2 V).
+    expect(over).toMatchObject({ status: 'over', unit: 'V' });
+    expect(over.value as number).toBeCloseTo(25.2, 9);
+    expect(over.limit as number).toBeCloseTo(16.8, 9);
+    expect(over.margin as number).toBeCloseTo((16.8 - 25.2) / 16.8, 9);
+  });
+
+  it('prints a readable table per build and supply', async () => {
+    const run = await rigbook(['check', EXAMPLE]);
+    expect(run.code).toBe(1);
+    expect(run.out).toContain('OVER  Truck on 6S (4S controller)  [truck-on-6s]');
+    expect(run.out).toContain('supply 1 of 1: 6S 5000 basher  →  OVER');
+    expect(run.out).toMatch(/OVER\s+controller-voltage\s+25\.2 V\s+16\.8 V\s+-50\.0 %/);
+    expect(run.out).toContain('2 builds checked: 1 over, 0 tight, 0 incomplete, 1 clear.');
+    expect(run.out).toContain("follow the part maker's ratings");
+  });
+
+  it('exits 0 when nothing is over', async () => {
+    const t = temp();
+    const fleet = JSON.parse(readFileSync(EXAMPLE, 'utf8')) as { builds: { id: string }[] };
+    fleet.builds = fleet.builds.filter((b) => b.id !== 'truck-on-6s');
+    writeFileSync(t.file('ok.json'), JSON.stringify(fleet));
+    const run = await rigbook(['check', 'ok.json', '--json'], { cwd: t.dir });
+    expect(run.code).toBe(0);
+    expect((JSON.parse(run.out) as CheckOutput).builds).toHaveLength(1);
+  });
+
+  it('exits 2 for a file it cannot read, saying why', async () => {
+    const t = temp();
+    const missing = await rigbook(['check', t.file('nope.json')]);
+    expect(missing.code).toBe(2);
+    expect(missing.err).toMatch(/Cannot read .*nope\.json: there is no such file/);
+    writeFileSync(t.file('cut.json'), readFileSync(EXAMPLE, 'utf8').slice(0, 300));
+    const cut = await rigbook(['check', t.file('cut.json')]);
+    expect(cut.code).toBe(2);
+    expect(cut.err).toMatch(/not complete JSON/);
+    expect(cut.out).toBe('');
+    const folder = await rigbook(['check', t.dir]);
+    expect(folder.code).toBe(2);
+    expect(folder.err).toMatch(/is a folder/);
+  });
+
+  it('exits 3 for a file that is JSON but not a valid fleet, listing every problem', async () => {
+    const t = temp();
+    const fleet = JSON.parse(readFileSync(EXAMPLE, 'utf8')) as { batteries: Record<string, unknown>[]; builds: Record<string, unknown>[] };
+    fleet.batteries[1]!.chemistry = 'lead-acid';
+    fleet.builds[0]!.controllerId = 'esc-missing';
+    writeFileSync(t.file('bad.json'), JSON.stringify(fleet));
+    const run = await rigbook(['check', t.file('bad.json'), '--json']);
+    expect(run.code).toBe(3);
+    expect(run.out).toBe('');
+    expect(run.err).toContain('(2 problems)');
+    expect(run.err).toContain('batteries[1].chemistry: must be one of: lipo, lihv, lifepo4, liion, nimh');
+    expect(run.err).toContain('builds[0].controllerId: no speed controller with id "esc-missing" in this file');
+  });
+
+  it('runs as a real process through the entry file', () => {
+    const result = spawnSync(process.execPath, ['--import', 'tsx', 'src-main/cli/main.ts', 'check', EXAMPLE, '--json'], { cwd: process.cwd(), encoding: 'utf8', env: { ...process.env, RIGBOOK_DB: '' } });
+    expect(result.status).toBe(1);
+    expect((JSON.parse(result.stdout) as CheckOutput).builds).toHaveLength(2);
+    const usage = spawnSync(process.execPath, ['--import', 'tsx', 'src-main/cli/main.ts', 'frobnicate'], { cwd: process.cwd(), encoding: 'utf8' });
+    expect(usage.status).toBe(5);
+    expect(usage.stderr).toMatch(/no command "frobnicate"/);
+  });
+});

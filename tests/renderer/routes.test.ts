@@ -1,0 +1,45 @@
+import { describe, expect, it } from 'vitest';
+import { formatRoute, parseRoute, tabOf, type Route } from '../../src-renderer/lib/router/routes';
+
+describe('hash routes', () => {
+  const routes: Route[] = [
+    { name: 'builds' },
+    { name: 'build-new' },
+    { name: 'build', id: 'build-12' },
+    { name: 'build-edit', id: 'build-12' },
+    { name: 'build-swap', id: 'build.x_1' },
+    { name: 'parts', slug: 'packs', id: null },
+    { name: 'parts', slug: 'controllers', id: 'esc-3' },
+    { name: 'vehicles', id: null },
+    { name: 'vehicles', id: 'veh-9' },
+    { name: 'history', kind: null, id: null },
+    { name: 'history', kind: 'batteries', id: 'pack-1' },
+    { name: 'settings' },
+  ];
+
+  it('reads back every route it writes, so a reload opens the same screen', () => {
+    for (const r of routes) expect(parseRoute(formatRoute(r))).toEqual(r);
+  });
+
+  it('writes the addresses the screens are known by', () => {
+    expect(formatRoute({ name: 'build', id: 'build-12' })).toBe('#/builds/build-12');
+    expect(formatRoute({ name: 'parts', slug: 'packs', id: null })).toBe('#/parts/packs');
+  });
+
+  it('opens the builds list for an empty or unknown address, and packs for an unknown part kind', () => {
+    expect(parseRoute('')).toEqual({ name: 'builds' });
+    expect(parseRoute('#/nowhere/else')).toEqual({ name: 'builds' });
+    expect(parseRoute('#/parts/wheels')).toEqual({ name: 'parts', slug: 'packs', id: null });
+    expect(parseRoute('#/history/planets/x')).toEqual({ name: 'history', kind: null, id: null });
+  });
+
+  it('survives a malformed escape in an id', () => {
+    expect(parseRoute('#/builds/%E0%A4%A')).toEqual({ name: 'builds' });
+  });
+
+  it('lights the tab a screen belongs to', () => {
+    expect(tabOf({ name: 'build-swap', id: 'b' })).toBe('builds');
+    expect(tabOf({ name: 'parts', slug: 'motors', id: null })).toBe('parts');
+    expect(tabOf({ name: 'history', kind: null, id: null })).toBe('history');
+  });
+});

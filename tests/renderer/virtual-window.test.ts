@@ -1,0 +1,39 @@
+import { describe, expect, it } from 'vitest';
+import { moveSelection, revealRow, visibleWindow } from '../../src-renderer/lib/builds/virtual-window';
+
+describe('virtual window', () => {
+  it('draws the visible rows plus the overscan, not the whole list', () => {
+    // 600 px of 32 px rows shows 18.75 rows; scrolled to row 100.
+    const w = visibleWindow(3200, 600, 32, 10_000, 6);
+    expect(w.start).toBe(94);
+    expect(w.end).toBe(100 + 20 + 6);
+    expect(w.offset).toBe(94 * 32);
+    expect(w.total).toBe(320_000);
+    expect(w.end - w.start).toBeLessThan(40);
+  });
+
+  it('clamps at both ends of the list', () => {
+    expect(visibleWindow(0, 600, 32, 10, 6)).toEqual({ start: 0, end: 10, offset: 0, total: 320 });
+    const bottom = visibleWindow(1e9, 600, 32, 1000, 6);
+    expect(bottom.end).toBe(1000);
+    expect(bottom.start).toBeGreaterThan(900);
+    expect(visibleWindow(0, 600, 32, 0)).toEqual({ start: 0, end: 0, offset: 0, total: 0 });
+  });
+
+  it('scrolls only as far as needed to show a row', () => {
+    expect(revealRow(5, 0, 320, 32)).toBe(0);
+    expect(revealRow(10, 0, 320, 32)).toBe(32);
+    expect(revealRow(2, 200, 320, 32)).toBe(64);
+  });
+
+  it('moves the selection with the usual keys and ignores the rest', () => {
+    expect(moveSelection('ArrowDown', -1, 5, 10)).toBe(0);
+    expect(moveSelection('ArrowDown', 4, 5, 10)).toBe(4);
+    expect(moveSelection('ArrowUp', 0, 5, 10)).toBe(0);
+    expect(moveSelection('PageDown', 0, 50, 10)).toBe(10);
+    expect(moveSelection('End', 0, 50, 10)).toBe(49);
+    expect(moveSelection('Home', 30, 50, 10)).toBe(0);
+    expect(moveSelection('a', 3, 50, 10)).toBeNull();
+    expect(moveSelection('ArrowDown', 0, 0, 10)).toBeNull();
+  });
+});
