@@ -3,6 +3,10 @@ import { STATUSES } from '../core/domain';
 import type { FleetRecords } from '../service/fleet/fleet-format';
 import { formatNumber, formatPercent } from './format-number';
 
+/** Said whenever something is over: what can happen, and whose word counts. */
+export const OVER_CAUTION =
+  "Over means a part is used past its rating: it can overheat or fail, and a lithium pack can swell and catch fire. Before running it, follow the part maker's ratings and manuals and your local rules.";
+
 /** The finding fields the check output carries, in this order. */
 const FINDING_FIELDS = ['rule', 'status', 'value', 'limit', 'unit', 'margin', 'message'] as const;
 
@@ -71,6 +75,6 @@ export function checkText(fleet: FleetRecords, verdicts: readonly BuildVerdict[]
   const counts = new Map<Status, number>(STATUSES.map((s) => [s, 0]));
   for (const v of verdicts) counts.set(v.status, (counts.get(v.status) ?? 0) + 1);
   lines.push(`${verdicts.length} build${verdicts.length === 1 ? '' : 's'} checked: ${STATUSES.map((s) => `${counts.get(s)} ${s}`).join(', ')}.`);
-  if ((counts.get('over') ?? 0) > 0) lines.push("Over means a part is used past its rating: follow the part maker's ratings before running it.");
+  if ((counts.get('over') ?? 0) > 0) lines.push(OVER_CAUTION);
   return `${lines.join('\n')}\n`;
 }

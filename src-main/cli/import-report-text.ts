@@ -1,6 +1,7 @@
 import { describeCounts, type ImportReport } from '../service/fleet/import-fleet';
 import { problemLine } from '../service/fleet/fleet-problems';
 import { STATUSES } from '../core/domain';
+import { OVER_CAUTION } from './check-output';
 
 const MAX_CHANGES_SHOWN = 20;
 
@@ -20,7 +21,7 @@ export function importReportText(file: string, report: ImportReport): string {
     for (const c of changed.slice(0, MAX_CHANGES_SHOWN)) lines.push(`  ${c.buildId}: ${c.from} → ${c.to}`);
     if (changed.length > MAX_CHANGES_SHOWN) lines.push(`  … and more (${report.verdictChangeCount} verdict changes in all, new builds included)`);
   }
-  if (report.statuses.over > 0) lines.push("Some builds are over a rating: follow the part maker's ratings before running them.");
+  if (report.statuses.over > 0) lines.push(`${report.statuses.over} build${report.statuses.over === 1 ? ' is' : 's are'} over a rating. ${OVER_CAUTION}`);
   return `${lines.join('\n')}\n`;
 }
 

@@ -1,7 +1,7 @@
 import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { ApiError } from '../service/contract';
-import { openServiceHost } from '../service/open-service-host';
+import { AUTO_BACKUPS_KEPT, openServiceHost } from '../service/open-service-host';
 import { resolveDbPath } from '../store/data-location';
 import { CliFailure, type CliIo } from './cli-io';
 import { EXIT } from './exit-codes';
@@ -23,7 +23,7 @@ export interface StoreOptions {
 }
 
 /** How many rolling copies the command line keeps, the same as the app's shells. */
-export const AUTO_BACKUPS_KEPT = 5;
+export { AUTO_BACKUPS_KEPT };
 
 /** Opens the store through the same service host the app uses, prints progress events, and always closes it. */
 export async function withStore<T>(io: CliIo, dbPath: string, options: StoreOptions, work: (host: Host, existed: boolean) => Promise<T>): Promise<T> {

@@ -21,7 +21,16 @@ const NO_SUPPLY: Supply = { id: '', arrangement: 'series', batteryIds: [] };
 
 const AIR_KINDS: readonly string[] = ['multirotor', 'plane'];
 
-export function evaluateBuild(ctx: BuildContext): BuildVerdict {
+export interface EvaluateOptions {
+  /**
+   * Write the findings' sentences (default true). A re-check stores statuses and list figures
+   * only, so it skips them: composing text is most of an evaluation's cost.
+   */
+  messages?: boolean;
+}
+
+export function evaluateBuild(ctx: BuildContext, options?: EvaluateOptions): BuildVerdict {
+  const messages = options?.messages ?? true;
   const inputs = buildInputs(ctx);
   const classRules = classRulesFor(ctx.classRules, ctx.vehicle?.className);
   const threshold = tightThresholdFor(ctx.build.tightThreshold, classRules, ctx.defaultTightThreshold);
@@ -30,7 +39,7 @@ export function evaluateBuild(ctx: BuildContext): BuildVerdict {
   for (const supply of supplies) {
     const model =
       supply === NO_SUPPLY ? lacking<SupplyModel>('build.supplies') : supplyModel(supply, ctx.batteries);
-    verdicts.push(evaluateSupply(inputs, supply, model, classRules, threshold));
+    verdicts.push(evaluateSupply(inputs, supply, model, classRules, threshold, messages));
   }
   let status: Status = 'clear';
   for (const v of verdicts) if (compareStatus(v.status, status) < 0) status = v.status;
@@ -55,6 +64,7 @@ interface RuleEnv {
   lithium: boolean;
   several: boolean;
   modelAssumed: readonly string[];
+  messages: boolean;
 }
 
 function pushRule(env: RuleEnv, id: BuiltInRuleId, value: Known, limit: Known, source?: 'model' | 'measured'): void {
@@ -70,6 +80,7 @@ function pushRule(env: RuleEnv, id: BuiltInRuleId, value: Known, limit: Known, s
     risk: env.lithium && t.riskLithium ? t.riskLithium : t.risk,
     fix: t.fix,
     tightHint: t.tightHint,
+    messages: env.messages,
   };
   if (source) check.source = source;
   if (source === 'model' && env.modelAssumed.length > 0) check.assumed = env.modelAssumed;
@@ -82,6 +93,7 @@ function evaluateSupply(
   model: Known<SupplyModel>,
   classRules: BuildContext['classRules'],
   threshold: number,
+  messages: boolean,
 ): SupplyVerdict {
   const s = model.value;
   const supplyLack = model.missing ?? [];
@@ -186,7 +198,7 @@ function evaluateSupply(
   const modelAssumed: string[] = [];
   if (s && s.resistanceOhm === null) modelAssumed.push('battery.cellResistanceOhm');
   if (inp.controllerResistanceAssumed) modelAssumed.push('controller.resistanceOhm');
-  const env: RuleEnv = { findings, threshold, lithium: s?.lithium ?? true, several: n !== null && n > 1, modelAssumed };
+  const env: RuleEnv = { findings, threshold, lithium: s?.lithium ?? true, several: n !== null && n > 1, modelAssumed, messages };
   pushRule(env, 'controller-voltage', fullV, inp.controllerMaxVoltageV);
   pushRule(env, 'motor-voltage', fullV, inp.motorMaxVoltageV);
   pushRule(env, 'motor-speed', noLoadRpmFull, inp.motorMaxRpm);

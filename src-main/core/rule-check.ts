@@ -19,6 +19,8 @@ export interface LimitCheck {
   source?: 'model' | 'measured';
   /** Unmeasured inputs the model took as zero. */
   assumed?: readonly string[];
+  /** False when only the status is wanted (a re-check): the message stays empty. */
+  messages?: boolean;
 }
 
 const ASSUMED_TEXT: Readonly<Record<string, string>> = {
@@ -59,6 +61,11 @@ export function checkLimit(c: LimitCheck): Finding {
   }
   const status = statusOf(value, limit, c.tightThreshold);
   const margin = marginOf(value, limit);
+  finding.status = status;
+  finding.value = value;
+  finding.limit = limit;
+  finding.margin = margin;
+  if (c.messages === false) return finding;
   const v = `${messageNumber(value)} ${c.unit}`;
   const l = `${messageNumber(limit)} ${c.unit}`;
   let message: string;
@@ -75,10 +82,6 @@ export function checkLimit(c: LimitCheck): Finding {
     message += ` (Not measured, taken as zero: ${names}; this reads the current on the high side.)`;
   }
   if (c.source === 'measured') message += ' Uses the measured current.';
-  finding.status = status;
-  finding.value = value;
-  finding.limit = limit;
-  finding.margin = margin;
   finding.message = message;
   return finding;
 }

@@ -3,7 +3,7 @@
 import { join } from 'node:path';
 import { app, BrowserWindow, dialog, ipcMain, Menu, session } from 'electron';
 import type { ServiceHost } from '../service/contract';
-import { openServiceHost } from '../service/open-service-host';
+import { AUTO_BACKUPS_KEPT, openServiceHost } from '../service/open-service-host';
 import { defaultDataDir } from '../store/data-location';
 import { handleAppProtocol, registerAppScheme } from './app-protocol';
 import { backUpInteractively } from './back-up';
@@ -75,7 +75,7 @@ function run(dbPath: string): void {
     .then(async () => {
       denyAllPermissions(session.defaultSession);
       handleAppProtocol(RENDERER_DIR);
-      const opened = await openServiceHost({ dbPath });
+      const opened = await openServiceHost({ dbPath, autoBackup: { keep: AUTO_BACKUPS_KEPT } });
       host = opened;
       wireIpc(opened);
       Menu.setApplicationMenu(

@@ -1,7 +1,7 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { resolveDbPath } from '../store/data-location';
-import { openServiceHost } from '../service/open-service-host';
+import { AUTO_BACKUPS_KEPT, openServiceHost } from '../service/open-service-host';
 import { startLocalServer } from './local-server';
 
 // Entry of the loopback shell: `node dist-main/local-main.cjs [--db PATH] [--port N]`.
@@ -22,7 +22,7 @@ async function main(): Promise<void> {
   const portText = argValue(args, '--port') ?? process.env.RIGBOOK_PORT;
   const port = portText === undefined ? 0 : Number(portText);
   if (!Number.isInteger(port) || port < 0 || port > 65535) throw new Error(`--port: "${portText}" is not a port number`);
-  const host = await openServiceHost({ dbPath });
+  const host = await openServiceHost({ dbPath, autoBackup: { keep: AUTO_BACKUPS_KEPT } });
   const server = await startLocalServer({ host, rendererDir: rendererDir(), port, token: process.env.RIGBOOK_TOKEN });
   process.stdout.write(`Rigbook is serving on ${server.url} (this computer only)\nStore: ${dbPath}\nOpen: ${server.openUrl}\n`);
   const stop = async () => {

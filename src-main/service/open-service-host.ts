@@ -29,6 +29,9 @@ function osUser(): string {
   }
 }
 
+/** Rolling copies kept in `<data folder>/backups/` by the shells at each start. */
+export const AUTO_BACKUPS_KEPT = 5;
+
 /** Opens the store (migrating it) and returns the one surface both shells and the command line use. */
 export async function openServiceHost(options: HostOptions): Promise<ServiceHost & { ctx: ServiceContext; autoBackupPath: string | null }> {
   // A store created just now holds nothing worth a copy.

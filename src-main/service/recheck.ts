@@ -1,8 +1,8 @@
 import type { Battery, BuildContext, BuildVerdict, ClassRule, Status } from '../core/domain';
-import { evaluateBuild } from '../core/evaluate';
+import { evaluateBuild, type EvaluateOptions } from '../core/evaluate';
 import type { DbHandle } from '../store/db-handle';
 import { selectedBuildIds, selectsNothing, type BuildSelector } from '../store/build-selector';
-import { loadBuilds } from '../store/repositories/builds';
+import { loadBuildsForEvaluation } from '../store/repositories/builds';
 import { rowToRecord } from '../store/repositories/part-records';
 import type { VerdictChange } from '../store/repositories/history';
 import { getStoredStatuses, verdictToRow, writeVerdicts } from '../store/repositories/verdicts';
@@ -42,7 +42,7 @@ async function referencedPacks(db: DbHandle, selector: BuildSelector): Promise<M
 export async function loadBuildContexts(db: DbHandle, selector: BuildSelector, defaultTightThreshold: number): Promise<BuildContext[]> {
   if (selectsNothing(selector)) return [];
   const [builds, vehicles, motors, controllers, propellers, batteries] = await Promise.all([
-    loadBuilds(db, selector),
+    loadBuildsForEvaluation(db, selector),
     referenced(db, 'vehicles', selector),
     referenced(db, 'motors', selector),
     referenced(db, 'controllers', selector),
@@ -85,10 +85,18 @@ export function diffStatuses(verdict: BuildVerdict, stored: { status: Status; su
 }
 
 /** Evaluates the selected builds and stores their verdicts; run inside the write's transaction. */
-export async function recheckBuilds(db: DbHandle, selector: BuildSelector, defaultTightThreshold: number, evaluatedAt: string): Promise<RecheckResult> {
+export async function recheckBuilds(
+  db: DbHandle,
+  selector: BuildSelector,
+  defaultTightThreshold: number,
+  evaluatedAt: string,
+  options: EvaluateOptions = { messages: false },
+): Promise<RecheckResult> {
   if (selectsNothing(selector)) return { verdicts: [], changes: [] };
   const [contexts, stored] = await Promise.all([loadBuildContexts(db, selector, defaultTightThreshold), getStoredStatuses(db, selector)]);
-  const verdicts = contexts.map(evaluateBuild);
+  // Statuses and list figures are all a re-check stores, so by default it skips the sentences;
+  // a preview, which shows its verdicts to a person, asks for them.
+  const verdicts = contexts.map((context) => evaluateBuild(context, options));
   const changes: VerdictChange[] = [];
   for (const verdict of verdicts) for (const change of diffStatuses(verdict, stored.get(verdict.buildId))) changes.push(change);
   await writeVerdicts(db, verdicts.map((verdict) => verdictToRow(verdict, evaluatedAt)));

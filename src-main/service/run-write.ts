@@ -37,12 +37,14 @@ class PreviewRollback<R> extends Error {
 /**
  * One transaction for the write, the re-check of the builds it affects and the history entry:
  * a crash leaves all of it or none of it. With `preview`, the same work runs and is rolled
- * back, so a preview shows exactly what saving would do.
+ * back, so a preview shows exactly what saving would do. Verdicts returned carry the findings'
+ * sentences only for a preview or when asked (`messages`): a re-check of thousands of builds
+ * stores statuses, and the sheet composes the sentences when it is read.
  */
 export async function runWrite<R>(
   ctx: ServiceContext,
   work: (trx: Transaction<Db>, at: string) => Promise<WritePlan<R>>,
-  options: { preview?: boolean } = {},
+  options: { preview?: boolean; messages?: boolean } = {},
 ): Promise<WriteOutcome<R>> {
   const at = ctx.now().toISOString();
   let changed: WritePlan<R>['changed'] = { kind: '', ids: [] };
@@ -53,7 +55,7 @@ export async function runWrite<R>(
       changed = plan.changed;
       const settings = await readSettings(trx);
       const selector = toSelector(plan.recheck);
-      const recheck = await recheckBuilds(trx, selector, settings.tightThreshold, at);
+      const recheck = await recheckBuilds(trx, selector, settings.tightThreshold, at, { messages: options.messages ?? options.preview === true });
       let historyId: number | null = null;
       if (plan.history) {
         historyId = await appendHistory(trx, {

@@ -9,6 +9,8 @@ export function validate<S extends v.GenericSchema>(schema: S, input: unknown): 
   const path = v.getDotPath(issue);
   // A key that is the empty string has no name to show, so the problem is reported as the input's.
   const field = path === null || path === '' ? undefined : path;
-  const message = field !== undefined ? `${field}: ${issue.message}` : path === '' ? 'Input has a field with an empty name, which Rigbook does not know' : `Input ${issue.message}`;
+  // A field left out reads "is required", not the type its schema expected.
+  const said = field !== undefined && issue.kind === 'schema' && issue.input === undefined ? 'is required' : issue.message;
+  const message = field !== undefined ? `${field}: ${said}` : path === '' ? 'Input has a field with an empty name, which Rigbook does not know' : `Input ${issue.message}`;
   throw new ServiceError('invalid', message, field);
 }

@@ -26,8 +26,6 @@ export interface StoredFleetIds {
   supplyOwners: Map<string, string>;
 }
 
-const PART_TABLES: readonly PartTableName[] = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classRules'];
-
 /** Every id the store holds, archived records included: what a merge is checked against. */
 export async function readFleetIds(db: DbHandle): Promise<StoredFleetIds> {
   const ids = async (table: PartTableName | 'builds') => new Set((await db.selectFrom(table as AnyTable).select('id').execute()).map((r) => r.id));
@@ -177,5 +175,3 @@ export async function buildIdsUsingAny(db: DbHandle, parts: PartsInUse, classNam
   }
   return [...out];
 }
-
-export { PART_TABLES };

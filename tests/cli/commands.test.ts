@@ -137,6 +137,16 @@ describe('rigbook demo, export and import', () => {
     expect(total).not.toBeNull();
     expect(Number(total![1])).toBeGreaterThan(1500);
   });
+
+  it('redraws one progress line in place on a terminal', async () => {
+    const t = temp();
+    const run = await rigbook(['import', EXAMPLE, '--db', t.file('s.sqlite')], { tty: true });
+    expect(run.code).toBe(0);
+    // Small tasks too: on a terminal every step is drawn over the last, and each task ends its line.
+    expect(run.err).toMatch(/^\rChecking records: 0 of 7\u001b\[K/);
+    expect(run.err).toContain('\rWriting records: 7 of 7\u001b[K\n');
+    expect(run.err.split('\n').filter((l) => l !== '')).toHaveLength(2);
+  });
 });
 
 describe('rigbook backup and restore', () => {

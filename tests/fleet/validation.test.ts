@@ -131,6 +131,13 @@ describe('a fleet file is checked whole before anything is written', () => {
     ]);
   });
 
+  it('a field with an odd name is still named exactly', () => {
+    const result = inspectFleet({ format: 'rigbook-fleet', version: 1, motors: [{ id: 'm1', name: 'M', kv: 1000, '': 1, 'top speed': 2 }] });
+    expect(result.ok).toBe(false);
+    if (result.ok) return;
+    expect(result.problems.map(problemLine)).toEqual(['motors[0][""]: is not a field Rigbook knows', 'motors[0]["top speed"]: is not a field Rigbook knows']);
+  });
+
   it('a hand-written file may leave out kinds, supply ids and fields that have defaults', () => {
     const result = inspectFleet({
       format: 'rigbook-fleet',

@@ -80,3 +80,17 @@ describe('parts through the handler map', () => {
     expect(error).toMatchObject({ kind: 'conflict', field: 'id' });
   });
 });
+
+describe('messages for fields left out', () => {
+  it('says a missing required field is required, naming it', async () => {
+    const f2 = await serviceFixture();
+    try {
+      const error = await f2.refuse('batteries.create', { name: 'No chemistry', cellsSeries: 4, capacityMah: 5000 });
+      expect(error).toMatchObject({ kind: 'invalid', field: 'chemistry', message: 'chemistry: is required' });
+      const nested = await f2.refuse('builds.update', { id: 'b', expectedVersion: 1 });
+      expect(nested).toMatchObject({ field: 'changes', message: 'changes: is required' });
+    } finally {
+      await f2.close();
+    }
+  });
+});

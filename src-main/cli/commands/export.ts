@@ -1,13 +1,13 @@
 import type { FleetFile } from '../../service/fleet/fleet-format';
 import { fleetText } from '../../service/fleet/export-fleet';
-import { CSV_KIND_ALIASES } from '../../service/fleet/csv-columns';
+import { CSV_KIND_NAMES } from '../../service/fleet/csv-columns';
 import { CliFailure } from '../cli-io';
 import { textValue, type Command } from '../command';
 import { EXIT } from '../exit-codes';
 import { callOrFail, withStore } from '../open-store';
 import { writeOutputFile } from '../write-output-file';
 
-const KINDS = Object.keys(CSV_KIND_ALIASES).join(', ');
+const KINDS = CSV_KIND_NAMES.join(', ');
 
 export const exportCommand: Command = {
   name: 'export',
@@ -26,7 +26,7 @@ follow from the records.
   async run({ positionals, values, io, dbPath }) {
     const file = positionals[0];
     const csv = textValue(values, 'csv');
-    if (csv !== undefined && !(csv in CSV_KIND_ALIASES)) throw new CliFailure(EXIT.usage, `--csv must name a part kind: ${KINDS} (not "${csv}").`);
+    if (csv !== undefined && !(CSV_KIND_NAMES as readonly string[]).includes(csv)) throw new CliFailure(EXIT.usage, `--csv must name a part kind: ${KINDS} (not "${csv}").`);
     const { text, summary } = await withStore(io, dbPath, { mustExist: true }, async (host) => {
       if (csv !== undefined) {
         const out = (await callOrFail(host, 'fleet.exportCsv', { kind: csv })) as { kind: string; text: string };

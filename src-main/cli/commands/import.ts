@@ -1,5 +1,5 @@
 import type { ImportReport } from '../../service/fleet/import-fleet';
-import { CSV_KIND_ALIASES } from '../../service/fleet/csv-columns';
+import { CSV_KIND_ALIASES, CSV_KIND_NAMES, type CsvKindName } from '../../service/fleet/csv-columns';
 import { CliFailure } from '../cli-io';
 import { flagValue, textValue, type Command } from '../command';
 import { EXIT } from '../exit-codes';
@@ -11,7 +11,7 @@ import { validateFleet } from '../../service/fleet/validate-fleet';
 import { readCsvRecords } from '../../service/fleet/fleet-csv';
 import { readInputFile } from '../read-input-file';
 
-const KINDS = Object.keys(CSV_KIND_ALIASES).join(', ');
+const KINDS = CSV_KIND_NAMES.join(', ');
 
 export const importCommand: Command = {
   name: 'import',
@@ -44,7 +44,7 @@ listed), 4 when the store cannot be opened or written.`,
     const mode = textValue(values, 'mode') ?? 'merge';
     if (mode !== 'merge' && mode !== 'replace') throw new CliFailure(EXIT.usage, `--mode must be merge or replace (not "${mode}").`);
     const csv = textValue(values, 'csv');
-    if (csv !== undefined && !(csv in CSV_KIND_ALIASES)) throw new CliFailure(EXIT.usage, `--csv must name a part kind: ${KINDS} (not "${csv}").`);
+    if (csv !== undefined && !(CSV_KIND_NAMES as readonly string[]).includes(csv)) throw new CliFailure(EXIT.usage, `--csv must name a part kind: ${KINDS} (not "${csv}").`);
     if (csv !== undefined && mode === 'replace') throw new CliFailure(EXIT.usage, '--csv imports always merge: a CSV holds one kind of part, and replacing would drop every other record.');
     const dryRun = flagValue(values, 'dry-run');
     const reason = textValue(values, 'reason') ?? '';
@@ -66,7 +66,7 @@ listed), 4 when the store cannot be opened or written.`,
 
 /** The checks that need no store: the file reads, and every record passes its schema. */
 function looksImportable(text: string, csv: string | undefined): boolean {
-  if (csv !== undefined) return readCsvRecords(CSV_KIND_ALIASES[csv]!, text).ok;
+  if (csv !== undefined) return readCsvRecords(CSV_KIND_ALIASES[csv as CsvKindName], text).ok;
   const read = readJsonText(text);
   return read.ok && validateFleet(read.value).problems.length === 0;
 }

@@ -9,14 +9,16 @@
 // for a field that has one.
 
 import type * as v from 'valibot';
-import type { FleetPartKind } from './fleet-format';
 import { FIELD_ORDER, fleetRecordSchemas } from './fleet-schemas';
 
 export const CSV_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles'] as const;
 export type CsvKind = (typeof CSV_KINDS)[number];
 
-/** The word a person types for a kind (`packs`) next to the file's own (`batteries`). */
-export const CSV_KIND_ALIASES: Readonly<Record<string, CsvKind>> = {
+/** The words a caller may name a kind with: the trade's (`packs`) and the file's own (`batteries`). */
+export const CSV_KIND_NAMES = ['packs', 'batteries', 'motors', 'controllers', 'propellers', 'vehicles'] as const;
+export type CsvKindName = (typeof CSV_KIND_NAMES)[number];
+
+export const CSV_KIND_ALIASES: Readonly<Record<CsvKindName, CsvKind>> = {
   packs: 'batteries',
   batteries: 'batteries',
   motors: 'motors',
@@ -88,5 +90,3 @@ export function fromCell(column: CsvColumn, cell: string): unknown {
   if (cell === '' && column.nullable) return null;
   return unescapeFormula(cell);
 }
-
-export type { FleetPartKind };

@@ -22,16 +22,10 @@ export interface FleetRecords {
   builds: Build[];
 }
 
-export type FleetRecord<K extends FleetKind> = FleetRecords[K][number];
-
 /** A whole file. `classRules` is optional on reading; an export always writes it. */
 export interface FleetFile extends FleetRecords {
   format: typeof FLEET_FORMAT;
   version: typeof FLEET_VERSION;
-}
-
-export function emptyFleet(): FleetFile {
-  return { format: FLEET_FORMAT, version: FLEET_VERSION, batteries: [], motors: [], controllers: [], propellers: [], vehicles: [], classRules: [], builds: [] };
 }
 
 /** How problems and counts name each kind, in the trade's words. */

@@ -10,10 +10,16 @@ export function problemLine(p: FleetProblem): string {
   return p.place === '' ? p.message : `${p.place}: ${p.message}`;
 }
 
-/** Appends a path segment: `[3]` for a list position, `.name` for a field. */
+const PLAIN_KEY = /^[A-Za-z_$][A-Za-z0-9_$]*$/;
+
+/** Appends a path segment: `[3]` for a list position, `.name` for a field, `["odd key"]` for a key that is not a plain name. */
 export function placeOf(prefix: string, ...keys: readonly (string | number)[]): string {
   let out = prefix;
-  for (const key of keys) out += typeof key === 'number' ? `[${key}]` : out === '' ? key : `.${key}`;
+  for (const key of keys) {
+    if (typeof key === 'number') out += `[${key}]`;
+    else if (!PLAIN_KEY.test(key)) out += `[${JSON.stringify(key)}]`;
+    else out += out === '' ? key : `.${key}`;
+  }
   return out;
 }
 
@@ -34,10 +40,21 @@ export function schemaProblems<S extends v.GenericSchema>(
   schema: S,
   value: unknown,
   prefix: string,
+  knownKeys?: ReadonlySet<string>,
 ): { ok: true; output: v.InferOutput<S> } | { ok: false; problems: FleetProblem[] } {
   const result = v.safeParse(schema, value, { abortPipeEarly: true });
   if (result.success) return { ok: true, output: result.output };
-  return { ok: false, problems: result.issues.map((issue) => issueProblem(prefix, issue)) };
+  let problems = result.issues.map((issue) => issueProblem(prefix, issue));
+  if (knownKeys && typeof value === 'object' && value !== null && !Array.isArray(value)) {
+    // The schema stops at the first field it does not know; a file may have several.
+    const unknown = Object.keys(value).filter((k) => !knownKeys.has(k));
+    if (unknown.length > 1) {
+      const first = placeOf(prefix, unknown[0]!);
+      problems = problems.filter((p) => p.place !== first);
+      for (const key of unknown) problems.push({ place: placeOf(prefix, key), message: 'is not a field Rigbook knows' });
+    }
+  }
+  return { ok: false, problems };
 }
 
 const LEADING = /^([A-Za-z]+)\[(\d+)\]/;

@@ -32,8 +32,6 @@ export const fleetRecordSchemas = {
   builds: fileRecord(buildCreateSchema.entries),
 } as const;
 
-export type FleetRecordOutput<K extends FleetKind> = v.InferOutput<(typeof fleetRecordSchemas)[K]>;
-
 /** Field order of each kind in files and CSV headers: id first, then the fields as the forms list them, then bookkeeping. */
 export const FIELD_ORDER: Readonly<Record<FleetKind, readonly string[]>> = {
   batteries: Object.keys(fleetRecordSchemas.batteries.entries),

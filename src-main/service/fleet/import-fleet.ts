@@ -218,10 +218,7 @@ async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, 
   written.counts.builds = { added: addedBuilds.length, updated: changedBuilds.length, unchanged: fleet.builds.length - addedBuilds.length - changedBuilds.length };
   written.changedIds.builds = [...addedBuilds, ...changedBuilds].map((b) => b.id);
   // Supplies of every rewritten build go first, so one may move a supply id to another.
-  await deleteSuppliesOf(
-    trx,
-    changedBuilds.map((b) => b.id),
-  );
+  await deleteSuppliesOf(trx, changedBuilds.map((b) => b.id));
   for (const build of changedBuilds) {
     const { id, version: _fileVersion, supplies: _supplies, ...fields } = build;
     const n = await updateBuildAtVersion(trx, id, storedBuilds.get(id)!.version, fields, at);

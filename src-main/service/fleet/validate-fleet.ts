@@ -93,6 +93,7 @@ export function validateFleet(input: unknown, onProgress?: OnProgress): FleetVal
     if (!list) continue;
     const firstAt = new Map<string, number>();
     const schema = fleetRecordSchemas[kind];
+    const knownKeys = new Set(Object.keys(schema.entries));
     const out = fleet[kind] as unknown[];
     list.forEach((raw, index) => {
       const place = placeOf(kind, index);
@@ -105,7 +106,7 @@ export function validateFleet(input: unknown, onProgress?: OnProgress): FleetVal
           if (kind === 'builds') duplicateBuilds.add(index);
         } else firstAt.set(rawId, index);
       }
-      const parsed = schemaProblems(schema, raw, place);
+      const parsed = schemaProblems(schema, raw, place, knownKeys);
       if (parsed.ok) {
         out.push(parsed.output);
         if (kind === 'builds') buildPlaces.push(index);

@@ -106,7 +106,7 @@ export const createBuild = defineHandler(buildCreateSchema, async (ctx, input) =
       recheck: [buildId],
       changed: { kind: 'builds', ids: [buildId] },
     };
-  });
+  }, { messages: true });
   return { record: outcome.result, verdict: outcome.verdicts[0] ?? null };
 });
 
@@ -116,6 +116,8 @@ async function writeBuildPatch(
   action: string,
   options: { preview?: boolean } = {},
 ): Promise<WriteOutcome<Build>> {
+  // One build: its verdict goes back to the form with the findings' sentences.
+  const writeOptions = { ...options, messages: true };
   const { supplies, ...rest } = input.changes;
   const patch = { ...rest, ...(supplies ? { supplies: withSupplyIds(ctx, supplies) } : {}) };
   return runWrite(
@@ -142,7 +144,7 @@ async function writeBuildPatch(
         changed: { kind: 'builds', ids: [input.id] },
       };
     },
-    options,
+    writeOptions,
   );
 }
 
@@ -192,6 +194,6 @@ export const previewChange = defineHandler(previewInput, async (ctx, input) => {
   }
   const ids = outcome.verdicts.map((x) => x.buildId);
   const settings = await readSettings(ctx.db);
-  const before = (await loadBuildContexts(ctx.db, byIds(ids), settings.tightThreshold)).map(evaluateBuild);
+  const before = (await loadBuildContexts(ctx.db, byIds(ids), settings.tightThreshold)).map((context) => evaluateBuild(context));
   return { before, after: outcome.verdicts, verdictChanges: outcome.verdictChanges };
 });

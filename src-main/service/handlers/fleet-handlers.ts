@@ -3,7 +3,7 @@ import type { ServiceContext } from '../service-context';
 import { ServiceError } from '../contract';
 import { defineHandler } from '../define-handler';
 import { flag, oneOf, record, text } from '../schemas/field-builders';
-import { CSV_KIND_ALIASES } from '../fleet/csv-columns';
+import { CSV_KIND_ALIASES, CSV_KIND_NAMES } from '../fleet/csv-columns';
 import { exportFleet } from '../fleet/export-fleet';
 import { exportCsv, importCsv } from '../fleet/fleet-csv';
 import { IMPORT_MODES, importFleet, importFleetText } from '../fleet/import-fleet';
@@ -14,7 +14,7 @@ const MAX_FILE_CHARS = 256 * 1024 * 1024;
 
 const reason = () => v.optional(text(500), '');
 const fileText = () => v.pipe(v.string('must be text'), v.maxLength(MAX_FILE_CHARS, 'is too large for one import (split the file)'));
-const csvKind = () => oneOf(Object.keys(CSV_KIND_ALIASES) as [string, ...string[]]);
+const csvKind = () => oneOf(CSV_KIND_NAMES);
 
 /** Progress of a long task, as service events a window can show as a bar. */
 export function progressEvents(ctx: ServiceContext, kind: string): OnProgress {
@@ -46,12 +46,12 @@ export const importFleetHandler = defineHandler(
 
 /** One part kind as CSV text (`packs` and `batteries` name the same kind). */
 export const exportCsvHandler = defineHandler(record({ kind: csvKind() }), async (ctx, input) => {
-  const kind = CSV_KIND_ALIASES[input.kind]!;
+  const kind = CSV_KIND_ALIASES[input.kind];
   return { kind, text: await exportCsv(ctx.db, kind) };
 });
 
 /** Merges a CSV of one part kind; the report names each problem by row and column. */
 export const importCsvHandler = defineHandler(
   record({ kind: csvKind(), text: fileText(), dryRun: v.optional(flag(), false), reason: reason() }),
-  async (ctx, input) => importCsv(ctx, CSV_KIND_ALIASES[input.kind]!, input.text, { dryRun: input.dryRun, reason: input.reason, onProgress: progressEvents(ctx, 'fleet') }),
+  async (ctx, input) => importCsv(ctx, CSV_KIND_ALIASES[input.kind], input.text, { dryRun: input.dryRun, reason: input.reason, onProgress: progressEvents(ctx, 'fleet') }),
 );

@@ -75,6 +75,38 @@ export async function loadBuilds(db: DbHandle, selector: BuildSelector): Promise
   return rows.map((row) => rowToBuild(row, supplies.get(row.id) ?? []));
 }
 
+/** The columns the evaluation reads; a re-check of thousands of builds skips the rest. */
+const EVALUATION_COLUMNS = [
+  'id',
+  'vehicleId',
+  'motorId',
+  'motorCount',
+  'controllerId',
+  'propellerId',
+  'pinionTeeth',
+  'spurTeeth',
+  'internalRatio',
+  'tireDiameterMm',
+  'drivetrainEfficiency',
+  'measuredPeakCurrentA',
+  'measuredAverageCurrentA',
+  'tightThreshold',
+] as const;
+
+/**
+ * The selected builds as the evaluation needs them: name, notes and bookkeeping are left
+ * empty. For the re-check and the sheet's verdict only, never for showing or saving a record.
+ */
+export async function loadBuildsForEvaluation(db: DbHandle, selector: BuildSelector): Promise<Build[]> {
+  const supplies = await loadSupplies(db, selector);
+  const rows = await db
+    .selectFrom('builds')
+    .select(EVALUATION_COLUMNS)
+    .where((eb) => selectorCondition(db, eb, selector))
+    .execute();
+  return rows.map((row) => rowToBuild({ ...row, name: '', notes: '', version: 0, archivedAt: null, createdAt: '', updatedAt: '' }, supplies.get(row.id) ?? []));
+}
+
 export async function getBuilds(db: DbHandle, ids: readonly string[]): Promise<Build[]> {
   const out: Build[] = [];
   for (const part of chunks([...new Set(ids)])) out.push(...(await loadBuilds(db, byIds(part))));

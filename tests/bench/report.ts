@@ -1,0 +1,90 @@
+// The benchmark's table: every figure beside its budget from DESIGN.md §9 and whether it met
+// it. A slow figure is reported, never thrown: the benchmark informs, it does not gate.
+
+export interface Budget {
+  /** The figure must stay at or under this, in the figure's own unit. */
+  max: number;
+  /** The budget as DESIGN.md §9 words it. */
+  text: string;
+}
+
+export interface Figure {
+  group: string;
+  name: string;
+  /** The median, unless the name says otherwise. */
+  value: number;
+  unit: 'µs' | 'ms' | 's' | 'MB' | '×' | 'rows';
+  /** Worst run, spread or anything else worth reading beside the median. */
+  detail?: string;
+  budget?: Budget;
+}
+
+/** Budgets of DESIGN.md §9, quoted so the table says what each figure is held to. */
+export const BUDGETS = {
+  evaluation: { max: 20, text: '< 20 µs (one build evaluation)' },
+  operatingPoint: { max: 2, text: '< 2 µs (one motor operating point)' },
+  recheck10k: { max: 300, text: '< 300 ms whole transaction, 10 000 builds' },
+  recheckVsFloor: { max: 2, text: '≤ 2× the raw floor' },
+  firstRows: { max: 150, text: '< 150 ms data arrives → first rows' },
+  keystroke: { max: 16, text: '< 16 ms a keystroke' },
+  coldStart: { max: 1500, text: '< 1.5 s cold start → usable list' },
+} as const satisfies Record<string, Budget>;
+
+export function formatValue(value: number, unit: Figure['unit']): string {
+  if (!Number.isFinite(value)) return 'n/a';
+  const digits = unit === 'µs' ? (value < 10 ? 2 : 1) : unit === '×' ? 2 : unit === 'rows' || unit === 'MB' ? 0 : value < 10 ? 2 : value < 100 ? 1 : 0;
+  const text = value.toLocaleString('en-US', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+  return unit === '×' ? `${text}×` : `${text} ${unit}`;
+}
+
+export function verdictOf(figure: Figure): 'met' | 'NOT MET' | '' {
+  if (!figure.budget) return '';
+  if (!Number.isFinite(figure.value)) return 'NOT MET';
+  return figure.value <= figure.budget.max ? 'met' : 'NOT MET';
+}
+
+function pad(text: string, width: number, right = false): string {
+  const len = [...text].length;
+  if (len >= width) return text;
+  return right ? ' '.repeat(width - len) + text : text + ' '.repeat(width - len);
+}
+
+/** A plain-text table, one group after another. */
+export function renderTable(figures: readonly Figure[]): string {
+  const rows = figures.map((f) => ({
+    group: f.group,
+    name: f.name,
+    value: formatValue(f.value, f.unit),
+    detail: f.detail ?? '',
+    budget: f.budget?.text ?? '—',
+    verdict: verdictOf(f),
+  }));
+  const w = {
+    name: Math.max(6, ...rows.map((r) => [...r.name].length)),
+    value: Math.max(6, ...rows.map((r) => [...r.value].length)),
+    detail: Math.max(6, ...rows.map((r) => [...r.detail].length)),
+    budget: Math.max(6, ...rows.map((r) => [...r.budget].length)),
+  };
+  const lines: string[] = [];
+  const header = `${pad('Figure', w.name)}  ${pad('Median', w.value, true)}  ${pad('Detail', w.detail)}  ${pad('Budget (DESIGN §9)', w.budget)}  Verdict`;
+  lines.push(header, '-'.repeat([...header].length + 2));
+  let group = '';
+  for (const r of rows) {
+    if (r.group !== group) {
+      if (group !== '') lines.push('');
+      lines.push(`[${r.group}]`);
+      group = r.group;
+    }
+    lines.push(`${pad(r.name, w.name)}  ${pad(r.value, w.value, true)}  ${pad(r.detail, w.detail)}  ${pad(r.budget, w.budget)}  ${r.verdict}`);
+  }
+  return lines.join('\n');
+}
+
+/** The same figures as a Markdown table, for pasting into DEVELOPERS.md. */
+export function renderMarkdown(figures: readonly Figure[]): string {
+  const lines = ['| Figure | Median | Detail | Budget (DESIGN §9) | |', '|---|---:|---|---|---|'];
+  for (const f of figures) {
+    lines.push(`| ${f.group}: ${f.name} | ${formatValue(f.value, f.unit)} | ${f.detail ?? ''} | ${f.budget?.text ?? '—'} | ${verdictOf(f)} |`);
+  }
+  return lines.join('\n');
+}
