@@ -40,6 +40,10 @@ class PreviewRollback<R> extends Error {
  * back, so a preview shows exactly what saving would do. Verdicts returned carry the findings'
  * sentences only for a preview or when asked (`messages`): a re-check of thousands of builds
  * stores statuses, and the sheet composes the sentences when it is read.
+ *
+ * The transaction is SQLite's default (deferred). A second program writing at the same moment
+ * is refused at once as a `conflict` ("busy, try again") rather than made to wait: better-sqlite3
+ * waits synchronously, so waiting for the lock would freeze the window or the server meanwhile.
  */
 export async function runWrite<R>(
   ctx: ServiceContext,

@@ -1,6 +1,7 @@
 import type { Status, VehicleKind } from '../../../src-main/core/domain';
 import { statusRank } from '../verdict/status-words';
 import type { BuildSummary } from './build-summary';
+import { collator, compareText, textOrderKey } from './text-order';
 
 export interface BuildFilter {
   text: string;
@@ -57,7 +58,23 @@ export function filterSummaries(rows: readonly BuildSummary[], filter: BuildFilt
   return out;
 }
 
-const collator = new Intl.Collator('en', { sensitivity: 'base', numeric: true });
+const sameList = <T>(a: readonly T[], b: readonly T[]) => a.length === b.length && a.every((x, i) => x === b[i]);
+
+/**
+ * True when every row `next` lets through, `previous` let through too, so the next filter may
+ * run over the previous result instead of every build: only the search text grew, at its end
+ * (each typed word then still holds the word it extends). Typing forward narrows; a deletion
+ * does not.
+ */
+export function narrows(previous: BuildFilter, next: BuildFilter): boolean {
+  return (
+    previous.owner === next.owner &&
+    previous.partId === next.partId &&
+    sameList(previous.statuses, next.statuses) &&
+    sameList(previous.kinds, next.kinds) &&
+    next.text.toLowerCase().startsWith(previous.text.toLowerCase())
+  );
+}
 
 function numberOrNull(a: number | null, b: number | null): number {
   // Missing figures sort last whichever way the column is sorted.
@@ -72,25 +89,46 @@ export function peakShare(s: BuildSummary): number | null {
   return s.peakCurrentA !== null && s.peakCurrentLimitA !== null && s.peakCurrentLimitA > 0 ? s.peakCurrentA / s.peakCurrentLimitA : null;
 }
 
+const TEXT_COLUMN: Partial<Record<SortKey, (s: BuildSummary) => string>> = {
+  name: (s) => s.name,
+  vehicle: (s) => s.vehicleName,
+  owner: (s) => s.owner,
+  supply: (s) => s.supplyLabels.join(', '),
+};
+
+/** A row with its sort keys worked out once, not once per comparison. */
+interface Keyed {
+  s: BuildSummary;
+  nameKey: string | null;
+  text: string;
+  textKey: string | null;
+}
+
 export function sortSummaries(rows: readonly BuildSummary[], key: SortKey, dir: SortDir): BuildSummary[] {
-  const text = (pick: (s: BuildSummary) => string) => (a: BuildSummary, b: BuildSummary) => dir * collator.compare(pick(a), pick(b));
-  const num = (pick: (s: BuildSummary) => number | null) => (a: BuildSummary, b: BuildSummary) => {
-    const d = numberOrNull(pick(a), pick(b));
+  const column = TEXT_COLUMN[key];
+  const keyed: Keyed[] = rows.map((s) => {
+    const text = column ? column(s) : '';
+    return { s, nameKey: textOrderKey(s.name), text, textKey: column ? textOrderKey(text) : null };
+  });
+  const num = (pick: (s: BuildSummary) => number | null) => (a: Keyed, b: Keyed) => {
+    const d = numberOrNull(pick(a.s), pick(b.s));
     return Number.isFinite(d) ? dir * d : d;
   };
-  const compare: Record<SortKey, (a: BuildSummary, b: BuildSummary) => number> = {
-    status: (a, b) => dir * (statusRank(a.status) - statusRank(b.status)),
-    name: text((s) => s.name),
-    vehicle: text((s) => s.vehicleName),
-    owner: text((s) => s.owner),
-    supply: text((s) => s.supplyLabels.join(', ')),
+  const text = (a: Keyed, b: Keyed) => dir * compareText(a.text, a.textKey, b.text, b.textKey);
+  const compare: Record<SortKey, (a: Keyed, b: Keyed) => number> = {
+    status: (a, b) => dir * (statusRank(a.s.status) - statusRank(b.s.status)),
+    name: text,
+    vehicle: text,
+    owner: text,
+    supply: text,
     voltage: num((s) => s.supplyVoltageFullV),
     speed: num((s) => s.theoreticalSpeedKmh),
     peak: num(peakShare),
   };
   const byKey = compare[key];
   // Ties keep a stable, readable order: by name, then id.
-  return [...rows].sort((a, b) => byKey(a, b) || collator.compare(a.name, b.name) || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+  keyed.sort((a, b) => byKey(a, b) || compareText(a.s.name, a.nameKey, b.s.name, b.nameKey) || (a.s.id < b.s.id ? -1 : a.s.id > b.s.id ? 1 : 0));
+  return keyed.map((k) => k.s);
 }
 
 /** Owners present in the list, for the owner filter. */

@@ -2,7 +2,13 @@ import type { Status, VehicleKind } from '../../../src-main/core/domain';
 import type { ServiceEvent } from '../../../src-main/service/contract';
 import { asApiError, type Client } from '../api/client';
 import type { BuildSummary } from '../builds/build-summary';
-import { countByStatus, filterSummaries, haystackOf, ownersOf, sortSummaries, type SortDir, type SortKey } from '../builds/build-filter';
+import { countByStatus, filterSummaries, haystackOf, narrows, ownersOf, sortSummaries, type BuildFilter, type SortDir, type SortKey } from '../builds/build-filter';
+
+/** Runs work when the page is idle (after the next frame where idle callbacks are missing). */
+function later(work: (deadline?: { timeRemaining(): number }) => void): void {
+  if (typeof requestIdleCallback === 'function') requestIdleCallback(work, { timeout: 1000 });
+  else setTimeout(work, 16);
+}
 
 /**
  * Every build's summary, loaded once; sorting, filtering and search run here, on the client,
@@ -25,11 +31,17 @@ export class BuildsListState {
   /** Build ids whose rows changed by an event in the last moments, to draw the eye. */
   recentlyChanged = $state.raw<ReadonlySet<string>>(new Set());
 
-  haystacks = $derived(new Map(this.all.map((s) => [s.id, haystackOf(s)])));
+  /**
+   * The lower-cased text search looks in, by build id. Not reactive and not built with the
+   * list: it is filled in idle time once the rows are on screen (see #prepareSearch), and the
+   * filter works out any entry still missing itself, so the answer is the same either way.
+   */
+  #haystacks = new Map<string, string>();
+  #preparing = 0;
+  /** The last filter's input and answer: a keystroke that only narrows it filters that answer again. */
+  #lastFilter: { from: readonly BuildSummary[]; filter: BuildFilter; result: BuildSummary[] } | null = null;
   sorted = $derived(sortSummaries(this.all, this.sortKey, this.sortDir));
-  visible = $derived(
-    filterSummaries(this.sorted, { text: this.text, statuses: this.statuses, kinds: this.kinds, owner: this.owner, partId: this.partId }, this.haystacks),
-  );
+  visible = $derived(this.#filter(this.sorted, { text: this.text, statuses: this.statuses, kinds: this.kinds, owner: this.owner, partId: this.partId }));
   owners = $derived(ownersOf(this.all));
   counts = $derived(countByStatus(this.all));
   selectedIndex = $derived(this.selectedId === null ? -1 : this.visible.findIndex((s) => s.id === this.selectedId));
@@ -45,13 +57,45 @@ export class BuildsListState {
       const rows = await this.client.call('builds.list', {});
       // For the benchmark: the time from here to the first row on screen is a budget.
       performance.mark('rigbook:builds-data');
+      this.#haystacks = new Map();
       this.all = rows;
       this.error = null;
+      this.#prepareSearch(rows);
     } catch (error) {
       this.error = asApiError(error).message;
     } finally {
       this.loaded = true;
     }
+  }
+
+  #filter(sorted: readonly BuildSummary[], filter: BuildFilter): BuildSummary[] {
+    const last = this.#lastFilter;
+    const from = last !== null && last.from === sorted && narrows(last.filter, filter) ? last.result : sorted;
+    const result = filterSummaries(from, filter, this.#haystacks);
+    this.#lastFilter = { from: sorted, filter, result };
+    return result;
+  }
+
+  /**
+   * Builds the search texts a slice at a time when the page is idle, so the first rows are not
+   * kept waiting for 10 000 of them and typing finds them ready. A newer load stops an older fill.
+   */
+  #prepareSearch(rows: readonly BuildSummary[]): void {
+    const run = ++this.#preparing;
+    const haystacks = this.#haystacks;
+    let next = 0;
+    const step = (deadline?: { timeRemaining(): number }) => {
+      if (run !== this.#preparing) return;
+      const until = performance.now() + Math.max(4, Math.min(12, deadline?.timeRemaining() ?? 8));
+      while (next < rows.length && performance.now() < until) {
+        for (const end = Math.min(rows.length, next + 250); next < end; next++) {
+          const s = rows[next]!;
+          if (!haystacks.has(s.id)) haystacks.set(s.id, haystackOf(s));
+        }
+      }
+      if (next < rows.length) later(step);
+    };
+    later(step);
   }
 
   /** Follows the service's change events; returns the function that stops. */
@@ -60,6 +104,7 @@ export class BuildsListState {
     return () => {
       stop();
       if (this.#timer) clearTimeout(this.#timer);
+      this.#preparing += 1;
     };
   }
 

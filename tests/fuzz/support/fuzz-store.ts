@@ -1,5 +1,5 @@
 import Database from 'better-sqlite3';
-import { copyFileSync, existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdtempSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { openServiceHost } from '../../../src-main/service/open-service-host';
@@ -17,6 +17,11 @@ type Host = Awaited<ReturnType<typeof openServiceHost>>;
  */
 export function fuzzDir(): { dir: string; remove: () => void } {
   const base = existsSync('/dev/shm') ? '/dev/shm' : tmpdir();
+  // A run killed before its cleanup leaves its folder in memory; one a day old is nobody's any more.
+  for (const name of readdirSync(base)) {
+    const old = path.join(base, name);
+    if (name.startsWith('rigbook-fuzz-') && Date.now() - statSync(old).mtimeMs > 24 * 3600 * 1000) rmSync(old, { recursive: true, force: true });
+  }
   const dir = mkdtempSync(path.join(base, 'rigbook-fuzz-'));
   return { dir, remove: () => rmSync(dir, { recursive: true, force: true }) };
 }

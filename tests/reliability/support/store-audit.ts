@@ -4,6 +4,7 @@ import type { Build, BuildContext, BuildVerdict, Status } from '../../../src-mai
 import type { ServiceHost } from '../../../src-main/service/contract';
 import type { ServiceContext } from '../../../src-main/service/service-context';
 import { loadBuildContexts } from '../../../src-main/service/recheck';
+import { loadBuilds } from '../../../src-main/store/repositories/builds';
 import { canonical } from './random';
 
 // Checks a store for the promises the write path makes: the file is sound, every record
@@ -71,14 +72,15 @@ export type StoreRecords = Record<RecordKind, StoredRecord[]> & { verdicts: Map<
 
 /**
  * Every record of every kind, archived or not: parts as the list handlers return them, builds
- * as the re-check loads them (the same repository `builds.get` reads), with the stored verdicts.
+ * as the builds repository loads them, with the stored verdicts and the evaluation contexts.
  */
 export async function readRecords(host: Host): Promise<StoreRecords> {
   const out = { verdicts: new Map() } as StoreRecords;
   for (const kind of PART_KINDS) out[kind] = await ok<StoredRecord[]>(host, `${kind}.list`, { includeArchived: true });
   const settings = await ok<{ tightThreshold: number }>(host, 'settings.get', {});
   out.contexts = await loadBuildContexts(host.ctx.db, { by: 'all' }, settings.tightThreshold);
-  out.builds = out.contexts.map((c) => c.build as unknown as StoredRecord);
+  // The evaluation loads builds lean (no name, notes or version); records come whole from the repository `builds.get` reads.
+  out.builds = (await loadBuilds(host.ctx.db, { by: 'all' })) as unknown as StoredRecord[];
   const rows = await host.ctx.db.selectFrom('verdicts').select(['buildId', 'status', 'supplyStatuses']).execute();
   for (const row of rows) {
     // Stored as `supplyId=status` pairs joined by commas (store/schema.ts).

@@ -1,0 +1,260 @@
+// `npm run bench`: shop-scale performance against the budgets of DESIGN.md §9. Generates fleets
+// of 1 000 and 10 000 builds into real SQLite files in a temp folder (through the real
+// `fleet.import` handler), then prints the median of several runs of each figure beside its
+// budget. A slow figure never fails the run: the benchmark reports, it does not gate. It exits
+// 1 only when a part of it could not run at all (no Chromium, a refused import), after printing
+// what it did measure.
+//
+//   RIGBOOK_BENCH_RUNS=5      runs per figure (default 5)
+//   RIGBOOK_BENCH_BROWSER=0   skip the Chromium part (cold start, keystrokes, memory)
+//   RIGBOOK_BENCH_KEEP=1      keep the temp folder with the generated stores
+//   --markdown                also print the table as Markdown
+
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, rmSync, statSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { benchCore } from './core-bench';
+import { benchVariedEvaluation, type VariedEvaluation } from './evaluation-bench';
+import { makeStore, type BenchStore } from './fleet-stores';
+import { benchListQueries } from './list-query-bench';
+import { benchRecheck, summary, type RecheckBench } from './recheck-bench';
+import { BUDGETS, renderMarkdown, renderTable, type Figure } from './report';
+import { benchShell, type ShellBench } from './shell-bench';
+import { median, worst } from './stats';
+
+const RUNS = Math.max(1, Number(process.env.RIGBOOK_BENCH_RUNS ?? 5) || 5);
+const BROWSER = process.env.RIGBOOK_BENCH_BROWSER !== '0';
+const KEEP = process.env.RIGBOOK_BENCH_KEEP === '1';
+
+const figures: Figure[] = [];
+const notes: string[] = [];
+const failures: string[] = [];
+
+function log(line: string): void {
+  process.stdout.write(`${line}\n`);
+}
+
+function uptime(): string {
+  try {
+    return execFileSync('uptime', { encoding: 'utf8' }).trim();
+  } catch {
+    return `load average: ${os.loadavg().map((l) => l.toFixed(2)).join(', ')}`;
+  }
+}
+
+async function section(name: string, body: () => Promise<void>): Promise<void> {
+  const started = performance.now();
+  log(`… ${name}`);
+  try {
+    await body();
+    log(`  done in ${((performance.now() - started) / 1000).toFixed(1)} s`);
+  } catch (error) {
+    const message = error instanceof Error ? (error.stack ?? error.message) : String(error);
+    failures.push(`${name}: ${message.split('\n')[0]}`);
+    log(`  FAILED: ${message}`);
+  }
+}
+
+const ms = (n: number) => `${n.toFixed(n < 10 ? 1 : 0)} ms`;
+
+function recheckFigures(b: RecheckBench, budgeted: boolean): void {
+  const s = summary(b);
+  const group = `Re-check after editing a motor used by ${b.builds.toLocaleString('en-US')} builds`;
+  figures.push({
+    group,
+    name: 'motors.update through host.call (whole transaction)',
+    value: s.serviceMedian,
+    unit: 'ms',
+    detail: `worst ${ms(s.serviceWorst)}, ${b.serviceMs.length} runs, ${b.rechecked.toLocaleString('en-US')} re-checked`,
+    ...(budgeted ? { budget: BUDGETS.recheck10k } : {}),
+  });
+  figures.push({
+    group,
+    name: 'raw floor: prepared statements, same reads + evaluation + writes',
+    value: s.floorMedian,
+    unit: 'ms',
+    detail: `worst ${ms(s.floorWorst)}; read ${ms(b.floorPhases.read)}, evaluate ${ms(b.floorPhases.evaluate)}, write ${ms(b.floorPhases.write)}, commit ${ms(b.floorPhases.commit)}`,
+  });
+  figures.push({
+    group,
+    name: 'service ÷ raw floor',
+    value: s.ratio,
+    unit: '×',
+    detail: b.sameRows ? 'floor wrote the same verdict rows' : 'WARNING: floor and service verdict rows differ',
+    ...(budgeted ? { budget: BUDGETS.recheckVsFloor } : {}),
+  });
+  if (typeof b.servicePhases === 'string') notes.push(`Service path at ${b.builds} builds: ${b.servicePhases}`);
+  else {
+    notes.push(
+      `Service path at ${b.builds.toLocaleString('en-US')} builds, step by step (median of ${Math.min(3, RUNS)}, rolled back): ` +
+        Object.entries(b.servicePhases)
+          .map(([k, v]) => `${k} ${ms(v)}`)
+          .join(', '),
+    );
+  }
+}
+
+async function main(): Promise<void> {
+  const startedAt = performance.now();
+  const loadBefore = uptime();
+  log('Rigbook benchmark — shop-scale performance against DESIGN.md §9');
+  log(`machine: ${os.cpus().length} cores (${os.cpus()[0]?.model ?? 'unknown'}), ${Math.round(os.totalmem() / 2 ** 30)} GiB, Node ${process.version}, ${os.platform()} ${os.release()}`);
+  log(`shared machine — load before: ${loadBefore}`);
+  log(`runs per figure: ${RUNS} (medians below)\n`);
+
+  const folder = mkdtempSync(path.join(os.tmpdir(), 'rigbook-bench-'));
+  const stores: Record<number, BenchStore> = {};
+  try {
+    await section('core micro-benchmark (one context, repeated)', async () => {
+      for (const r of await benchCore()) {
+        const budget = r.name.startsWith('evaluateBuild') ? BUDGETS.evaluation : r.name.startsWith('motor operating point') ? BUDGETS.operatingPoint : undefined;
+        figures.push({ group: 'Core', name: r.name, value: r.medianUs, unit: 'µs', detail: 'one context, repeated', ...(budget ? { budget } : {}) });
+      }
+    });
+
+    await section('generating fleets and importing them through fleet.import', async () => {
+      for (const n of [1000, 10_000]) {
+        stores[n] = await makeStore(folder, n);
+        const s = stores[n];
+        const size = statSync(s.dbPath).size / 2 ** 20;
+        log(`  ${n} builds: import ${ms(s.importMs)}, ${size.toFixed(1)} MiB, verdicts ${JSON.stringify(s.statuses)}`);
+        figures.push({ group: 'Setup (one run each, for reference)', name: `fleet.import of ${n.toLocaleString('en-US')} generated builds (replace)`, value: s.importMs, unit: 'ms', detail: `${size.toFixed(1)} MiB store` });
+      }
+    });
+    const big = stores[10_000];
+    const small = stores[1000];
+
+    await section('evaluation over 10 000 varied builds', async () => {
+      if (!big) throw new Error('no 10 000-build store');
+      const e: VariedEvaluation = await benchVariedEvaluation(big.dbPath, RUNS);
+      const detail = (w: number) => `mean over ${e.builds.toLocaleString('en-US')} different builds; worst run ${w.toFixed(2)} µs`;
+      figures.push({ group: 'Core', name: 'evaluateBuild, varied builds, messages: false', value: e.statusOnlyUs, unit: 'µs', detail: detail(e.statusOnlyWorstUs), budget: BUDGETS.evaluation });
+      figures.push({ group: 'Core', name: 'evaluateBuild, varied builds, with messages', value: e.withMessagesUs, unit: 'µs', detail: detail(e.withMessagesWorstUs), budget: BUDGETS.evaluation });
+      notes.push(`loadBuildContexts for all ${e.builds.toLocaleString('en-US')} builds (once, outside the timing): ${ms(e.loadMs)}`);
+    });
+
+    await section('re-check at 1 000 builds (service and raw floor, alternating)', async () => {
+      if (!small) throw new Error('no 1 000-build store');
+      recheckFigures(await benchRecheck(small.dbPath, RUNS), false);
+    });
+    await section('re-check at 10 000 builds (service and raw floor, alternating)', async () => {
+      if (!big) throw new Error('no 10 000-build store');
+      recheckFigures(await benchRecheck(big.dbPath, RUNS), true);
+    });
+
+    await section('builds.list at 10 000 builds', async () => {
+      if (!big) throw new Error('no 10 000-build store');
+      for (const q of await benchListQueries(big.dbPath, RUNS)) {
+        figures.push({
+          group: 'Builds list query, 10 000 builds (builds.list through host.call)',
+          name: q.name,
+          value: q.medianMs,
+          unit: 'ms',
+          detail: `worst ${ms(q.worstMs)}, ${q.rows.toLocaleString('en-US')} rows, ${(q.jsonBytes / 2 ** 20).toFixed(1)} MiB as JSON`,
+        });
+      }
+    });
+
+    if (BROWSER) {
+      await section('loopback shell in Chromium: cold start, keystrokes, memory', async () => {
+        if (!big) throw new Error('no 10 000-build store');
+        const sh: ShellBench = await benchShell(big.dbPath, RUNS, RUNS, log);
+        const g = 'Loopback shell, 10 000 builds, real Chromium';
+        const starts = sh.starts;
+        const med = (pick: (c: (typeof starts)[number]) => number | null) => median(starts.map(pick).filter((x): x is number => x !== null));
+        figures.push({
+          group: g,
+          name: 'cold start: process start → first rows painted',
+          value: med((c) => c.totalMs),
+          unit: 'ms',
+          detail: `worst ${ms(worst(starts.map((c) => c.totalMs)))}; serving ${ms(med((c) => c.serveMs))}, → data ${ms(med((c) => c.toDataMs))}, → rows ${ms(med((c) => c.dataToRowsMs))}`,
+          budget: BUDGETS.coldStart,
+        });
+        figures.push({
+          group: g,
+          name: "mark 'rigbook:builds-data' → first row painted",
+          value: med((c) => c.dataToRowsMs),
+          unit: 'ms',
+          detail: `worst ${ms(worst(starts.map((c) => c.dataToRowsMs ?? Number.NaN)))}`,
+          budget: BUDGETS.firstRows,
+        });
+        const work = sh.keystrokes.map((k) => k.workMs);
+        const worstKey = sh.keystrokes.reduce((a, b) => (b.workMs > a.workMs ? b : a), sh.keystrokes[0]!);
+        figures.push({
+          group: g,
+          name: 'keystroke → list updated and painted (main-thread work)',
+          value: median(work),
+          unit: 'ms',
+          detail: `worst ${ms(worst(work))} (${worstKey.label}); ${work.length} keystrokes`,
+          budget: BUDGETS.keystroke,
+        });
+        figures.push({
+          group: g,
+          name: 'keystroke → next frame painted (incl. wait for the frame)',
+          value: median(sh.keystrokes.map((k) => k.toPaintMs)),
+          unit: 'ms',
+          detail: `worst ${ms(worst(sh.keystrokes.map((k) => k.toPaintMs)))}`,
+        });
+        figures.push({
+          group: g,
+          name: 'server peak memory (VmHWM) after cold start',
+          value: sh.memory.afterStart.hwmKb / 1024,
+          unit: 'MB',
+          detail: `RSS then ${(sh.memory.afterStart.rssKb / 1024).toFixed(0)} MB`,
+        });
+        figures.push({
+          group: g,
+          name: 'server peak memory (VmHWM) after a 10 000-build re-check',
+          value: sh.memory.afterRecheck.hwmKb / 1024,
+          unit: 'MB',
+          detail: `RSS then ${(sh.memory.afterRecheck.rssKb / 1024).toFixed(0)} MB; re-check over HTTP ${ms(sh.memory.recheckMs)}`,
+        });
+        // Per keystroke: median and worst of the work, so a slow kind of key stands out.
+        const byLabel = new Map<string, { work: number[]; count: string }>();
+        for (const k of sh.keystrokes) {
+          const e = byLabel.get(k.label) ?? { work: [], count: k.countText };
+          e.work.push(k.workMs);
+          byLabel.set(k.label, e);
+        }
+        notes.push(
+          'Keystrokes (main-thread work: keydown → last DOM change + the frame\'s rendering; median / worst):\n' +
+            [...byLabel.entries()].map(([label, e]) => `    ${label.padEnd(26)} ${ms(median(e.work)).padStart(8)} / ${ms(worst(e.work)).padStart(8)}   → ${e.count}`).join('\n'),
+        );
+        notes.push(`Cold starts (ms, process start → rows painted): ${starts.map((c) => c.totalMs.toFixed(0)).join(', ')}; warm-up start not counted: ${sh.warmup.totalMs.toFixed(0)}`);
+        notes.push(
+          `Cold start, median steps: process start → "serving" ${ms(med((c) => c.serveMs))} (node, bundle, store open, backup at start); ` +
+            `→ list data in the page ${ms(med((c) => c.toDataMs))} (of which builds.list request → first byte ${ms(med((c) => c.listServerMs))}, transfer ${ms(med((c) => c.listTransferMs))}); ` +
+            `→ first rows painted ${ms(med((c) => c.dataToRowsMs))}`,
+        );
+        notes.push(`Chromium: ${sh.browserPath}${sh.builtNow ? ' (bundles built by this run)' : ' (existing dist-main/dist-renderer; run npm run build after changing the code)'}`);
+      });
+    } else {
+      notes.push('Chromium part skipped (RIGBOOK_BENCH_BROWSER=0).');
+    }
+  } finally {
+    if (KEEP) notes.push(`stores kept in ${folder}`);
+    else rmSync(folder, { recursive: true, force: true });
+  }
+
+  log('');
+  log(renderTable(figures));
+  log('');
+  log('The raw floor runs the same evaluateBuild (messages: false) as the service, so the ratio isolates the data layer.');
+  log('Keystroke work excludes the wait for the next frame slot (up to 16.7 ms at 60 Hz), which no code can shorten; the to-next-frame figure includes it.');
+  for (const n of notes) log(`- ${n}`);
+  if (process.argv.includes('--markdown')) {
+    log('');
+    log(renderMarkdown(figures));
+  }
+  log('');
+  log(`shared machine — load before: ${loadBefore}`);
+  log(`shared machine — load after:  ${uptime()}`);
+  log(`benchmark took ${((performance.now() - startedAt) / 1000).toFixed(0)} s`);
+  if (failures.length > 0) {
+    log(`\nParts that could not run (figures above are incomplete):\n${failures.map((f) => `  - ${f}`).join('\n')}`);
+    process.exitCode = 1;
+  }
+}
+
+await main();

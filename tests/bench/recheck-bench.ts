@@ -1,0 +1,111 @@
+// The re-check a part edit sets off, end to end through the real handler map, beside the raw
+// floor doing the same reads, evaluation and writes with hand-written SQL. Runs alternate
+// (service, floor, service, floor …) so a burst of load on the shared machine hits both alike.
+
+import { createHash } from 'node:crypto';
+import { HOT_MOTOR_ID } from '../../demo-fixtures/generate-fleet';
+import { openServiceHost } from '../../src-main/service/open-service-host';
+import { RawFloor, type FloorTiming } from './raw-floor';
+import { median, settle, worst } from './stats';
+
+export interface RecheckBench {
+  builds: number;
+  serviceMs: number[];
+  floor: FloorTiming[];
+  /** Median of each step of the floor. */
+  floorPhases: Record<'read' | 'evaluate' | 'write' | 'commit', number>;
+  /** Median of each step of the service path, or why it could not be measured. */
+  servicePhases: Record<string, number> | string;
+  /** The floor and the service left the same verdict rows after the same edit. */
+  sameRows: boolean;
+  /** Builds the last service edit re-checked, as `motors.update` reports it. */
+  rechecked: number;
+}
+
+interface UpdateAnswer {
+  record: { version: number };
+  rechecked: number;
+}
+
+async function verdictFingerprint(floor: RawFloor): Promise<string> {
+  const rows = floor.raw
+    .prepare('select buildId, status, supplyVoltageFullV, theoreticalSpeedKmh, peakCurrentA, peakCurrentLimitA, supplyStatuses from verdicts order by buildId')
+    .raw()
+    .all();
+  return createHash('sha256').update(JSON.stringify(rows)).digest('hex');
+}
+
+export async function benchRecheck(dbPath: string, runs: number): Promise<RecheckBench> {
+  const host = await openServiceHost({ dbPath, actor: 'bench' });
+  const floor = new RawFloor(dbPath);
+  try {
+    const serviceMs: number[] = [];
+    const floorRuns: FloorTiming[] = [];
+    let sameRows = true;
+    let rechecked = 0;
+    // One untimed pair first: statements prepared, pages cached, JIT warm, on both sides.
+    for (let r = -1; r < runs; r++) {
+      // Both sides of a pair set the same value, so their verdict rows can be compared; the
+      // next pair sets the other value, so every service edit is a real change.
+      const maxCurrentA = r % 2 === 0 ? 151 : 150;
+      const got = await host.call('motors.get', { id: HOT_MOTOR_ID });
+      if (!got.ok) throw new Error(`motors.get: ${got.error.message}`);
+      const version = (got.value as { version: number }).version;
+      await settle();
+      const started = performance.now();
+      const answer = await host.call('motors.update', {
+        id: HOT_MOTOR_ID,
+        expectedVersion: version,
+        changes: { maxCurrentA },
+        reason: 'benchmark: harmless edit that re-checks every build using the motor',
+      });
+      const ms = performance.now() - started;
+      if (!answer.ok) throw new Error(`motors.update: ${answer.error.message}`);
+      rechecked = (answer.value as UpdateAnswer).rechecked;
+      const check = r === runs - 1;
+      const serviceRows = check ? await verdictFingerprint(floor) : '';
+      await settle();
+      const f = floor.editMotor(HOT_MOTOR_ID, maxCurrentA, new Date().toISOString());
+      if (check) sameRows = serviceRows === (await verdictFingerprint(floor));
+      if (r >= 0) {
+        serviceMs.push(ms);
+        floorRuns.push(f);
+      }
+    }
+    let servicePhases: RecheckBench['servicePhases'];
+    try {
+      const { servicePhases: measure } = await import('./service-breakdown');
+      const samples: Record<string, number>[] = [];
+      for (let r = 0; r < Math.min(3, runs); r++) {
+        await settle();
+        samples.push({ ...(await measure(host.ctx.db, HOT_MOTOR_ID)) });
+      }
+      servicePhases = Object.fromEntries(Object.keys(samples[0] ?? {}).map((k) => [k, median(samples.map((s) => s[k] ?? Number.NaN))]));
+    } catch (error) {
+      servicePhases = `not measured: ${error instanceof Error ? error.message : String(error)}`;
+    }
+    return {
+      builds: floorRuns[0]?.builds ?? 0,
+      serviceMs,
+      floor: floorRuns,
+      floorPhases: {
+        read: median(floorRuns.map((f) => f.readMs)),
+        evaluate: median(floorRuns.map((f) => f.evaluateMs)),
+        write: median(floorRuns.map((f) => f.writeMs)),
+        commit: median(floorRuns.map((f) => f.commitMs)),
+      },
+      servicePhases,
+      sameRows,
+      rechecked,
+    };
+  } finally {
+    floor.close();
+    await host.close();
+  }
+}
+
+export function summary(b: RecheckBench): { serviceMedian: number; serviceWorst: number; floorMedian: number; floorWorst: number; ratio: number } {
+  const serviceMedian = median(b.serviceMs);
+  const floorMedian = median(b.floor.map((f) => f.totalMs));
+  return { serviceMedian, serviceWorst: worst(b.serviceMs), floorMedian, floorWorst: worst(b.floor.map((f) => f.totalMs)), ratio: serviceMedian / floorMedian };
+}
