@@ -4,6 +4,7 @@
 
 import type { Battery, Build, Controller, Motor, Propeller, Vehicle, VehicleKind } from '../src-main/core/domain';
 import { FLEET_FORMAT, FLEET_VERSION, type FleetFile } from '../src-main/service/fleet/fleet-format';
+import { seededRandom } from './seeded-random';
 
 export interface GenerateOptions {
   builds: number;
@@ -17,18 +18,6 @@ export interface GenerateOptions {
 export const HOT_MOTOR_ID = 'gen-mot-hot';
 export const HOT_PACK_ID = 'gen-pk-hot';
 
-/** A small fast generator (mulberry32): the same seed gives the same fleet on every machine. */
-function random(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 const KINDS: readonly VehicleKind[] = ['car', 'truck', 'car', 'truck', 'boat', 'multirotor', 'plane'];
 
 function id(prefix: string, n: number): string {
@@ -38,7 +27,7 @@ function id(prefix: string, n: number): string {
 const meta = { version: 1, archivedAt: null, notes: '' };
 
 export function generateFleet(options: GenerateOptions): FleetFile {
-  const rnd = random(options.seed);
+  const rnd = seededRandom(options.seed);
   const pick = <T>(list: readonly T[]): T => list[Math.floor(rnd() * list.length)]!;
   const between = (lo: number, hi: number, step = 1) => Math.round((lo + rnd() * (hi - lo)) / step) * step;
   const n = Math.max(0, Math.floor(options.builds));

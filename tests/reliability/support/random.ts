@@ -1,14 +1,4 @@
-/** mulberry32: a small seedable generator, so a failing run can be repeated from its printed seed. */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { seededRandom } from '../../../demo-fixtures/seeded-random';
 
 /** JSON with object keys sorted, so two records compare equal whatever order their fields were written in. */
 export function canonical(value: unknown): string {
