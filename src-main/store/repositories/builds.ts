@@ -75,36 +75,80 @@ export async function loadBuilds(db: DbHandle, selector: BuildSelector): Promise
   return rows.map((row) => rowToBuild(row, supplies.get(row.id) ?? []));
 }
 
-/** The columns the evaluation reads; a re-check of thousands of builds skips the rest. */
+/** The build columns the evaluation reads; a re-check of thousands of builds skips the rest. */
 const EVALUATION_COLUMNS = [
-  'id',
-  'vehicleId',
-  'motorId',
-  'motorCount',
-  'controllerId',
-  'propellerId',
-  'pinionTeeth',
-  'spurTeeth',
-  'internalRatio',
-  'tireDiameterMm',
-  'drivetrainEfficiency',
-  'measuredPeakCurrentA',
-  'measuredAverageCurrentA',
-  'tightThreshold',
+  'builds.id',
+  'builds.vehicleId',
+  'builds.motorId',
+  'builds.motorCount',
+  'builds.controllerId',
+  'builds.propellerId',
+  'builds.pinionTeeth',
+  'builds.spurTeeth',
+  'builds.internalRatio',
+  'builds.tireDiameterMm',
+  'builds.drivetrainEfficiency',
+  'builds.measuredPeakCurrentA',
+  'builds.measuredAverageCurrentA',
+  'builds.tightThreshold',
 ] as const;
 
 /**
- * The selected builds as the evaluation needs them: name, notes and bookkeeping are left
- * empty. For the re-check and the sheet's verdict only, never for showing or saving a record.
+ * The selected builds as the evaluation needs them, read in one joined query (builds, their
+ * supplies, their packs) and folded in one pass. Name, notes and bookkeeping are left empty:
+ * for the re-check and the sheet's verdict only, never for showing or saving a record.
  */
 export async function loadBuildsForEvaluation(db: DbHandle, selector: BuildSelector): Promise<Build[]> {
-  const supplies = await loadSupplies(db, selector);
   const rows = await db
     .selectFrom('builds')
+    .leftJoin('supplies', 'supplies.buildId', 'builds.id')
+    .leftJoin('supplyPacks', 'supplyPacks.supplyId', 'supplies.id')
     .select(EVALUATION_COLUMNS)
+    .select(['supplies.id as supplyId', 'supplies.arrangement', 'supplyPacks.batteryId'])
     .where((eb) => selectorCondition(db, eb, selector))
+    .orderBy('builds.id')
+    .orderBy('supplies.position')
+    .orderBy('supplyPacks.position')
     .execute();
-  return rows.map((row) => rowToBuild({ ...row, name: '', notes: '', version: 0, archivedAt: null, createdAt: '', updatedAt: '' }, supplies.get(row.id) ?? []));
+  const out: Build[] = [];
+  let build: Build | undefined;
+  let supply: Supply | undefined;
+  for (const row of rows) {
+    if (build?.id !== row.id) {
+      build = {
+        id: row.id,
+        version: 0,
+        archivedAt: null,
+        notes: '',
+        name: '',
+        vehicleId: row.vehicleId,
+        motorId: row.motorId,
+        motorCount: row.motorCount,
+        controllerId: row.controllerId,
+        propellerId: row.propellerId,
+        gearing: {
+          pinionTeeth: row.pinionTeeth,
+          spurTeeth: row.spurTeeth,
+          internalRatio: row.internalRatio,
+          tireDiameterMm: row.tireDiameterMm,
+          drivetrainEfficiency: row.drivetrainEfficiency,
+        },
+        supplies: [],
+        measuredPeakCurrentA: row.measuredPeakCurrentA,
+        measuredAverageCurrentA: row.measuredAverageCurrentA,
+        tightThreshold: row.tightThreshold,
+      };
+      supply = undefined;
+      out.push(build);
+    }
+    if (row.supplyId === null) continue;
+    if (supply?.id !== row.supplyId) {
+      supply = { id: row.supplyId, arrangement: row.arrangement as Arrangement, batteryIds: [] };
+      build.supplies.push(supply);
+    }
+    if (row.batteryId !== null) supply.batteryIds.push(row.batteryId);
+  }
+  return out;
 }
 
 export async function getBuilds(db: DbHandle, ids: readonly string[]): Promise<Build[]> {
