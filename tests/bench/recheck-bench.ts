@@ -3,6 +3,7 @@
 // (service, floor, service, floor …) so a burst of load on the shared machine hits both alike.
 
 import { createHash } from 'node:crypto';
+import { PerformanceObserver, type PerformanceEntry } from 'node:perf_hooks';
 import { HOT_MOTOR_ID } from '../../demo-fixtures/generate-fleet';
 import { openServiceHost } from '../../src-main/service/open-service-host';
 import { RawFloor, type FloorTiming } from './raw-floor';
@@ -20,6 +21,11 @@ export interface RecheckBench {
   sameRows: boolean;
   /** Builds the last service edit re-checked, as `motors.update` reports it. */
   rechecked: number;
+  /** Median garbage-collection pause inside a service call and inside a floor run, ms. */
+  serviceGcMs: number;
+  floorGcMs: number;
+  /** Store size (file + WAL, after a checkpoint) before and after the timed edits, and how many edits wrote history. */
+  storeBytes: { before: number; after: number; edits: number };
 }
 
 interface UpdateAnswer {
@@ -35,10 +41,29 @@ async function verdictFingerprint(floor: RawFloor): Promise<string> {
   return createHash('sha256').update(JSON.stringify(rows)).digest('hex');
 }
 
+/** The store's size with its WAL folded in: page count × page size after a checkpoint. */
+function storeSize(floor: RawFloor): number {
+  floor.raw.pragma('wal_checkpoint(TRUNCATE)');
+  return Number(floor.raw.pragma('page_count', { simple: true })) * Number(floor.raw.pragma('page_size', { simple: true }));
+}
+
+/** Sum of the garbage-collection pauses that started inside [from, to] (performance.now() times). */
+function gcWithin(entries: readonly PerformanceEntry[], from: number, to: number): number {
+  let ms = 0;
+  for (const e of entries) if (e.startTime >= from && e.startTime <= to) ms += e.duration;
+  return ms;
+}
+
 export async function benchRecheck(dbPath: string, runs: number): Promise<RecheckBench> {
   const host = await openServiceHost({ dbPath, actor: 'bench' });
   const floor = new RawFloor(dbPath);
+  const gc: PerformanceEntry[] = [];
+  const observer = new PerformanceObserver((list) => gc.push(...list.getEntries()));
+  observer.observe({ entryTypes: ['gc'] });
   try {
+    const sizeBefore = storeSize(floor);
+    const serviceWindows: [number, number][] = [];
+    const floorWindows: [number, number][] = [];
     const serviceMs: number[] = [];
     const floorRuns: FloorTiming[] = [];
     let sameRows = true;
@@ -65,13 +90,19 @@ export async function benchRecheck(dbPath: string, runs: number): Promise<Rechec
       const check = r === runs - 1;
       const serviceRows = check ? await verdictFingerprint(floor) : '';
       await settle();
+      const floorStarted = performance.now();
       const f = floor.editMotor(HOT_MOTOR_ID, maxCurrentA, new Date().toISOString());
+      const floorEnded = performance.now();
       if (check) sameRows = serviceRows === (await verdictFingerprint(floor));
       if (r >= 0) {
         serviceMs.push(ms);
         floorRuns.push(f);
+        serviceWindows.push([started, started + ms]);
+        floorWindows.push([floorStarted, floorEnded]);
       }
     }
+    const sizeAfter = storeSize(floor);
+    await settle(); // the observer reports asynchronously
     let servicePhases: RecheckBench['servicePhases'];
     try {
       const { servicePhases: measure } = await import('./service-breakdown');
@@ -97,8 +128,13 @@ export async function benchRecheck(dbPath: string, runs: number): Promise<Rechec
       servicePhases,
       sameRows,
       rechecked,
+      serviceGcMs: median(serviceWindows.map(([from, to]) => gcWithin(gc, from, to))),
+      floorGcMs: median(floorWindows.map(([from, to]) => gcWithin(gc, from, to))),
+      // Every timed edit and the untimed pair wrote a history row linked to every re-checked build.
+      storeBytes: { before: sizeBefore, after: sizeAfter, edits: 2 * (runs + 1) },
     };
   } finally {
+    observer.disconnect();
     floor.close();
     await host.close();
   }

@@ -28,22 +28,36 @@ export function usesPart(s: BuildSummary, partId: string): boolean {
   return s.vehicleId === partId || s.motorId === partId || s.controllerId === partId || s.propellerId === partId || s.batteryIds.includes(partId);
 }
 
+/** True when the filter lets every row through. */
+export function isEmptyFilter(filter: BuildFilter): boolean {
+  return filter.text.trim() === '' && filter.statuses.length === 0 && filter.kinds.length === 0 && filter.owner === '' && filter.partId === '';
+}
+
 /**
- * The summaries that pass the filter, in the given order. Runs on every keystroke over up to
- * 10 000 rows, so it is one pass with precomputed haystacks and no allocation per row.
+ * The positions in `rows` of the summaries that pass the filter, in order, looking only at
+ * `candidates` when given (positions a wider filter let through). Runs on every keystroke over
+ * up to 10 000 rows: one pass, the haystack of a row asked for only when there is text to find.
  */
-export function filterSummaries(rows: readonly BuildSummary[], filter: BuildFilter, haystacks: ReadonlyMap<string, string>): BuildSummary[] {
+export function matchingPositions(
+  rows: readonly BuildSummary[],
+  filter: BuildFilter,
+  haystackAt: (position: number) => string,
+  candidates?: readonly number[],
+): number[] {
   const words = filter.text.trim().toLowerCase().split(/\s+/).filter((w) => w !== '');
   const statuses = filter.statuses.length > 0 ? new Set<Status | null>(filter.statuses) : null;
   const kinds = filter.kinds.length > 0 ? new Set<VehicleKind>(filter.kinds) : null;
-  const out: BuildSummary[] = [];
-  for (const s of rows) {
+  const out: number[] = [];
+  const count = candidates ? candidates.length : rows.length;
+  for (let c = 0; c < count; c++) {
+    const i = candidates ? candidates[c]! : c;
+    const s = rows[i]!;
     if (statuses && !statuses.has(s.status)) continue;
     if (kinds && !kinds.has(s.kind)) continue;
     if (filter.owner !== '' && s.owner !== filter.owner) continue;
     if (filter.partId !== '' && !usesPart(s, filter.partId)) continue;
     if (words.length > 0) {
-      const hay = haystacks.get(s.id) ?? haystackOf(s);
+      const hay = haystackAt(i);
       let all = true;
       for (const w of words) {
         if (!hay.includes(w)) {
@@ -53,9 +67,14 @@ export function filterSummaries(rows: readonly BuildSummary[], filter: BuildFilt
       }
       if (!all) continue;
     }
-    out.push(s);
+    out.push(i);
   }
   return out;
+}
+
+/** The summaries that pass the filter, in the given order. */
+export function filterSummaries(rows: readonly BuildSummary[], filter: BuildFilter, haystacks: ReadonlyMap<string, string>): BuildSummary[] {
+  return matchingPositions(rows, filter, (i) => haystacks.get(rows[i]!.id) ?? haystackOf(rows[i]!)).map((i) => rows[i]!);
 }
 
 const sameList = <T>(a: readonly T[], b: readonly T[]) => a.length === b.length && a.every((x, i) => x === b[i]);

@@ -2,7 +2,7 @@ import type { Status, VehicleKind } from '../../../src-main/core/domain';
 import type { ServiceEvent } from '../../../src-main/service/contract';
 import { asApiError, type Client } from '../api/client';
 import type { BuildSummary } from '../builds/build-summary';
-import { countByStatus, filterSummaries, haystackOf, narrows, ownersOf, sortSummaries, type BuildFilter, type SortDir, type SortKey } from '../builds/build-filter';
+import { countByStatus, haystackOf, isEmptyFilter, matchingPositions, narrows, ownersOf, sortSummaries, type BuildFilter, type SortDir, type SortKey } from '../builds/build-filter';
 
 /** Runs work when the page is idle (after the next frame where idle callbacks are missing). */
 function later(work: (deadline?: { timeRemaining(): number }) => void): void {
@@ -38,8 +38,11 @@ export class BuildsListState {
    */
   #haystacks = new Map<string, string>();
   #preparing = 0;
-  /** The last filter's input and answer: a keystroke that only narrows it filters that answer again. */
-  #lastFilter: { from: readonly BuildSummary[]; filter: BuildFilter; result: BuildSummary[] } | null = null;
+  /** The same texts by position in `sorted`, for the sorted list they were laid out for: no lookup by id per keystroke. */
+  #hayOf: readonly BuildSummary[] | null = null;
+  #hay: (string | undefined)[] = [];
+  /** The last filter and the positions it let through: a keystroke that only narrows it looks at those alone. */
+  #lastFilter: { from: readonly BuildSummary[]; filter: BuildFilter; positions: number[] | null } | null = null;
   sorted = $derived(sortSummaries(this.all, this.sortKey, this.sortDir));
   visible = $derived(this.#filter(this.sorted, { text: this.text, statuses: this.statuses, kinds: this.kinds, owner: this.owner, partId: this.partId }));
   owners = $derived(ownersOf(this.all));
@@ -68,12 +71,23 @@ export class BuildsListState {
     }
   }
 
-  #filter(sorted: readonly BuildSummary[], filter: BuildFilter): BuildSummary[] {
+  #filter(sorted: readonly BuildSummary[], filter: BuildFilter): readonly BuildSummary[] {
+    if (this.#hayOf !== sorted) {
+      this.#hayOf = sorted;
+      this.#hay = new Array<string | undefined>(sorted.length);
+    }
     const last = this.#lastFilter;
-    const from = last !== null && last.from === sorted && narrows(last.filter, filter) ? last.result : sorted;
-    const result = filterSummaries(from, filter, this.#haystacks);
-    this.#lastFilter = { from: sorted, filter, result };
-    return result;
+    if (isEmptyFilter(filter)) {
+      this.#lastFilter = { from: sorted, filter, positions: null };
+      return sorted;
+    }
+    const hay = this.#hay;
+    const byId = this.#haystacks;
+    const haystackAt = (i: number): string => (hay[i] ??= byId.get(sorted[i]!.id) ?? haystackOf(sorted[i]!));
+    const within = last !== null && last.from === sorted && last.positions !== null && narrows(last.filter, filter) ? last.positions : undefined;
+    const positions = matchingPositions(sorted, filter, haystackAt, within);
+    this.#lastFilter = { from: sorted, filter, positions };
+    return positions.map((i) => sorted[i]!);
   }
 
   /**
@@ -86,9 +100,10 @@ export class BuildsListState {
     let next = 0;
     const step = (deadline?: { timeRemaining(): number }) => {
       if (run !== this.#preparing) return;
-      const until = performance.now() + Math.max(4, Math.min(12, deadline?.timeRemaining() ?? 8));
+      // Short slices: a key pressed meanwhile waits for the slice to end.
+      const until = performance.now() + Math.max(2, Math.min(5, deadline?.timeRemaining() ?? 5));
       while (next < rows.length && performance.now() < until) {
-        for (const end = Math.min(rows.length, next + 250); next < end; next++) {
+        for (const end = Math.min(rows.length, next + 100); next < end; next++) {
           const s = rows[next]!;
           if (!haystacks.has(s.id)) haystacks.set(s.id, haystackOf(s));
         }
