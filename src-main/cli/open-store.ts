@@ -31,7 +31,7 @@ export async function withStore<T>(io: CliIo, dbPath: string, options: StoreOpti
   if (options.mustExist && !existed) throw new CliFailure(EXIT.store, `There is no store at ${dbPath} (give another with --db PATH or RIGBOOK_DB).`);
   let host: Host;
   try {
-    host = await openServiceHost({ dbPath, ...(options.autoBackup ? { autoBackup: { keep: AUTO_BACKUPS_KEPT } } : {}) });
+    host = await openServiceHost({ dbPath, ...(options.autoBackup ? { autoBackup: { keep: AUTO_BACKUPS_KEPT, minIntervalHours: 0 } } : {}) });
   } catch (error) {
     throw new CliFailure(EXIT.store, `The store at ${dbPath} could not be opened: ${error instanceof Error ? error.message : String(error)}`);
   }

@@ -2,7 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { userInfo } from 'node:os';
 import { openStore } from '../store/open-database';
-import { backupFolderFor, rollingBackup } from '../store/backup';
+import { backupFolderFor, newestRollingBackupAt, rollingBackup } from '../store/backup';
 import type { EventListener, ServiceHost } from './contract';
 import { dispatch } from './dispatch';
 import { recheckIfEngineChanged } from './engine-upgrade';
@@ -13,8 +13,13 @@ export interface HostOptions {
   actor?: string;
   now?: () => Date;
   newId?: (prefix: string) => string;
-  /** A copy of the store at every start, in `backups/` beside it, keeping the newest `keep` (the shells pass { keep: 5 }). */
-  autoBackup?: { keep: number };
+  /**
+   * A copy of the store at start, in `backups/` beside it, keeping the newest `keep` (the shells
+   * pass { keep: 5 }). No copy is taken while the newest one is younger than `minIntervalHours`
+   * (default 12): a shop restarting the app all day would otherwise keep five copies of one
+   * morning, and a large store's copy delays every start.
+   */
+  autoBackup?: { keep: number; minIntervalHours?: number };
 }
 
 export function randomId(prefix: string): string {
@@ -40,7 +45,11 @@ export async function openServiceHost(options: HostOptions): Promise<ServiceHost
   let autoBackupPath: string | null = null;
   if (options.autoBackup && existed) {
     try {
-      autoBackupPath = await rollingBackup(store.raw, backupFolderFor(store.path), options.autoBackup.keep);
+      const folder = backupFolderFor(store.path);
+      const newest = newestRollingBackupAt(folder);
+      const interval = (options.autoBackup.minIntervalHours ?? 12) * 3_600_000;
+      const now = (options.now ?? (() => new Date()))();
+      if (newest === null || now.getTime() - newest.getTime() >= interval) autoBackupPath = await rollingBackup(store.raw, folder, options.autoBackup.keep, now);
     } catch (error) {
       // A full disk must not keep a shop out of its records; the failure is logged.
       process.stderr.write(`Rigbook: the automatic backup at start was not written: ${error instanceof Error ? error.message : String(error)}\n`);

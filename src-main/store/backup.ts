@@ -203,6 +203,19 @@ export function backupFolderFor(dbPath: string): string {
   return join(dirname(dbPath), 'backups');
 }
 
+/** When the newest automatic copy in the folder was taken, read from its name; null when there is none. */
+export function newestRollingBackupAt(folder: string): Date | null {
+  if (!existsSync(folder)) return null;
+  let newest: Date | null = null;
+  for (const name of readdirSync(folder)) {
+    const m = /^auto-(\d{4}-\d{2}-\d{2}T\d{2})-(\d{2})-(\d{2})-(\d{3})Z\.sqlite$/.exec(name);
+    if (!m) continue;
+    const at = new Date(`${m[1]}:${m[2]}:${m[3]}.${m[4]}Z`);
+    if (!Number.isNaN(at.getTime()) && (newest === null || at > newest)) newest = at;
+  }
+  return newest;
+}
+
 /** A copy at start, keeping the newest `keep` of them; older automatic copies are removed, nothing else is. */
 export async function rollingBackup(raw: Database.Database, folder: string, keep: number, now = new Date()): Promise<string> {
   const path = join(folder, `${AUTO_BACKUP_PREFIX}${timestampForFile(now)}.sqlite`);

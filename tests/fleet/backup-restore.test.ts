@@ -191,4 +191,26 @@ describe('rolling backup at start', () => {
     expect(checkStoreFile(again.autoBackupPath!)).toMatchObject({ ok: true });
     await again.close();
   });
+
+  it('takes at most one automatic copy in twelve hours, however often the app starts', async () => {
+    const t = temp();
+    const file = t.file('rigbook.sqlite');
+    let clock = new Date('2026-12-02T08:00:00Z');
+    const open = () => openServiceHost({ dbPath: file, autoBackup: { keep: 5 }, now: () => clock });
+    const first = await open();
+    expect(await first.call('demo.load', {})).toMatchObject({ ok: true });
+    await first.close();
+    const morning = await open();
+    expect(morning.autoBackupPath).not.toBeNull();
+    await morning.close();
+    clock = new Date('2026-12-02T11:00:00Z');
+    const lunch = await open();
+    expect(lunch.autoBackupPath).toBeNull();
+    await lunch.close();
+    clock = new Date('2026-12-02T20:30:00Z');
+    const evening = await open();
+    expect(evening.autoBackupPath).toMatch(/auto-2026-12-02T20-30-00-000Z\.sqlite$/);
+    await evening.close();
+    expect(readdirSync(join(t.dir, 'backups')).filter((n) => n.startsWith('auto-'))).toHaveLength(2);
+  });
 });
