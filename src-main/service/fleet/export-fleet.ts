@@ -1,5 +1,5 @@
 import type { DbHandle } from '../../store/db-handle';
-import { allBuildIds, getBuilds } from '../../store/repositories/builds';
+import { loadBuilds } from '../../store/repositories/builds';
 import { listParts } from '../../store/repositories/parts';
 import { canonicalRecord } from './canonical-record';
 import { FLEET_FORMAT, FLEET_PART_KINDS, FLEET_VERSION, type FleetFile, type FleetRecords } from './fleet-format';
@@ -19,10 +19,9 @@ export async function exportFleet(db: DbHandle, onProgress?: OnProgress): Promis
     records.sort((a, b) => compareText(sortKey(a), sortKey(b)));
     (parts as Record<string, unknown>)[kind] = records.map((r) => canonicalRecord(kind, r));
   }
-  const ids = await allBuildIds(db);
-  const tick = progressCounter(onProgress, 'export', ids.length);
+  const builds = await loadBuilds(db, { by: 'all' });
+  const tick = progressCounter(onProgress, 'export', builds.length);
   tick(0);
-  const builds = await getBuilds(db, ids);
   builds.sort((a, b) => compareText(a.name, b.name) || compareText(a.id, b.id));
   const out: FleetFile = {
     format: FLEET_FORMAT,

@@ -5,13 +5,38 @@ import { byIds, selectedBuildIds, selectorCondition, type BuildSelector } from '
 
 export type BuildFields = Omit<Build, 'id' | 'version' | 'archivedAt'>;
 
-function rowToBuild(row: BuildRow, supplies: Supply[]): Build {
+/** The build columns the evaluation reads; a re-check of thousands of builds skips the rest. */
+const EVALUATION_COLUMNS = [
+  'builds.id',
+  'builds.vehicleId',
+  'builds.motorId',
+  'builds.motorCount',
+  'builds.controllerId',
+  'builds.propellerId',
+  'builds.pinionTeeth',
+  'builds.spurTeeth',
+  'builds.internalRatio',
+  'builds.tireDiameterMm',
+  'builds.drivetrainEfficiency',
+  'builds.measuredPeakCurrentA',
+  'builds.measuredAverageCurrentA',
+  'builds.tightThreshold',
+] as const;
+
+type EvaluationRow = Pick<BuildRow, (typeof EVALUATION_COLUMNS)[number] extends `builds.${infer C extends keyof BuildRow}` ? C : never>;
+type BuildMeta = Pick<BuildRow, 'version' | 'archivedAt' | 'notes' | 'name'>;
+
+/** What a build read for evaluation only carries in place of its name, notes and bookkeeping. */
+const NO_META: BuildMeta = { version: 0, archivedAt: null, notes: '', name: '' };
+
+/** `meta` is the row itself for a full record, NO_META for one read for evaluation. */
+function rowToBuild(row: EvaluationRow, supplies: Supply[], meta: BuildMeta): Build {
   return {
     id: row.id,
-    version: row.version,
-    archivedAt: row.archivedAt,
-    notes: row.notes,
-    name: row.name,
+    version: meta.version,
+    archivedAt: meta.archivedAt,
+    notes: meta.notes,
+    name: meta.name,
     vehicleId: row.vehicleId,
     motorId: row.motorId,
     motorCount: row.motorCount,
@@ -72,26 +97,8 @@ export async function loadSupplies(db: DbHandle, selector: BuildSelector): Promi
 export async function loadBuilds(db: DbHandle, selector: BuildSelector): Promise<Build[]> {
   const supplies = await loadSupplies(db, selector);
   const rows = await db.selectFrom('builds').selectAll().where((eb) => selectorCondition(db, eb, selector)).orderBy('id').execute();
-  return rows.map((row) => rowToBuild(row, supplies.get(row.id) ?? []));
+  return rows.map((row) => rowToBuild(row, supplies.get(row.id) ?? [], row));
 }
-
-/** The build columns the evaluation reads; a re-check of thousands of builds skips the rest. */
-const EVALUATION_COLUMNS = [
-  'builds.id',
-  'builds.vehicleId',
-  'builds.motorId',
-  'builds.motorCount',
-  'builds.controllerId',
-  'builds.propellerId',
-  'builds.pinionTeeth',
-  'builds.spurTeeth',
-  'builds.internalRatio',
-  'builds.tireDiameterMm',
-  'builds.drivetrainEfficiency',
-  'builds.measuredPeakCurrentA',
-  'builds.measuredAverageCurrentA',
-  'builds.tightThreshold',
-] as const;
 
 /**
  * The selected builds as the evaluation needs them, read in one joined query (builds, their
@@ -115,29 +122,7 @@ export async function loadBuildsForEvaluation(db: DbHandle, selector: BuildSelec
   let supply: Supply | undefined;
   for (const row of rows) {
     if (build?.id !== row.id) {
-      build = {
-        id: row.id,
-        version: 0,
-        archivedAt: null,
-        notes: '',
-        name: '',
-        vehicleId: row.vehicleId,
-        motorId: row.motorId,
-        motorCount: row.motorCount,
-        controllerId: row.controllerId,
-        propellerId: row.propellerId,
-        gearing: {
-          pinionTeeth: row.pinionTeeth,
-          spurTeeth: row.spurTeeth,
-          internalRatio: row.internalRatio,
-          tireDiameterMm: row.tireDiameterMm,
-          drivetrainEfficiency: row.drivetrainEfficiency,
-        },
-        supplies: [],
-        measuredPeakCurrentA: row.measuredPeakCurrentA,
-        measuredAverageCurrentA: row.measuredAverageCurrentA,
-        tightThreshold: row.tightThreshold,
-      };
+      build = rowToBuild(row, [], NO_META);
       supply = undefined;
       out.push(build);
     }
@@ -198,9 +183,4 @@ export async function updateBuildAtVersion(
   const written = Number(result.numUpdatedRows);
   if (written > 0 && patch.supplies) await writeSupplies(db, id, patch.supplies);
   return written;
-}
-
-export async function allBuildIds(db: DbHandle): Promise<string[]> {
-  const rows = await db.selectFrom('builds').select('id').execute();
-  return rows.map((r) => r.id);
 }
