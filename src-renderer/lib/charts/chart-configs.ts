@@ -20,6 +20,60 @@ function rpmAxis() {
   return { type: 'linear' as const, title: { display: true, text: 'Motor speed (rpm)' }, grid: { color: '#ebe9e3' }, min: 0 };
 }
 
+/** The operating points drawn over a motor curve, at the given heights on the given axis. */
+function operatingPoints(d: MotorChartData, ys: readonly number[], yAxisID: 'y' | 'y1') {
+  return {
+    type: 'scatter' as const,
+    label: 'Operating points',
+    data: d.marks.map((m, i) => ({ x: m.rpm, y: ys[i] ?? 0 })),
+    borderColor: SERIES.mark.color,
+    backgroundColor: '#ffffff',
+    borderWidth: 2,
+    pointRadius: 6,
+    pointStyle: d.marks.map((_, i) => (i === 0 ? 'rectRot' : 'triangle')),
+    yAxisID,
+  };
+}
+
+type Scales = NonNullable<ChartConfiguration<'line' | 'scatter'>['options']>['scales'];
+
+/**
+ * Options shared by the two motor-curve charts: a left and a right axis against rpm, and a
+ * tooltip that names an operating point (dataset 2) or the series with its own precision.
+ */
+function motorCurveOptions(
+  d: MotorChartData,
+  markText: (y: number) => string,
+  seriesDigits: (datasetIndex: number) => number,
+  y: { title: string; max?: number },
+  y1: { title: string; max?: number },
+): ChartConfiguration<'line' | 'scatter'>['options'] {
+  const scales: Scales = {
+    x: rpmAxis(),
+    y: { type: 'linear', position: 'left', min: 0, ...(y.max === undefined ? {} : { max: y.max }), title: { display: true, text: y.title }, grid: { color: '#ebe9e3' } },
+    y1: { type: 'linear', position: 'right', min: 0, ...(y1.max === undefined ? {} : { max: y1.max }), title: { display: true, text: y1.title }, grid: { drawOnChartArea: false } },
+  };
+  return {
+    responsive: true,
+    maintainAspectRatio: false,
+    parsing: false,
+    interaction: { mode: 'nearest', intersect: false },
+    plugins: {
+      legend: { position: 'bottom', labels: { boxWidth: 18, boxHeight: 2 } },
+      tooltip: {
+        callbacks: {
+          title: (items) => `${Math.round(items[0]?.parsed.x ?? 0)} rpm`,
+          label: (item) => {
+            const mark = item.datasetIndex === 2 ? d.marks[item.dataIndex] : undefined;
+            return mark ? `${mark.label}: ${markText(item.parsed.y ?? 0)}` : `${item.dataset.label}: ${item.parsed.y?.toFixed(seriesDigits(item.datasetIndex))}`;
+          },
+        },
+      },
+    },
+    scales,
+  };
+}
+
 export function currentPowerConfig(d: MotorChartData): ChartConfiguration<'line' | 'scatter'> {
   return {
     type: 'line',
@@ -27,42 +81,10 @@ export function currentPowerConfig(d: MotorChartData): ChartConfiguration<'line'
       datasets: [
         { type: 'line', label: 'Current (A)', data: xy(d.curve.rpm, d.curve.currentA), borderColor: SERIES.current.color, borderDash: SERIES.current.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y' },
         { type: 'line', label: 'Shaft power (W)', data: xy(d.curve.rpm, d.curve.shaftPowerW), borderColor: SERIES.power.color, borderDash: SERIES.power.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y1' },
-        {
-          type: 'scatter',
-          label: 'Operating points',
-          data: d.marks.map((m) => ({ x: m.rpm, y: m.currentA })),
-          borderColor: SERIES.mark.color,
-          backgroundColor: '#ffffff',
-          borderWidth: 2,
-          pointRadius: 6,
-          pointStyle: d.marks.map((_, i) => (i === 0 ? 'rectRot' : 'triangle')),
-          yAxisID: 'y',
-        },
+        operatingPoints(d, d.marks.map((m) => m.currentA), 'y'),
       ],
     },
-    options: {
-      responsive: true,
-      maintainAspectRatio: false,
-      parsing: false,
-      interaction: { mode: 'nearest', intersect: false },
-      plugins: {
-        legend: { position: 'bottom', labels: { boxWidth: 18, boxHeight: 2 } },
-        tooltip: {
-          callbacks: {
-            title: (items) => `${Math.round(items[0]?.parsed.x ?? 0)} rpm`,
-            label: (item) => {
-              const mark = item.datasetIndex === 2 ? d.marks[item.dataIndex] : undefined;
-              return mark ? `${mark.label}: ${item.parsed.y?.toFixed(1)} A` : `${item.dataset.label}: ${item.parsed.y?.toFixed(1)}`;
-            },
-          },
-        },
-      },
-      scales: {
-        x: rpmAxis(),
-        y: { type: 'linear', position: 'left', min: 0, title: { display: true, text: 'Current (A)' }, grid: { color: '#ebe9e3' } },
-        y1: { type: 'linear', position: 'right', min: 0, title: { display: true, text: 'Shaft power (W)' }, grid: { drawOnChartArea: false } },
-      },
-    },
+    options: motorCurveOptions(d, (y) => `${y.toFixed(1)} A`, () => 1, { title: 'Current (A)' }, { title: 'Shaft power (W)' }),
   };
 }
 
@@ -92,42 +114,10 @@ export function torqueEfficiencyConfig(d: MotorChartData): ChartConfiguration<'l
           pointRadius: 0,
           yAxisID: 'y1',
         },
-        {
-          type: 'scatter',
-          label: 'Operating points',
-          data: d.marks.map((m) => ({ x: m.rpm, y: effAt(m.rpm) })),
-          borderColor: SERIES.mark.color,
-          backgroundColor: '#ffffff',
-          borderWidth: 2,
-          pointRadius: 6,
-          pointStyle: d.marks.map((_, i) => (i === 0 ? 'rectRot' : 'triangle')),
-          yAxisID: 'y1',
-        },
+        operatingPoints(d, d.marks.map((m) => effAt(m.rpm)), 'y1'),
       ],
     },
-    options: {
-      responsive: true,
-      maintainAspectRatio: false,
-      parsing: false,
-      interaction: { mode: 'nearest', intersect: false },
-      plugins: {
-        legend: { position: 'bottom', labels: { boxWidth: 18, boxHeight: 2 } },
-        tooltip: {
-          callbacks: {
-            title: (items) => `${Math.round(items[0]?.parsed.x ?? 0)} rpm`,
-            label: (item) => {
-              const mark = item.datasetIndex === 2 ? d.marks[item.dataIndex] : undefined;
-              return mark ? `${mark.label}: ${item.parsed.y?.toFixed(0)} %` : `${item.dataset.label}: ${item.parsed.y?.toFixed(item.datasetIndex === 0 ? 3 : 0)}`;
-            },
-          },
-        },
-      },
-      scales: {
-        x: rpmAxis(),
-        y: { type: 'linear', position: 'left', min: 0, title: { display: true, text: 'Torque (N·m)' }, grid: { color: '#ebe9e3' } },
-        y1: { type: 'linear', position: 'right', min: 0, max: 100, title: { display: true, text: 'Efficiency (%)' }, grid: { drawOnChartArea: false } },
-      },
-    },
+    options: motorCurveOptions(d, (y) => `${y.toFixed(0)} %`, (i) => (i === 0 ? 3 : 0), { title: 'Torque (N·m)' }, { title: 'Efficiency (%)', max: 100 }),
   };
 }
 
