@@ -29,6 +29,7 @@ const FIGURE_WORDS: Readonly<Record<string, string>> = {
   thrustN: 'Static thrust',
   tipSpeedMps: 'Propeller tip speed',
   loadedRpm: 'Loaded motor speed',
+  loadedRpmFull: 'Loaded motor speed at full charge',
 };
 
 /**

@@ -156,6 +156,7 @@ function evaluateSupply(
     thrustN: op.thrustN,
     tipSpeedMps: op.tipSpeedMps,
     loadedRpm: op.loadedRpm,
+    loadedRpmFull: op.loadedRpmFull,
     motorPeakCurrentA: motorPeakA,
     motorContinuousCurrentA: motorContA,
     motorPeakPowerW,

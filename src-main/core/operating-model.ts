@@ -17,7 +17,10 @@ export interface Operation {
   /** Per motor. */
   continuousMotorA: Known;
   loadedTopSpeedKmh: Known;
+  /** Motor rpm at the loaded top speed on nominal voltage, beside the speed quoted to a driver. */
   loadedRpm: Known;
+  /** Motor rpm at the full-charge operating point, where the currents are judged (and charted). */
+  loadedRpmFull: Known;
   /** All motors together. */
   thrustN: Known;
   tipSpeedMps: Known;
@@ -41,7 +44,7 @@ export function operate(inp: BuildInputs, supply: Known<SupplyModel>): Operation
   const notApplicable = lacking(NOT_APPLICABLE);
   if (kind.value === null) {
     const none = lackingAll(base, []);
-    return { peakMotorA: none, continuousMotorA: none, loadedTopSpeedKmh: none, loadedRpm: none, thrustN: none, tipSpeedMps: none };
+    return { peakMotorA: none, continuousMotorA: none, loadedTopSpeedKmh: none, loadedRpm: none, loadedRpmFull: none, thrustN: none, tipSpeedMps: none };
   }
   const ground = isGround(kind.value);
   const { finalDrive, tireDiameterMm, drivetrainEfficiency, massKg, tractionCoefficient, dragAreaM2, rollingCoefficient } = inp;
@@ -64,6 +67,7 @@ export function operate(inp: BuildInputs, supply: Known<SupplyModel>): Operation
       continuousMotorA: cont,
       loadedTopSpeedKmh: ground ? cont : notApplicable,
       loadedRpm: cont,
+      loadedRpmFull: cont,
       thrustN: ground ? notApplicable : lackingAll(base, [...peakNeeds, thrustCoefficient]),
       tipSpeedMps: ground ? notApplicable : peak,
     };
@@ -79,6 +83,7 @@ export function operate(inp: BuildInputs, supply: Known<SupplyModel>): Operation
     let continuousMotorA: Known;
     let loadedTopSpeedKmh: Known;
     let loadedRpm: Known;
+    let loadedRpmFull: Known;
     if (massKg.value !== null && dragAreaM2.value !== null && rollingCoefficient.value !== null) {
       const road = { massKg: massKg.value, dragAreaM2: dragAreaM2.value, rollingCoefficient: rollingCoefficient.value, airDensity: AIR_DENSITY };
       // The current is judged at full charge (the worst case); the speed a driver sees is
@@ -88,8 +93,9 @@ export function operate(inp: BuildInputs, supply: Known<SupplyModel>): Operation
       continuousMotorA = known(top.currentA);
       loadedTopSpeedKmh = known(mpsToKmh(cruising.speedMps));
       loadedRpm = known(radPerSToRpm(cruising.omegaRadS));
+      loadedRpmFull = known(radPerSToRpm(top.omegaRadS));
     } else {
-      continuousMotorA = loadedTopSpeedKmh = loadedRpm = lackingAll([], contNeeds);
+      continuousMotorA = loadedTopSpeedKmh = loadedRpm = loadedRpmFull = lackingAll([], contNeeds);
     }
     let peakMotorA: Known;
     if (massKg.value !== null && tractionCoefficient.value !== null) {
@@ -99,12 +105,12 @@ export function operate(inp: BuildInputs, supply: Known<SupplyModel>): Operation
     } else {
       peakMotorA = lackingAll([], peakNeeds);
     }
-    return { peakMotorA, continuousMotorA, loadedTopSpeedKmh, loadedRpm, thrustN: notApplicable, tipSpeedMps: notApplicable };
+    return { peakMotorA, continuousMotorA, loadedTopSpeedKmh, loadedRpm, loadedRpmFull, thrustN: notApplicable, tipSpeedMps: notApplicable };
   }
   if (ground || propDiameterM.value === null || powerCoefficient.value === null) {
     // Unreachable in practice (the guard above covers it); kept so the types stay honest.
     const peak = lackingAll([], peakNeeds);
-    return { peakMotorA: peak, continuousMotorA: peak, loadedTopSpeedKmh: peak, loadedRpm: peak, thrustN: notApplicable, tipSpeedMps: notApplicable };
+    return { peakMotorA: peak, continuousMotorA: peak, loadedTopSpeedKmh: peak, loadedRpm: peak, loadedRpmFull: peak, thrustN: notApplicable, tipSpeedMps: notApplicable };
   }
   const point = staticPropPoint(m, volts, {
     diameterM: propDiameterM.value,
@@ -113,11 +119,13 @@ export function operate(inp: BuildInputs, supply: Known<SupplyModel>): Operation
     densityKgM3: kind.value === 'boat' ? FRESH_WATER_DENSITY : AIR_DENSITY,
   });
   // Static current is the highest a propeller asks for, so it stands for both peak and continuous.
+  const staticRpm = known(radPerSToRpm(point.omegaRadS));
   return {
     peakMotorA: known(point.currentA),
     continuousMotorA: known(point.currentA),
     loadedTopSpeedKmh: notApplicable,
-    loadedRpm: known(radPerSToRpm(point.omegaRadS)),
+    loadedRpm: staticRpm,
+    loadedRpmFull: staticRpm,
     thrustN: point.thrustN === null ? thrustCoefficient : known(n * point.thrustN),
     tipSpeedMps: known(point.tipSpeedMps),
   };

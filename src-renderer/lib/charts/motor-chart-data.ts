@@ -46,7 +46,8 @@ export function motorChartData(motor: Motor | null, controller: Controller | nul
   });
   if (curve.rpm.length === 0) return null;
   const marks: OperatingMark[] = [];
-  const loadedRpm = figures.loadedRpm;
+  // The chart is drawn at full charge, so its marks sit at the full-charge operating point.
+  const loadedRpm = figures.loadedRpmFull ?? figures.loadedRpm;
   const contA = figures.motorContinuousCurrentA;
   const peakA = figures.motorPeakCurrentA;
   if (typeof peakA === 'number') {

@@ -42,6 +42,15 @@ describe('figures of a truck on 4S', () => {
     expect(f.loadedTopSpeedKmh ?? Infinity).toBeLessThan(f.theoreticalSpeedKmh ?? 0);
   });
 
+  it('place the full-charge operating point on the motor line the currents come from', () => {
+    // Drela's first-order model: I = (V − ω/Kv)/R with V = 16.8 V (4 × 4.20 V) and R the
+    // winding, controller and pack resistance in series, 0.011 + 0.001 + 4 × 0.003 Ω.
+    const rpm = f.loadedRpmFull as number;
+    expect(f.motorContinuousCurrentA).toBeCloseTo((16.8 - rpm / 2200) / 0.024, 6);
+    // The nominal-voltage rpm quoted beside the speed is lower.
+    expect(f.loadedRpm as number).toBeLessThan(rpm);
+  });
+
   it('carry model currents with the peak at least the continuous', () => {
     expect(f.currentSource).toBe('model');
     expect(f.peakCurrentA).toBeGreaterThan(0);
