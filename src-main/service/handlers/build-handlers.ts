@@ -10,6 +10,7 @@ import { byIds } from '../../store/build-selector';
 import { readSettings } from '../../store/repositories/settings';
 import { ServiceError } from '../contract';
 import { defineHandler } from '../define-handler';
+import { validate } from '../validate';
 import { describeChange } from '../record-diff';
 import { loadBuildContexts } from '../recheck';
 import { runWrite, type WriteOutcome } from '../run-write';
@@ -184,13 +185,9 @@ export const previewChange = defineHandler(previewInput, async (ctx, input) => {
     outcome = await writeBuildPatch(ctx, input.build, 'update', { preview: true });
   } else {
     const { kind, changes } = input.part;
-    const parsed = v.safeParse(partSchemasByTable[kind].patch, changes);
-    if (!parsed.success) {
-      const issue = parsed.issues[0];
-      const field = `part.changes.${v.getDotPath(issue) ?? ''}`;
-      throw new ServiceError('invalid', `${field}: ${issue.message}`, field);
-    }
-    outcome = await writePartPatch(ctx, kind, { ...input.part, changes: parsed.output as Record<string, unknown> }, 'update', { preview: true });
+    // The record shape depends on `kind`, so the changes are parsed here, with the same rules as an update.
+    const parsed = validate(partSchemasByTable[kind].patch, changes, 'part.changes.');
+    outcome = await writePartPatch(ctx, kind, { ...input.part, changes: parsed as Record<string, unknown> }, 'update', { preview: true });
   }
   const ids = outcome.verdicts.map((x) => x.buildId);
   const settings = await readSettings(ctx.db);
