@@ -56,7 +56,7 @@ test('screens of the fleet: list, greyscale badges, sheet, parts, vehicles, hist
   await page.evaluate((id) => (window.location.hash = `#/parts/packs/${id}`), fleet.packs.shop4s1);
   await expect(page.getByTestId('used-by')).toHaveCount(3);
   await shot(page, 'parts');
-  await page.evaluate((id) => (window.location.hash = `#/parts/motors/${id}`), fleet.motors.tork);
+  await page.evaluate((id) => (window.location.hash = `#/parts/motors/${id}`), fleet.motors.shop2050);
   await expect(page.getByRole('form', { name: 'Edit motor' }).getByLabel('Kv (rpm/V)')).toHaveValue('2200');
   await shot(page, 'parts-motors');
 
@@ -95,7 +95,7 @@ test('swap preview of a gearing change, side by side', async ({ page, shell }) =
   await shot(page, 'swap-preview', true);
   // And the pack's shared record: every build on it, before and after.
   await page.getByRole('tab', { name: "Edit a shared part's ratings" }).click();
-  await page.getByLabel('Part record').selectOption({ label: 'motor: Tork 2050 4-pole 2200Kv' });
+  await page.getByLabel('Part record').selectOption({ label: 'motor: Shop 2050 4-pole 2200Kv' });
   await page.getByLabel('Field').selectOption({ label: 'Rated power (W)' });
   await page.getByLabel('New value').fill('2000');
   await page.getByRole('button', { name: 'Preview' }).click();
