@@ -16,6 +16,8 @@ export interface LocalServerOptions {
   rendererDir: string;
   port?: number;
   token?: string;
+  /** Only 127.0.0.1 is accepted: the shell serves this computer alone. Any other address is refused before listening. */
+  bindAddress?: string;
 }
 
 export interface LocalServer {
@@ -24,6 +26,8 @@ export interface LocalServer {
   openUrl: string;
   token: string;
   port: number;
+  /** What the listening socket itself reports (`server.address()`). */
+  listening: { address: string; family: string; port: number };
   close(): Promise<void>;
 }
 
@@ -63,6 +67,9 @@ async function readBody(req: IncomingMessage): Promise<string> {
 
 /** Serves the renderer and the handler map on 127.0.0.1 only. */
 export async function startLocalServer(options: LocalServerOptions): Promise<LocalServer> {
+  if (options.bindAddress !== undefined && options.bindAddress !== LOOPBACK) {
+    throw new Error(`The browser shell listens on ${LOOPBACK} only (this computer); it will not listen on "${options.bindAddress}".`);
+  }
   const token = options.token ?? randomBytes(24).toString('base64url');
   let port = 0;
   const sockets = new Set<import('node:net').Socket>();
@@ -127,13 +134,15 @@ export async function startLocalServer(options: LocalServerOptions): Promise<Loc
     server.once('error', reject);
     server.listen(options.port ?? 0, LOOPBACK, () => resolve());
   });
-  port = (server.address() as AddressInfo).port;
+  const bound = server.address() as AddressInfo;
+  port = bound.port;
   const url = `http://${LOOPBACK}:${port}/`;
   return {
     url,
     openUrl: `${url}#token=${token}`,
     token,
     port,
+    listening: { address: bound.address, family: bound.family, port: bound.port },
     close: async () => {
       unsubscribe();
       for (const res of eventStreams) res.end();

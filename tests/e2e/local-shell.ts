@@ -3,6 +3,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { test as base, expect } from '@playwright/test';
+import { isLoopbackAddress } from '../helpers/loopback-only';
 
 /** A real loopback shell on its own store, started from the built bundle as a user would. */
 export interface Shell {
@@ -56,7 +57,7 @@ export async function startShell(extraArgs: string[] = []): Promise<{ shell: She
   return { shell, stop };
 }
 
-export const test = base.extend<{ shell: Shell; consoleErrors: string[] }>({
+export const test = base.extend<{ shell: Shell; consoleErrors: string[]; outsideRequests: string[] }>({
   shell: async ({}, use) => {
     const { shell, stop } = await startShell();
     await use(shell);
@@ -77,6 +78,20 @@ export const test = base.extend<{ shell: Shell; consoleErrors: string[] }>({
       });
       await use(errors);
       expect(errors, 'errors in the page console').toEqual([]);
+    },
+    { auto: true },
+  ],
+  // Tests send traffic to the loopback range only: any request the page makes elsewhere fails the test.
+  outsideRequests: [
+    async ({ context }, use) => {
+      const outside: string[] = [];
+      context.on('request', (request) => {
+        const url = new URL(request.url());
+        if (!/^(https?|wss?):$/.test(url.protocol)) return;
+        if (!isLoopbackAddress(url.hostname.replace(/^\[|\]$/g, ''))) outside.push(request.url());
+      });
+      await use(outside);
+      expect(outside, 'requests outside 127.0.0.0/8 and ::1').toEqual([]);
     },
     { auto: true },
   ],
