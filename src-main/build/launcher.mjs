@@ -203,7 +203,8 @@ export async function launch(argv, os) {
   }
   if (args.problems.length > 0) {
     for (const problem of args.problems) error(problem);
-    return exit(2);
+    // 5: a wrong command line, as the rigbook command and the browser shell exit.
+    return exit(5);
   }
 
   const forward = (child) => {

@@ -107,7 +107,7 @@ describe('npm start with the browser shell', () => {
     const m = machine({ env: { RIGBOOK_SHELL: 'window' } });
     await launch([], m.system);
     expect(m.calls).toEqual([]);
-    expect(m.exits).toEqual([2]);
+    expect(m.exits).toEqual([5]);
     expect(m.err).toEqual(['RIGBOOK_SHELL must be "browser" or "auto", not "window"']);
   });
 
