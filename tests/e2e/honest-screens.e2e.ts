@@ -126,6 +126,12 @@ test('filters, sort and search live in the address: a reload and Back keep them'
   await expect(page.getByTestId('build-row')).toHaveCount(2);
   await expect(page.getByLabel('Search builds')).toHaveValue('spare');
   await expect(page.getByRole('columnheader', { name: /^Build/ })).toHaveAttribute('aria-sort', 'descending');
+
+  // The Builds tab keeps the list as it was left, and writes it back into the address.
+  await page.getByTestId('build-row').first().dblclick();
+  await page.getByRole('navigation', { name: 'Screens' }).getByRole('link', { name: 'Builds' }).click();
+  await expect(page.getByLabel('Search builds')).toHaveValue('spare');
+  await expect.poll(() => page.evaluate(() => window.location.hash)).toBe(hash);
 });
 
 test('archive, list the archived, restore, duplicate, and start a build from a vehicle; history names archived builds in local time', async ({ page, shell }) => {
