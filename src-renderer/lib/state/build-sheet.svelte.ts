@@ -51,7 +51,7 @@ export class BuildSheetState {
     try {
       await this.client.call('builds.archive', { id: b.id, expectedVersion: b.version, archived, reason: '' });
       await this.load();
-      this.actionMessage = archived ? 'Archived: the build is kept with its history under Builds › Archived, and can be restored.' : 'Restored to the builds list.';
+      this.actionMessage = archived ? 'Archived.' : 'Restored to the builds list.';
       return true;
     } catch (error) {
       this.actionMessage = asApiError(error).message;
