@@ -3,4 +3,5 @@
  * verdicts carry only statuses and list figures (the detail is evaluated afresh), so a store
  * opened by a newer engine re-checks every build once to keep the list and the sheets agreed.
  */
-export const ENGINE_VERSION = 1;
+// 2: stored verdicts name the rule and source of the list's current (re-check fills them in).
+export const ENGINE_VERSION = 2;

@@ -23,6 +23,8 @@ function summary(over: Partial<BuildSummary> & { id: string; name: string }): Bu
     theoreticalSpeedKmh: null,
     peakCurrentA: null,
     peakCurrentLimitA: null,
+    currentRule: null,
+    currentSource: null,
     updatedAt: '2026-01-01T00:00:00Z',
     ...over,
   };

@@ -31,10 +31,10 @@ export const SUPPLY_FIGURES: FigureGroup = {
     { key: 'packVoltageCutoffV', label: 'Cut-off voltage', unit: 'V', decimals: 1 },
     { key: 'capacityMah', label: 'Capacity', unit: 'mAh', decimals: 0 },
     { key: 'packResistanceOhm', label: 'Pack resistance', unit: 'mΩ', scale: 1000, decimals: 1 },
-    { key: 'loadedVoltageV', label: 'Voltage at peak current', unit: 'V', decimals: 2 },
-    { key: 'peakCurrentA', label: 'Peak current', unit: 'A', decimals: 1 },
-    { key: 'continuousCurrentA', label: 'Continuous current', unit: 'A', decimals: 1 },
-    { key: 'peakPowerW', label: 'Peak power', unit: 'W', decimals: 0 },
+    { key: 'loadedVoltageV', label: 'Voltage at peak current, full charge', unit: 'V', decimals: 2 },
+    { key: 'peakCurrentA', label: 'Peak current, full charge', unit: 'A', decimals: 1, hint: 'model at full charge, or as measured' },
+    { key: 'continuousCurrentA', label: 'Continuous current, full charge', unit: 'A', decimals: 1, hint: 'model at full charge, or as measured' },
+    { key: 'peakPowerW', label: 'Peak power, full charge', unit: 'W', decimals: 0 },
   ],
 };
 
@@ -44,11 +44,11 @@ export const MOTOR_FIGURES: FigureGroup = {
   figures: [
     { key: 'noLoadRpm', label: 'No-load speed, nominal', unit: 'rpm', decimals: 0, hint: 'Kv × nominal supply voltage' },
     { key: 'noLoadRpmFull', label: 'No-load speed, full charge', unit: 'rpm', decimals: 0 },
-    { key: 'loadedRpm', label: 'Loaded speed', unit: 'rpm', decimals: 0 },
+    { key: 'loadedRpm', label: 'Loaded speed, nominal', unit: 'rpm', decimals: 0, hint: 'at the loaded top speed on nominal voltage' },
     { key: 'torqueConstantNmPerA', label: 'Torque constant Kt', unit: 'N·m/A', decimals: 4, hint: '60 ÷ (2π · Kv)' },
-    { key: 'motorPeakCurrentA', label: 'Peak current per motor', unit: 'A', decimals: 1 },
-    { key: 'motorContinuousCurrentA', label: 'Continuous current per motor', unit: 'A', decimals: 1 },
-    { key: 'motorPeakPowerW', label: 'Peak power per motor', unit: 'W', decimals: 0 },
+    { key: 'motorPeakCurrentA', label: 'Peak current per motor, full charge', unit: 'A', decimals: 1 },
+    { key: 'motorContinuousCurrentA', label: 'Continuous current per motor, full charge', unit: 'A', decimals: 1 },
+    { key: 'motorPeakPowerW', label: 'Peak power per motor, full charge', unit: 'W', decimals: 0 },
   ],
 };
 
@@ -58,8 +58,8 @@ export const DRIVETRAIN_FIGURES: FigureGroup = {
   figures: [
     { key: 'finalDriveRatio', label: 'Final drive ratio', unit: ':1', decimals: 2, hint: 'spur ÷ pinion × internal ratio' },
     { key: 'rolloutMm', label: 'Rollout', quantity: 'lengthMm', decimals: 1, hint: 'distance per motor turn' },
-    { key: 'theoreticalSpeedKmh', label: 'Theoretical speed', quantity: 'speedKmh', decimals: 1, hint: 'at nominal no-load speed, no slip' },
-    { key: 'loadedTopSpeedKmh', label: 'Loaded top speed', quantity: 'speedKmh', decimals: 1, hint: 'where motor torque meets road load' },
+    { key: 'theoreticalSpeedKmh', label: 'Theoretical speed, nominal', quantity: 'speedKmh', decimals: 1, hint: 'at nominal no-load speed, no slip' },
+    { key: 'loadedTopSpeedKmh', label: 'Loaded top speed, nominal', quantity: 'speedKmh', decimals: 1, hint: 'where motor torque meets road load' },
   ],
 };
 
@@ -67,8 +67,8 @@ export const PROPELLER_FIGURES: FigureGroup = {
   id: 'propeller',
   title: 'Propeller',
   figures: [
-    { key: 'thrustN', label: 'Static thrust', quantity: 'forceN', decimals: 1 },
-    { key: 'tipSpeedMps', label: 'Tip speed', quantity: 'speedMps', decimals: 0 },
+    { key: 'thrustN', label: 'Static thrust, full charge', quantity: 'forceN', decimals: 1 },
+    { key: 'tipSpeedMps', label: 'Tip speed, full charge', quantity: 'speedMps', decimals: 0, hint: 'at the highest rpm the propeller reaches' },
   ],
 };
 

@@ -3,6 +3,7 @@ import type { Build, BuildVerdict } from '../../../src-main/core/domain';
 import type { UnitSystem } from '../../../src-main/core/units';
 import { asApiError, type Client } from '../api/client';
 import { draftChanges, draftToRecord, errorFieldKey, fieldLabel, messageForField, toDraft, type Draft } from '../forms/draft';
+import type { PreviewRequest } from './over-confirm.svelte';
 import { BUILD_FIELD_LIST, GEARING_KEYS, flattenBuild, nestBuild, suppliesEqual, type SupplyDraft } from '../builds/build-fields';
 
 const NEW_BUILD = {
@@ -32,6 +33,8 @@ export class BuildFormState {
   notice = $state<string | null>(null);
 
   conflict = $derived(this.formError?.kind === 'conflict');
+  /** Asked before a write that would make a build OVER (see over-confirm.svelte.ts); false keeps the form unsaved. */
+  confirmWrite: ((request: PreviewRequest) => Promise<boolean>) | null = null;
 
   constructor(
     private readonly client: Client,
@@ -102,7 +105,12 @@ export class BuildFormState {
     try {
       if (this.record === null) {
         const fields = nestBuild(draftToRecord(BUILD_FIELD_LIST, this.draft, this.units));
-        const result = (await this.client.callUntyped('builds.create', { ...fields, supplies: this.suppliesInput() })) as { record: Build; verdict: BuildVerdict | null };
+        const payload = { ...fields, supplies: this.suppliesInput() };
+        if (this.confirmWrite && !(await this.confirmWrite({ create: payload }))) {
+          this.notice = 'Not saved: nothing was written.';
+          return null;
+        }
+        const result = (await this.client.callUntyped('builds.create', payload)) as { record: Build; verdict: BuildVerdict | null };
         this.reset(result.record);
         return result;
       }
@@ -117,7 +125,12 @@ export class BuildFormState {
         this.notice = 'Nothing changed.';
         return { record: this.record, verdict: null };
       }
-      const result = (await this.client.callUntyped('builds.update', { id: this.record.id, expectedVersion: this.record.version, changes, reason: this.reason.trim() })) as {
+      const update = { id: this.record.id, expectedVersion: this.record.version, changes, reason: this.reason.trim() };
+      if (this.confirmWrite && !(await this.confirmWrite({ build: update }))) {
+        this.notice = 'Not saved: nothing was written.';
+        return null;
+      }
+      const result = (await this.client.callUntyped('builds.update', update)) as {
         record: Build;
         verdict: BuildVerdict | null;
       };

@@ -5,6 +5,7 @@ import { draftChanges, draftToRecord, errorFieldKey, fieldLabel, messageForField
 import { PART_FIELDS, type FieldDef } from '../parts/part-fields';
 import { partApi, type PartRecord, type PartWriteResult } from '../parts/part-api';
 import { PART_KINDS, type PartTable } from '../parts/part-kinds';
+import type { PreviewRequest } from './over-confirm.svelte';
 
 const NEW_DEFAULTS: Readonly<Record<PartTable, Record<string, unknown>>> = {
   batteries: { chemistry: 'lipo', cellsSeries: 4, cellsParallel: 1, cycleCount: 0, retired: false, notes: '' },
@@ -28,6 +29,8 @@ export class PartFormState {
   saving = $state(false);
   notice = $state<string | null>(null);
   loaded = $state(false);
+  /** Asked before an edit that would make a build OVER (see over-confirm.svelte.ts); false keeps the form unsaved. */
+  confirmWrite: ((request: PreviewRequest) => Promise<boolean>) | null = null;
 
   readonly fields: readonly FieldDef[];
   dirty = $derived(Object.keys(this.draft).some((k) => this.draft[k] !== this.base[k]));
@@ -93,6 +96,10 @@ export class PartFormState {
         if (Object.keys(changes).length === 0) {
           this.notice = 'Nothing changed.';
           return this.record;
+        }
+        if (this.confirmWrite && !(await this.confirmWrite({ part: { kind: this.table, id: this.record.id, expectedVersion: this.record.version, changes, reason: this.reason.trim() } }))) {
+          this.notice = 'Not saved: nothing was written.';
+          return null;
         }
         const result: PartWriteResult = await partApi.update(this.client, this.table, this.record.id, this.record.version, changes, this.reason.trim());
         stored = result.record;
