@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { test as base, expect } from '@playwright/test';
 import { isLoopbackAddress } from '../helpers/loopback-only';
+import { expectNoAxeViolations } from './axe-check';
 
 /** A real loopback shell on its own store, started from the built bundle as a user would. */
 export interface Shell {
@@ -57,7 +58,7 @@ export async function startShell(extraArgs: string[] = []): Promise<{ shell: She
   return { shell, stop };
 }
 
-export const test = base.extend<{ shell: Shell; consoleErrors: string[]; outsideRequests: string[] }>({
+export const test = base.extend<{ shell: Shell; consoleErrors: string[]; outsideRequests: string[]; axeFinalState: void }>({
   shell: async ({}, use) => {
     const { shell, stop } = await startShell();
     await use(shell);
@@ -92,6 +93,18 @@ export const test = base.extend<{ shell: Shell; consoleErrors: string[]; outside
       });
       await use(outside);
       expect(outside, 'requests outside 127.0.0.0/8 and ::1').toEqual([]);
+    },
+    { auto: true },
+  ],
+  // Every test that passes also has the screen it ended on checked against the accessibility
+  // rule set, so a screen added later is covered by the first test that reaches it. Pages that
+  // never opened the app (about:blank) are not ours to judge.
+  axeFinalState: [
+    async ({ page, shell }, use, testInfo) => {
+      await use();
+      if (testInfo.status !== testInfo.expectedStatus || page.isClosed() || !page.url().startsWith(shell.url)) return;
+      const hash = new URL(page.url()).hash.replace(/#token=.*/, '') || '#/';
+      await expectNoAxeViolations(page, `end of "${testInfo.title}" (${hash})`);
     },
     { auto: true },
   ],
