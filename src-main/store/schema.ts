@@ -100,10 +100,28 @@ export interface HistoryTable {
   verdictChanges: string;
 }
 
-/** Which builds a history entry touched, so a build's timeline includes part edits. */
+/**
+ * Builds a history entry names one by one: the builds whose verdict it changed, and the builds
+ * of a write that named its builds by id. Builds merely re-checked through a part, a class or
+ * the whole fleet are kept as that selector instead (historySelectors), not one row each.
+ */
 export interface HistoryBuildTable {
   historyId: number;
   buildId: string;
+}
+
+/**
+ * The selector that named the builds a history entry re-checked, resolved when a build's
+ * timeline is read: `part` (partKind = table, target = part id), `class` (target = class name)
+ * or `all`. An `any` selector is stored as one row per alternative.
+ */
+export interface HistorySelectorTable {
+  historyId: number;
+  selects: 'part' | 'class' | 'all';
+  /** The part table for `part`; '' otherwise. */
+  partKind: string;
+  /** The part id or the class name; '' for `all`. */
+  target: string;
 }
 
 export interface SettingTable {
@@ -124,6 +142,7 @@ export interface Db {
   verdicts: VerdictTable;
   history: HistoryTable;
   historyBuilds: HistoryBuildTable;
+  historySelectors: HistorySelectorTable;
   settings: SettingTable;
 }
 

@@ -1,6 +1,8 @@
 import type { Status } from '../../core/domain';
 import { chunks, type DbHandle } from '../db-handle';
-import { selectedBuildIds, selectsNothing, type BuildSelector } from '../build-selector';
+import type { Expression, ExpressionBuilder, Insertable, SqlBool } from 'kysely';
+import type { BuildSelector } from '../build-selector';
+import type { Db, HistorySelectorTable } from '../schema';
 
 export interface VerdictChange {
   buildId: string;
@@ -28,6 +30,42 @@ export interface HistoryEntryInput {
 /** An entry as read back: its id instead of the builds it linked. */
 export type HistoryEntry = Omit<HistoryEntryInput, 'builds'> & { id: number };
 
+type SelectorRow = Omit<Insertable<HistorySelectorTable>, 'historyId'>;
+
+/**
+ * Splits a selector into what is stored as a rule (part, class, all) and what is stored as
+ * named builds (ids). Rules cost one row whatever the number of builds they name.
+ */
+export function flattenSelector(selector: BuildSelector, rules: SelectorRow[] = [], ids: Set<string> = new Set()): { rules: SelectorRow[]; ids: Set<string> } {
+  switch (selector.by) {
+    case 'ids':
+      for (const id of selector.ids) ids.add(id);
+      break;
+    case 'part':
+      rules.push({ selects: 'part', partKind: selector.kind, target: selector.id });
+      break;
+    case 'class':
+      rules.push({ selects: 'class', partKind: '', target: selector.className });
+      break;
+    case 'all':
+      rules.push({ selects: 'all', partKind: '', target: '' });
+      break;
+    case 'any':
+      for (const s of selector.of) flattenSelector(s, rules, ids);
+      break;
+  }
+  return { rules, ids };
+}
+
+// 2 columns a row: well under SQLite's bound-parameter limit.
+const LINKS_PER_INSERT = 5000;
+
+/**
+ * Appends the entry. What the store keeps of the re-checked builds: the selector that named
+ * them, plus one link per build whose verdict changed (so the timeline of a build that later
+ * leaves the part still shows the edit that changed it). An edit of a part shared by 10 000
+ * builds that changes no verdict therefore writes one entry and one selector row.
+ */
 export async function appendHistory(db: DbHandle, entry: HistoryEntryInput): Promise<number> {
   const inserted = await db
     .insertInto('history')
@@ -47,15 +85,58 @@ export async function appendHistory(db: DbHandle, entry: HistoryEntryInput): Pro
     .executeTakeFirstOrThrow();
   // better-sqlite3 may hand back a BigInt row id.
   const historyId = Number(inserted.id);
-  if (!selectsNothing(entry.builds)) {
-    // One INSERT … SELECT links the entry to every re-checked build, however many there are.
+  const { rules, ids } = flattenSelector(entry.builds);
+  for (const change of entry.verdictChanges) ids.add(change.buildId);
+  if (rules.length > 0) {
+    await db
+      .insertInto('historySelectors')
+      .values(rules.map((r) => ({ ...r, historyId })))
+      .execute();
+  }
+  for (const part of chunks([...ids], LINKS_PER_INSERT)) {
     await db
       .insertInto('historyBuilds')
-      .columns(['historyId', 'buildId'])
-      .expression(selectedBuildIds(db, entry.builds).clearSelect().select((eb) => [eb.val(historyId).as('historyId'), 'builds.id as buildId']))
+      .values(part.map((buildId) => ({ historyId, buildId })))
       .execute();
   }
   return historyId;
+}
+
+/** What a build is made of now: the keys its timeline matches selector rows against. */
+async function buildKeys(db: DbHandle, buildId: string) {
+  const build = await db
+    .selectFrom('builds')
+    .leftJoin('vehicles', 'vehicles.id', 'builds.vehicleId')
+    .select(['builds.vehicleId', 'builds.motorId', 'builds.controllerId', 'builds.propellerId', 'builds.createdAt', 'vehicles.className'])
+    .where('builds.id', '=', buildId)
+    .executeTakeFirst();
+  if (build === undefined) return null;
+  const packs = await db
+    .selectFrom('supplyPacks')
+    .innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId')
+    .select('supplyPacks.batteryId')
+    .distinct()
+    .where('supplies.buildId', '=', buildId)
+    .execute();
+  return { ...build, batteryIds: packs.map((p) => p.batteryId) };
+}
+
+/** A selector row that names a build made of these parts. */
+function selectorMatches(eb: ExpressionBuilder<Db, 'historySelectors'>, keys: NonNullable<Awaited<ReturnType<typeof buildKeys>>>): Expression<SqlBool> {
+  const part = (kind: string, ids: readonly (string | null)[]) => {
+    const present = ids.filter((id): id is string => id !== null);
+    if (present.length === 0) return [];
+    return [eb.and([eb('historySelectors.selects', '=', 'part'), eb('historySelectors.partKind', '=', kind), eb('historySelectors.target', 'in', present)])];
+  };
+  return eb.or([
+    eb('historySelectors.selects', '=', 'all'),
+    ...part('vehicles', [keys.vehicleId]),
+    ...part('motors', [keys.motorId]),
+    ...part('controllers', [keys.controllerId]),
+    ...part('propellers', [keys.propellerId]),
+    ...part('batteries', keys.batteryIds),
+    ...(keys.className === null || keys.className === '' ? [] : [eb.and([eb('historySelectors.selects', '=', 'class'), eb('historySelectors.target', '=', keys.className)])]),
+  ]);
 }
 
 export interface HistoryQuery {
@@ -72,12 +153,20 @@ export async function listHistory(db: DbHandle, q: HistoryQuery): Promise<Histor
   let query = db.selectFrom('history').selectAll('history').orderBy('history.id', 'desc').limit(q.limit);
   if (q.buildId !== undefined) {
     const buildId = q.buildId;
-    query = query.where((eb) =>
-      eb.or([
+    const keys = await buildKeys(db, buildId);
+    query = query.where((eb) => {
+      const own = [
         eb.and([eb('history.entityKind', '=', 'builds'), eb('history.entityId', '=', buildId)]),
         eb('history.id', 'in', eb.selectFrom('historyBuilds').select('historyId').where('historyBuilds.buildId', '=', buildId)),
-      ]),
-    );
+      ];
+      if (keys === null) return eb.or(own);
+      // Selector rows are resolved against what the build is made of now, and only for entries
+      // written since the build was added (a fleet-wide re-check before it existed is not its).
+      return eb.or([
+        ...own,
+        eb.and([eb('history.at', '>=', keys.createdAt), eb('history.id', 'in', eb.selectFrom('historySelectors').select('historySelectors.historyId').where((hs) => selectorMatches(hs, keys)))]),
+      ]);
+    });
   }
   if (q.entityKind !== undefined) query = query.where('history.entityKind', '=', q.entityKind);
   if (q.entityId !== undefined) query = query.where('history.entityId', '=', q.entityId);
