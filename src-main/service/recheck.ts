@@ -5,7 +5,7 @@ import { selectedBuildIds, selectsNothing, type BuildSelector } from '../store/b
 import { loadBuildsForEvaluation } from '../store/repositories/builds';
 import { rowToRecord } from '../store/repositories/part-records';
 import type { VerdictChange } from '../store/repositories/history';
-import { getStoredStatuses, verdictToRow, writeVerdicts } from '../store/repositories/verdicts';
+import { getStoredStatuses, sameVerdictRow, verdictToRow, writeVerdicts } from '../store/repositories/verdicts';
 
 export interface RecheckResult {
   verdicts: BuildVerdict[];
@@ -99,6 +99,9 @@ export async function recheckBuilds(
   const verdicts = contexts.map((context) => evaluateBuild(context, options));
   const changes: VerdictChange[] = [];
   for (const verdict of verdicts) for (const change of diffStatuses(verdict, stored.get(verdict.buildId))) changes.push(change);
-  await writeVerdicts(db, verdicts.map((verdict) => verdictToRow(verdict, evaluatedAt)));
+  // Only rows whose list columns differ from the stored row are written: a part edit that moves
+  // no verdict (a note, a mass) rewrites nothing, and `evaluatedAt` says when the verdict last changed.
+  const rows = verdicts.map((verdict) => verdictToRow(verdict, evaluatedAt)).filter((row) => !sameVerdictRow(stored.get(row.buildId), row));
+  await writeVerdicts(db, rows);
   return { verdicts, changes };
 }

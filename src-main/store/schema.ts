@@ -81,6 +81,7 @@ export interface VerdictTable {
   currentSource: string | null;
   /** `supplyId=status` pairs joined by commas: cheap to compare on a re-check without parsing JSON. */
   supplyStatuses: string;
+  /** When this row last changed: a re-check that finds the same verdict and figures writes nothing. */
   evaluatedAt: string;
 }
 

@@ -9,9 +9,11 @@
 //   RIGBOOK_BENCH_BROWSER=0   skip the Chromium part (cold start, keystrokes, memory)
 //   RIGBOOK_BENCH_KEEP=1      keep the temp folder with the generated stores
 //   --markdown                also print the table as Markdown
+//   --json FILE               also write the figures as JSON to FILE (always printed as one
+//                             `BENCH-JSON {…}` line at the end)
 
 import { execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync, statSync } from 'node:fs';
+import { mkdtempSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { benchCore } from './core-bench';
@@ -19,7 +21,7 @@ import { benchVariedEvaluation, type VariedEvaluation } from './evaluation-bench
 import { makeStore, type BenchStore } from './fleet-stores';
 import { benchListQueries } from './list-query-bench';
 import { benchRecheck, summary, type RecheckBench } from './recheck-bench';
-import { BUDGETS, renderMarkdown, renderTable, type Figure } from './report';
+import { BUDGETS, renderJson, renderMarkdown, renderTable, type Figure } from './report';
 import { benchShell, type ShellBench } from './shell-bench';
 import { median, worst } from './stats';
 
@@ -85,9 +87,24 @@ function recheckFigures(b: RecheckBench, budgeted: boolean): void {
     ...(budgeted ? { budget: BUDGETS.recheckVsFloor } : {}),
   });
   const grown = (b.storeBytes.after - b.storeBytes.before) / b.storeBytes.edits / 2 ** 20;
+  figures.push({
+    group,
+    name: 'verdict rows written by an edit (counted by the floor, which writes what the service writes)',
+    value: b.written,
+    unit: 'rows',
+    detail: `of ${b.rechecked.toLocaleString('en-US')} re-checked: only rows whose status or list figures changed`,
+  });
+  figures.push({
+    group,
+    name: 'store growth per edit (pages × page size, after a checkpoint)',
+    value: grown,
+    unit: 'MiB',
+    detail: `${b.storeBytes.before.toLocaleString('en-US')} → ${b.storeBytes.after.toLocaleString('en-US')} bytes over ${b.storeBytes.edits} edits, each re-checking ${b.rechecked.toLocaleString('en-US')} builds`,
+    ...(budgeted ? { budget: BUDGETS.growthPerEdit } : {}),
+  });
   notes.push(
     `At ${b.builds.toLocaleString('en-US')} builds: garbage collection inside a call, median ${ms(b.serviceGcMs)} (service) and ${ms(b.floorGcMs)} (floor); ` +
-      `the store grew ${grown.toFixed(2)} MiB an edit (history links to every re-checked build), ${(b.storeBytes.before / 2 ** 20).toFixed(1)} → ${(b.storeBytes.after / 2 ** 20).toFixed(1)} MiB over ${b.storeBytes.edits} edits`,
+      `service ${ms(s.serviceMedian)} beside floor ${ms(s.floorMedian)} (absolute times on a shared machine: read the ratio)`,
   );
   if (typeof b.servicePhases === 'string') notes.push(`Service path at ${b.builds} builds: ${b.servicePhases}`);
   else {
@@ -144,7 +161,19 @@ async function main(): Promise<void> {
 
     await section('builds.list at 10 000 builds', async () => {
       if (!big) throw new Error('no 10 000-build store');
-      for (const q of await benchListQueries(big.dbPath, RUNS)) {
+      const queries = await benchListQueries(big.dbPath, RUNS);
+      const first = queries[0];
+      if (first) {
+        figures.push({
+          group: 'Builds list query, 10 000 builds (builds.list through host.call)',
+          name: 'first list payload (what the window loads at start), bytes as sent',
+          value: first.jsonBytes / 2 ** 20,
+          unit: 'MiB',
+          detail: `${first.jsonBytes.toLocaleString('en-US')} bytes of JSON, ${first.rows.toLocaleString('en-US')} rows`,
+          budget: BUDGETS.firstListPayload,
+        });
+      }
+      for (const q of queries) {
         figures.push({
           group: 'Builds list query, 10 000 builds (builds.list through host.call)',
           name: q.name,
@@ -238,8 +267,8 @@ async function main(): Promise<void> {
       notes.push('Chromium part skipped (RIGBOOK_BENCH_BROWSER=0).');
     }
 
-    // Last: the re-checks write history (a link per re-checked build), which grows the store the
-    // shell's start copies; the cold start above is measured on the store as imported.
+    // Last: the re-checks write history, which grows the store the shell's start copies; the
+    // cold start above is measured on the store as imported.
     await section('re-check at 1 000 builds (service and raw floor, alternating)', async () => {
       if (!small) throw new Error('no 1 000-build store');
       recheckFigures(await benchRecheck(small.dbPath, RUNS), false);
@@ -270,10 +299,15 @@ async function main(): Promise<void> {
     log('');
     log(renderMarkdown(table));
   }
+  const loadAfter = uptime();
+  const json = renderJson(table, { runs: RUNS, cores: os.cpus().length, node: process.version, loadBefore, loadAfter, incomplete: failures });
+  const jsonAt = process.argv.indexOf('--json');
+  if (jsonAt >= 0 && process.argv[jsonAt + 1]) writeFileSync(process.argv[jsonAt + 1]!, `${json}\n`);
   log('');
   log(`shared machine — load before: ${loadBefore}`);
-  log(`shared machine — load after:  ${uptime()}`);
+  log(`shared machine — load after:  ${loadAfter}`);
   log(`benchmark took ${((performance.now() - startedAt) / 1000).toFixed(0)} s`);
+  log(`BENCH-JSON ${json}`);
   if (failures.length > 0) {
     log(`\nParts that could not run (figures above are incomplete):\n${failures.map((f) => `  - ${f}`).join('\n')}`);
     process.exitCode = 1;

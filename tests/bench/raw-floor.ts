@@ -2,8 +2,9 @@
 // statements and nothing in between. It opens the store file with better-sqlite3 directly
 // (same pragmas as the app), edits the motor, reads the same rows the service reads, runs the
 // same pure evaluation (so the ratio to the service isolates the data layer, not the physics),
-// and writes the same verdict rows, the history row and its links to every re-checked build, in
-// one transaction.
+// compares each fresh verdict row with the stored one and writes only the rows that changed, then
+// the history row, its selector row and a link for each build whose verdict changed, in one
+// transaction.
 
 import Database from 'better-sqlite3';
 import type { Battery, BuildContext, BuildVerdict, ClassRule, Controller, Motor, Propeller, Status, Supply, Vehicle } from '../../src-main/core/domain';
@@ -19,6 +20,8 @@ export interface FloorTiming {
   commitMs: number;
   builds: number;
   changes: number;
+  /** Verdict rows written: those that differ from the stored row. */
+  written: number;
 }
 
 /** A build as the `builds` statement returns it, column by column. */
@@ -50,7 +53,8 @@ const SQL = {
   controllers: 'select * from controllers where id in (select value from json_each(?))',
   propellers: 'select * from propellers where id in (select value from json_each(?))',
   classRules: 'select * from classRules where archivedAt is null and className in (select value from json_each(?))',
-  stored: 'select v.buildId, v.status, v.supplyStatuses from builds b join verdicts v on v.buildId = b.id where b.motorId = ?',
+  stored: `select v.buildId, v.status, v.supplyStatuses, v.supplyVoltageFullV, v.theoreticalSpeedKmh, v.peakCurrentA, v.peakCurrentLimitA, v.currentRule, v.currentSource
+    from builds b join verdicts v on v.buildId = b.id where b.motorId = ?`,
   upsertVerdict: `insert into verdicts (buildId, status, supplyVoltageFullV, theoreticalSpeedKmh, peakCurrentA, peakCurrentLimitA, currentRule, currentSource, supplyStatuses, evaluatedAt)
     values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)
     on conflict (buildId) do update set status = excluded.status, supplyVoltageFullV = excluded.supplyVoltageFullV,
@@ -59,7 +63,8 @@ const SQL = {
       supplyStatuses = excluded.supplyStatuses, evaluatedAt = excluded.evaluatedAt`,
   history: `insert into history (at, actor, action, entityKind, entityId, summary, reason, before, after, verdictChanges)
     values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
-  historyBuilds: 'insert into historyBuilds (historyId, buildId) select ?, id from builds where motorId = ?',
+  historySelector: "insert into historySelectors (historyId, selects, partKind, target) values (?, 'part', 'motors', ?)",
+  historyBuild: 'insert into historyBuilds (historyId, buildId) values (?, ?)',
 } as const;
 
 /** Statements whose rows come back as arrays. */
@@ -126,7 +131,7 @@ export class RawFloor {
   /** Sets the motor's maxCurrentA and re-checks every build that uses it, as `motors.update` does. */
   editMotor(motorId: string, maxCurrentA: number, at: string): FloorTiming {
     const st = this.st;
-    const t: Omit<FloorTiming, 'totalMs' | 'commitMs'> = { readMs: 0, evaluateMs: 0, writeMs: 0, builds: 0, changes: 0 };
+    const t: Omit<FloorTiming, 'totalMs' | 'commitMs'> = { readMs: 0, evaluateMs: 0, writeMs: 0, builds: 0, changes: 0, written: 0 };
     const started = performance.now();
     let bodyDone = 0;
     this.raw.transaction(() => {
@@ -168,8 +173,8 @@ export class RawFloor {
         const rule = bookkeeping(row) as unknown as ClassRule;
         rulesByClass.set(rule.className, [...(rulesByClass.get(rule.className) ?? []), rule]);
       }
-      const stored = new Map<string, { status: string; supplyStatuses: string }>();
-      for (const [buildId, status, supplyStatuses] of st.stored.all(motorId) as [string, string, string][]) stored.set(buildId, { status, supplyStatuses });
+      const stored = new Map<string, { status: string; supplyStatuses: string; figures: unknown[] }>();
+      for (const [buildId, status, supplyStatuses, ...figures] of st.stored.all(motorId) as [string, string, string, ...unknown[]][]) stored.set(buildId, { status, supplyStatuses, figures });
       let now = performance.now();
       t.readMs = now - mark;
       mark = now;
@@ -213,13 +218,20 @@ export class RawFloor {
             if (from !== s.status) changes.push({ buildId: v.buildId, supplyId: s.supplyId, from, to: s.status });
           }
         }
-        st.upsertVerdict.run(v.buildId, v.status, fullV, speed, peak, limit, rule, source, supplyStatuses, at);
+        const same =
+          before !== undefined && before.status === v.status && before.supplyStatuses === supplyStatuses &&
+          before.figures[0] === fullV && before.figures[1] === speed && before.figures[2] === peak && before.figures[3] === limit && before.figures[4] === rule && before.figures[5] === source;
+        if (!same) {
+          st.upsertVerdict.run(v.buildId, v.status, fullV, speed, peak, limit, rule, source, supplyStatuses, at);
+          t.written += 1;
+        }
       }
       const history = st.history.run(
         at, 'bench', 'update', 'motors', motorId, `Changed motor "${String(after.name)}": maxCurrentA ${String(before.maxCurrentA)} → ${maxCurrentA}`, 'benchmark (raw floor)',
         JSON.stringify(bookkeeping(before)), JSON.stringify(bookkeeping(after)), JSON.stringify(changes),
       );
-      st.historyBuilds.run(history.lastInsertRowid, motorId);
+      st.historySelector.run(history.lastInsertRowid, motorId);
+      for (const buildId of new Set(changes.map((c) => c.buildId))) st.historyBuild.run(history.lastInsertRowid, buildId);
       t.writeMs = performance.now() - mark;
       t.builds = builds.length;
       t.changes = changes.length;

@@ -21,6 +21,8 @@ export interface RecheckBench {
   sameRows: boolean;
   /** Builds the last service edit re-checked, as `motors.update` reports it. */
   rechecked: number;
+  /** Verdict rows the last timed floor run wrote (the service writes the same: rows that changed). */
+  written: number;
   /** Median garbage-collection pause inside a service call and inside a floor run, ms. */
   serviceGcMs: number;
   floorGcMs: number;
@@ -66,13 +68,13 @@ export async function benchRecheck(dbPath: string, runs: number): Promise<Rechec
     const floorWindows: [number, number][] = [];
     const serviceMs: number[] = [];
     const floorRuns: FloorTiming[] = [];
-    let sameRows = true;
+    let serviceRows = '';
     let rechecked = 0;
     // One untimed pair first: statements prepared, pages cached, JIT warm, on both sides.
     for (let r = -1; r < runs; r++) {
-      // Both sides of a pair set the same value, so their verdict rows can be compared; the
-      // next pair sets the other value, so every service edit is a real change.
-      const maxCurrentA = r % 2 === 0 ? 151 : 150;
+      // The service always sets one value and the floor the other, so each side's edit is a real
+      // change from the state the other left, and both write the same rows (those that changed).
+      const maxCurrentA = 151;
       const got = await host.call('motors.get', { id: HOT_MOTOR_ID });
       if (!got.ok) throw new Error(`motors.get: ${got.error.message}`);
       const version = (got.value as { version: number }).version;
@@ -87,13 +89,11 @@ export async function benchRecheck(dbPath: string, runs: number): Promise<Rechec
       const ms = performance.now() - started;
       if (!answer.ok) throw new Error(`motors.update: ${answer.error.message}`);
       rechecked = (answer.value as UpdateAnswer).rechecked;
-      const check = r === runs - 1;
-      const serviceRows = check ? await verdictFingerprint(floor) : '';
+      if (r === runs - 1) serviceRows = await verdictFingerprint(floor);
       await settle();
       const floorStarted = performance.now();
-      const f = floor.editMotor(HOT_MOTOR_ID, maxCurrentA, new Date().toISOString());
+      const f = floor.editMotor(HOT_MOTOR_ID, 150, new Date().toISOString());
       const floorEnded = performance.now();
-      if (check) sameRows = serviceRows === (await verdictFingerprint(floor));
       if (r >= 0) {
         serviceMs.push(ms);
         floorRuns.push(f);
@@ -101,6 +101,9 @@ export async function benchRecheck(dbPath: string, runs: number): Promise<Rechec
         floorWindows.push([floorStarted, floorEnded]);
       }
     }
+    // One more untimed floor edit to the service's value: the rows it leaves must be the service's.
+    floor.editMotor(HOT_MOTOR_ID, 151, new Date().toISOString());
+    const sameRows = serviceRows === (await verdictFingerprint(floor));
     const sizeAfter = storeSize(floor);
     await settle(); // the observer reports asynchronously
     let servicePhases: RecheckBench['servicePhases'];
@@ -128,10 +131,11 @@ export async function benchRecheck(dbPath: string, runs: number): Promise<Rechec
       servicePhases,
       sameRows,
       rechecked,
+      written: floorRuns.at(-1)?.written ?? 0,
       serviceGcMs: median(serviceWindows.map(([from, to]) => gcWithin(gc, from, to))),
       floorGcMs: median(floorWindows.map(([from, to]) => gcWithin(gc, from, to))),
-      // Every timed edit and the untimed pair wrote a history row linked to every re-checked build.
-      storeBytes: { before: sizeBefore, after: sizeAfter, edits: 2 * (runs + 1) },
+      // Every timed edit, the untimed pair and the closing floor edit wrote a history entry.
+      storeBytes: { before: sizeBefore, after: sizeAfter, edits: 2 * (runs + 1) + 1 },
     };
   } finally {
     observer.disconnect();

@@ -10,7 +10,7 @@ import { diffStatuses, loadBuildContexts } from '../../src-main/service/recheck'
 import type { BuildSelector } from '../../src-main/store/build-selector';
 import { appendHistory, type VerdictChange } from '../../src-main/store/repositories/history';
 import { readSettings } from '../../src-main/store/repositories/settings';
-import { getStoredStatuses, verdictToRow, writeVerdicts } from '../../src-main/store/repositories/verdicts';
+import { getStoredStatuses, sameVerdictRow, verdictToRow, writeVerdicts } from '../../src-main/store/repositories/verdicts';
 import type { Db } from '../../src-main/store/schema';
 
 export interface ServicePhases {
@@ -18,8 +18,8 @@ export interface ServicePhases {
   'stored statuses': number;
   'evaluate (no sentences)': number;
   'diff + verdict rows': number;
-  'write verdict rows': number;
-  'history row + links': number;
+  'write changed verdict rows': number;
+  'history row, selector, links of changed builds': number;
 }
 
 class Rollback extends Error {}
@@ -46,15 +46,15 @@ export async function servicePhases(db: Kysely<Db>, motorId: string): Promise<Se
       lap('evaluate (no sentences)');
       const changes: VerdictChange[] = [];
       for (const verdict of verdicts) for (const change of diffStatuses(verdict, stored.get(verdict.buildId))) changes.push(change);
-      const rows = verdicts.map((verdict) => verdictToRow(verdict, at));
+      const rows = verdicts.map((verdict) => verdictToRow(verdict, at)).filter((row) => !sameVerdictRow(stored.get(row.buildId), row));
       lap('diff + verdict rows');
       await writeVerdicts(trx, rows);
-      lap('write verdict rows');
+      lap('write changed verdict rows');
       await appendHistory(trx, {
         at, actor: 'bench', action: 'update', entityKind: 'motors', entityId: motorId, summary: 'benchmark breakdown', reason: '',
         before: null, after: null, verdictChanges: changes, builds: selector,
       });
-      lap('history row + links');
+      lap('history row, selector, links of changed builds');
       throw new Rollback('rolled back on purpose');
     });
   } catch (error) {

@@ -43,6 +43,21 @@ describe('re-check on every change', () => {
     expect(f.events).toContainEqual({ type: 'verdicts-changed', buildIds: [seed.onTwo.id] });
   });
 
+  it('writes only the verdict rows that changed', async () => {
+    const seed = await seedTwoBuggies(f);
+    const firstAt = [await evaluatedAt(seed.onTwo.id), await evaluatedAt(seed.onFour.id)];
+    // A note moves no figure: both builds are re-checked, neither row is written.
+    const quiet = await f.call('motors.update', { id: seed.motor.id, expectedVersion: 1, changes: { notes: 'bearings replaced' } });
+    expect(quiet.rechecked).toBe(2);
+    expect([await evaluatedAt(seed.onTwo.id), await evaluatedAt(seed.onFour.id)]).toEqual(firstAt);
+    // A 6 V rating is under both packs' full charge (2 × 4.20 V and 4 × 4.20 V, cell makers' sheets): both rows change.
+    await f.call('motors.update', { id: seed.motor.id, expectedVersion: 2, changes: { maxVoltageV: 6 } });
+    const afterAt = [await evaluatedAt(seed.onTwo.id), await evaluatedAt(seed.onFour.id)];
+    expect(afterAt[0]).not.toBe(firstAt[0]);
+    expect(afterAt[1]).not.toBe(firstAt[1]);
+    expect((await f.call('builds.list', {})).every((s) => s.status === 'over')).toBe(true);
+  });
+
   it('re-checks both builds when their shared motor changes', async () => {
     const seed = await seedTwoBuggies(f);
     const result = await f.call('motors.update', { id: seed.motor.id, expectedVersion: 1, changes: { maxVoltageV: 6 } });

@@ -3,10 +3,26 @@ import { chunks, type DbHandle } from '../db-handle';
 import { selectedBuildIds, type BuildSelector } from '../build-selector';
 import type { NewVerdictRow } from '../schema';
 
-/** The stored status of every supply of a build, keyed by supply id. */
+/** The list columns a verdict row holds, everything but when it was written. */
+const LIST_COLUMNS = ['status', 'supplyVoltageFullV', 'theoreticalSpeedKmh', 'peakCurrentA', 'peakCurrentLimitA', 'currentRule', 'currentSource', 'supplyStatuses'] as const;
+
+type ListColumns = Pick<NewVerdictRow, (typeof LIST_COLUMNS)[number]>;
+
+/** The stored status of every supply of a build, keyed by supply id, and the stored row's list columns. */
 export interface StoredStatuses {
   status: Status;
   supplies: Map<string, Status>;
+  row: ListColumns;
+}
+
+/**
+ * Whether a freshly computed row says what the stored row says. Same inputs through the same
+ * code give bit-identical numbers, and SQLite keeps a double exactly, so equality is exact.
+ */
+export function sameVerdictRow(stored: StoredStatuses | undefined, row: NewVerdictRow): boolean {
+  if (stored === undefined) return false;
+  for (const column of LIST_COLUMNS) if (stored.row[column] !== row[column]) return false;
+  return true;
 }
 
 export function encodeSupplyStatuses(supplies: readonly SupplyVerdict[]): string {
@@ -25,8 +41,15 @@ export function decodeSupplyStatuses(text: string): Map<string, Status> {
 
 export async function getStoredStatuses(db: DbHandle, selector: BuildSelector): Promise<Map<string, StoredStatuses>> {
   const out = new Map<string, StoredStatuses>();
-  const rows = await db.selectFrom('verdicts').select(['buildId', 'status', 'supplyStatuses']).where('buildId', 'in', selectedBuildIds(db, selector)).execute();
-  for (const r of rows) out.set(r.buildId, { status: r.status as Status, supplies: decodeSupplyStatuses(r.supplyStatuses) });
+  const rows = await db
+    .selectFrom('verdicts')
+    .select(['buildId', ...LIST_COLUMNS])
+    .where('buildId', 'in', selectedBuildIds(db, selector))
+    .execute();
+  for (const r of rows) {
+    const { buildId, ...row } = r;
+    out.set(buildId, { status: r.status as Status, supplies: decodeSupplyStatuses(r.supplyStatuses), row });
+  }
   return out;
 }
 
