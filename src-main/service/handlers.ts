@@ -1,7 +1,7 @@
 import type * as v from 'valibot';
 import type { AnyHandler } from './define-handler';
 import { archiveHandler, createHandler, getHandler, listHandler, updateHandler } from './handlers/part-handlers';
-import { archiveBuild, createBuild, duplicateBuild, getBuildSheet, listBuilds, previewChange, updateBuild } from './handlers/build-handlers';
+import { archiveBuild, createBuild, duplicateBuild, getBuildSheet, listBuildColumns, listBuilds, previewChange, updateBuild } from './handlers/build-handlers';
 import { listHistoryEntries } from './handlers/history-handlers';
 import { getSettings, updateSettings } from './handlers/settings-handlers';
 import { storeInfo } from './handlers/store-handlers';
@@ -46,6 +46,7 @@ export const handlers = {
   'classRules.update': updateHandler('classRules', classRuleSchemas.patch),
   'classRules.archive': archiveHandler('classRules'),
   'builds.list': listBuilds,
+  'builds.listColumns': listBuildColumns,
   'builds.get': getBuildSheet,
   'builds.create': createBuild,
   'builds.update': updateBuild,

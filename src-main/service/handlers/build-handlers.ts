@@ -3,7 +3,8 @@ import type { Build, Supply } from '../../core/domain';
 import { evaluateBuild } from '../../core/evaluate';
 import type { DbHandle } from '../../store/db-handle';
 import { getBuild, insertBuild, updateBuildAtVersion, type BuildFields } from '../../store/repositories/builds';
-import { listBuildSummaries } from '../../store/repositories/build-list';
+import { BUILD_SUMMARY_GROUPS, BUILD_SUMMARY_KEYS, listBuildSummaries, type BuildSummary } from '../../store/repositories/build-list';
+import { encodeColumns, type ColumnTable } from '../../core/column-table';
 import { getPart, getParts } from '../../store/repositories/parts';
 import { getEvaluatedAt } from '../../store/repositories/verdicts';
 import { byIds } from '../../store/build-selector';
@@ -73,6 +74,14 @@ const listInput = v.optional(
 );
 
 export const listBuilds = defineHandler(listInput, async (ctx, input) => listBuildSummaries(ctx.db, input));
+
+/**
+ * The same list in its compact wire form (column by column, repeated values once): what the
+ * window loads at start, about a fifth of the size of `builds.list` at 10 000 builds.
+ */
+export const listBuildColumns = defineHandler(listInput, async (ctx, input): Promise<ColumnTable<BuildSummary>> =>
+  encodeColumns(await listBuildSummaries(ctx.db, input), BUILD_SUMMARY_KEYS, BUILD_SUMMARY_GROUPS),
+);
 
 export const getBuildSheet = defineHandler(record({ id: id() }), async (ctx, input) => {
   const build = await requireBuild(ctx.db, input.id);

@@ -32,6 +32,21 @@ export interface BuildSummary {
   updatedAt: string;
 }
 
+/** Every key of a summary, in order: the columns of the list's compact wire form. */
+export const BUILD_SUMMARY_KEYS = [
+  'id', 'name', 'version', 'archivedAt', 'vehicleId', 'vehicleName', 'kind', 'owner', 'className', 'motorId', 'motorName', 'controllerId', 'controllerName',
+  'propellerId', 'supplyLabels', 'batteryIds', 'status', 'supplyVoltageFullV', 'theoreticalSpeedKmh', 'peakCurrentA', 'peakCurrentLimitA', 'currentRule',
+  'currentSource', 'updatedAt',
+] as const satisfies readonly (keyof BuildSummary)[];
+
+/** Columns that follow one another (a vehicle and its kind, owner and class; a part and its name): sent as one dictionary. */
+export const BUILD_SUMMARY_GROUPS = [
+  ['vehicleId', 'vehicleName', 'kind', 'owner', 'className'],
+  ['motorId', 'motorName'],
+  ['controllerId', 'controllerName'],
+  ['supplyLabels', 'batteryIds'],
+] as const satisfies readonly (readonly (keyof BuildSummary)[])[];
+
 export interface BuildListFilter {
   text?: string;
   statuses?: Status[];

@@ -1,5 +1,6 @@
 import type { Status, VehicleKind } from '../../../src-main/core/domain';
 import type { ServiceEvent } from '../../../src-main/service/contract';
+import { decodeColumns } from '../../../src-main/core/column-table';
 import { asApiError, type Client } from '../api/client';
 import type { BuildSummary } from '../builds/build-summary';
 import { DEFAULT_LIST_QUERY, type ListQuery } from '../builds/list-query';
@@ -74,7 +75,8 @@ export class BuildsListState {
   async load(): Promise<void> {
     try {
       const archived = this.archived;
-      const rows = await this.client.call('builds.list', archived ? { includeArchived: true } : {});
+      // The compact column form: about a fifth of the row objects' size at 10 000 builds.
+      const rows = decodeColumns(await this.client.call('builds.listColumns', archived ? { includeArchived: true } : {}));
       // A newer load for the other list may have been asked for meanwhile.
       if (archived !== this.archived) return;
       // For the benchmark: the time from here to the first row on screen is a budget.
