@@ -34,25 +34,45 @@ export interface ColumnTable<T> {
  * tuples): keys that depend on each other, so a tuple repeats as often as its first key. Every
  * other key is its own group. A group whose tuples are mostly distinct is sent plain.
  */
-export function encodeColumns<T extends object>(rows: readonly T[], keys: readonly (keyof T & string)[], groups: readonly (readonly (keyof T & string)[])[] = []): ColumnTable<T> {
-  const grouped = new Set(groups.flat());
+export function encodeColumns<T extends object>(
+  rows: readonly T[],
+  keys: readonly (keyof T & string)[],
+  groups: readonly (readonly (keyof T & string)[])[] = [],
+  /** Keys known to be (nearly) all distinct: sent plain without trying a dictionary. */
+  plain: readonly (keyof T & string)[] = [],
+): ColumnTable<T> {
+  const grouped = new Set([...groups.flat(), ...plain]);
   const all = [...groups, ...keys.filter((k) => !grouped.has(k)).map((k) => [k])];
-  const columns: ColumnTable<T>['columns'] = [];
+  const columns: ColumnTable<T>['columns'] = plain.map((key) => ({ key, values: rows.map((r) => (r as Record<string, unknown>)[key] ?? null) }));
   for (const group of all) {
-    const index = new Map<string, number>();
+    // A tree of maps, one level per key, keyed by the value itself (lists by their JSON): no
+    // per-row string building, which cost more than the query at 10 000 rows.
+    const root = new Map<unknown, unknown>();
     const dictionary: unknown[][] = [];
     const at: number[] = new Array<number>(rows.length);
+    const last = group.length - 1;
     for (let i = 0; i < rows.length; i++) {
       const row = rows[i] as Record<string, unknown>;
-      const tuple = group.map((k) => row[k] ?? null);
-      const key = group.length === 1 && typeof tuple[0] !== 'object' ? `${typeof tuple[0]}:${String(tuple[0])}` : JSON.stringify(tuple);
-      let n = index.get(key);
-      if (n === undefined) {
-        n = dictionary.length;
-        index.set(key, n);
-        dictionary.push(tuple);
+      let level = root;
+      let n: number | undefined;
+      for (let k = 0; k <= last; k++) {
+        const value = row[group[k]!] ?? null;
+        // Lists by their JSON behind a NUL; a text that itself starts with NUL gets a second one.
+        const key = Array.isArray(value) ? `\u0000${JSON.stringify(value)}` : typeof value === 'string' && value.startsWith('\u0000') ? `\u0000${value}` : value;
+        const next = level.get(key);
+        if (k < last) {
+          if (next === undefined) {
+            const made = new Map<unknown, unknown>();
+            level.set(key, made);
+            level = made;
+          } else level = next as Map<unknown, unknown>;
+        } else if (next === undefined) {
+          n = dictionary.length;
+          level.set(key, n);
+          dictionary.push(group.map((g) => row[g] ?? null));
+        } else n = next as number;
       }
-      at[i] = n;
+      at[i] = n!;
     }
     if (group.length === 1 && dictionary.length > rows.length / 2) {
       columns.push({ key: group[0]!, values: rows.map((r) => (r as Record<string, unknown>)[group[0]!] ?? null) });

@@ -47,6 +47,9 @@ export const BUILD_SUMMARY_GROUPS = [
   ['supplyLabels', 'batteryIds'],
 ] as const satisfies readonly (readonly (keyof BuildSummary)[])[];
 
+/** Columns that hardly ever repeat: sent as they are. */
+export const BUILD_SUMMARY_PLAIN = ['id', 'name', 'theoreticalSpeedKmh', 'peakCurrentA'] as const satisfies readonly (keyof BuildSummary)[];
+
 export interface BuildListFilter {
   text?: string;
   statuses?: Status[];
