@@ -9,7 +9,7 @@ export interface FirstRowTimes {
   dataMark: number | null;
   firstRowInDom: number;
   firstRowPainted: number;
-  /** The builds.list request as the browser saw it. */
+  /** The builds.listColumns request (the window's first list) as the browser saw it. */
   listRequest: { start: number; responseStart: number; end: number } | null;
 }
 
@@ -49,7 +49,7 @@ export const FIRST_ROW_PROBE = `(() => {
 export const READ_FIRST_ROW = `(() => {
   const probe = window.__rbFirstRow;
   const mark = performance.getEntriesByName('rigbook:builds-data', 'mark')[0];
-  const request = performance.getEntriesByType('resource').find((e) => e.name.includes('/api/builds.list'));
+  const request = performance.getEntriesByType('resource').find((e) => e.name.includes('/api/builds.listColumns'));
   return {
     timeOrigin: performance.timeOrigin,
     dataMark: mark ? mark.startTime : null,
