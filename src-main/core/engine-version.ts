@@ -3,4 +3,4 @@
  * verdicts carry only statuses and list figures (the detail is evaluated afresh), so a store
  * opened by a newer engine re-checks every build once to keep the list and the sheets agreed.
  */
-export const ENGINE_VERSION = 1;
+export const ENGINE_VERSION = 2;

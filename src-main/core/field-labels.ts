@@ -40,6 +40,7 @@ const LABELS: Readonly<Record<string, string>> = {
   'gearing.tireDiameterMm': 'the tyre diameter',
   'gearing.drivetrainEfficiency': 'the drivetrain efficiency (above 0, at most 1)',
   'propeller.diameterMm': 'the propeller diameter',
+  'propeller.pitchMm': 'the propeller pitch',
   'propeller.powerCoefficient': 'the propeller power coefficient (C_P)',
   'propeller.thrustCoefficient': 'the propeller thrust coefficient (C_T)',
   'classRule.limit': 'a class limit above zero',
