@@ -1,4 +1,4 @@
-import type { BuildVerdict, Finding, Status, SupplyVerdict } from '../core/domain';
+import type { BuildVerdict, Finding, PackShare, Status, SupplyVerdict } from '../core/domain';
 import { STATUSES } from '../core/domain';
 import type { FleetRecords } from '../service/fleet/fleet-format';
 import { formatNumber, formatPercent } from './format-number';
@@ -11,10 +11,24 @@ export const OVER_CAUTION =
 const FINDING_FIELDS = ['rule', 'status', 'value', 'limit', 'unit', 'margin', 'message'] as const;
 
 export interface CheckJson {
-  builds: { id: string; status: Status; supplies: { batteryIds: string[]; status: Status; figures: SupplyVerdict['figures']; findings: Pick<Finding, (typeof FINDING_FIELDS)[number]>[] }[] }[];
+  builds: {
+    id: string;
+    status: Status;
+    supplies: {
+      batteryIds: string[];
+      status: Status;
+      figures: SupplyVerdict['figures'];
+      findings: Pick<Finding, (typeof FINDING_FIELDS)[number]>[];
+      packShares: PackShare[];
+      assumptions: string[];
+    }[];
+  }[];
 }
 
-/** Exactly the documented shape: `{ builds: [{ id, status, supplies: [{ batteryIds, status, figures, findings }] }] }`. */
+/**
+ * Exactly the documented shape: `{ builds: [{ id, status, supplies: [{ batteryIds, status,
+ * figures, findings, packShares, assumptions }] }] }`.
+ */
 export function checkJson(verdicts: readonly BuildVerdict[]): CheckJson {
   return {
     builds: verdicts.map((v) => ({
@@ -25,6 +39,8 @@ export function checkJson(verdicts: readonly BuildVerdict[]): CheckJson {
         status: s.status,
         figures: s.figures,
         findings: s.findings.map((f) => ({ rule: f.rule, status: f.status, value: f.value, limit: f.limit, unit: f.unit, margin: f.margin, message: f.message })),
+        packShares: s.packShares.map((p) => ({ ...p })),
+        assumptions: [...s.assumptions],
       })),
     })),
   };
@@ -45,6 +61,7 @@ function figureLine(s: SupplyVerdict): string {
   ];
   if (f.finalDriveRatio !== null) parts.push(`final drive ${formatNumber(f.finalDriveRatio)}`);
   if (f.theoreticalSpeedKmh !== null) parts.push(`${formatNumber(f.theoreticalSpeedKmh)} km/h theoretical`);
+  if (typeof f.pitchSpeedKmh === 'number') parts.push(`${formatNumber(f.pitchSpeedKmh)} km/h pitch speed`);
   parts.push(`peak ${formatNumber(f.peakCurrentA)} A`, `continuous ${formatNumber(f.continuousCurrentA)} A`);
   if (f.currentSource) parts.push(`(${f.currentSource === 'measured' ? 'measured' : 'model'})`);
   return parts.join(' · ');
@@ -69,6 +86,7 @@ export function checkText(fleet: FleetRecords, verdicts: readonly BuildVerdict[]
         lines.push(`    ${pad(WORD[f.status], 12)}${pad(f.rule, 24)}${pad(value, 14)}${pad(limit, 14)}${formatPercent(f.margin)}`);
       }
       for (const f of s.findings) if (f.status !== 'clear') lines.push(`    ${WORD[f.status]} ${f.rule}: ${f.message}`);
+      for (const a of s.assumptions) lines.push(`    assumed: ${a}`);
     });
     lines.push('');
   }

@@ -36,10 +36,10 @@ export function isPlausible(field: PlausibleField, x: number): boolean {
   return true;
 }
 
-/** "Kv: expected from 10 to 100000 rpm/V (hobby motors lie in this range)". */
+/** "Kv must be from 10 to 100000 rpm/V (hobby motors lie in this range)". */
 export function plausibleMessage(field: PlausibleField): string {
   const r: PlausibleRange = PLAUSIBLE[field];
   const unit = r.unit ? ` ${r.unit}` : '';
-  const range = r.above !== undefined ? `above ${r.above}${unit}, at most ${r.max}${unit}` : `from ${r.min ?? 0} to ${r.max}${unit}`;
-  return `${r.label}: expected ${range} (${r.why})`;
+  const range = r.above !== undefined ? `above ${r.above}${unit} and at most ${r.max}${unit}` : `from ${r.min ?? 0} to ${r.max}${unit}`;
+  return `${r.label} must be ${range} (${r.why})`;
 }

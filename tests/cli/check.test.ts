@@ -16,7 +16,11 @@ function temp() {
 afterEach(() => temps.splice(0).forEach((t) => t.remove()));
 
 interface CheckOutput {
-  builds: { id: string; status: string; supplies: { batteryIds: string[]; status: string; figures: Record<string, number | string | null>; findings: Record<string, unknown>[] }[] }[];
+  builds: {
+    id: string;
+    status: string;
+    supplies: { batteryIds: string[]; status: string; figures: Record<string, number | string | null>; findings: Record<string, unknown>[]; packShares: Record<string, unknown>[]; assumptions: string[] }[];
+  }[];
 }
 
 describe('rigbook check', () => {
@@ -33,7 +37,7 @@ describe('rigbook check', () => {
     for (const b of out.builds) {
       expect(Object.keys(b)).toEqual(['id', 'status', 'supplies']);
       for (const s of b.supplies) {
-        expect(Object.keys(s)).toEqual(['batteryIds', 'status', 'figures', 'findings']);
+        expect(Object.keys(s)).toEqual(['batteryIds', 'status', 'figures', 'findings', 'packShares', 'assumptions']);
         expect(Object.keys(s.figures)).toEqual(
           expect.arrayContaining(['packVoltageNominalV', 'packVoltageFullV', 'torqueConstantNmPerA', 'noLoadRpm', 'finalDriveRatio', 'theoreticalSpeedKmh', 'peakCurrentA', 'continuousCurrentA']),
         );
@@ -77,7 +81,7 @@ describe('rigbook check', () => {
     expect(run.out).toContain('OVER  Truck on 6S (4S controller)  [truck-on-6s]');
     expect(run.out).toContain('supply 1 of 1: 6S 5000 basher  →  OVER');
     expect(run.out).toMatch(/OVER\s+controller-voltage\s+25\.2 V\s+16\.8 V\s+-50\.0 %/);
-    expect(run.out).toContain('2 builds checked: 1 over, 0 tight, 0 incomplete, 1 clear.');
+    expect(run.out).toContain('2 builds checked: 1 over, 0 incomplete, 0 tight, 1 clear.');
     expect(run.out).toContain("follow the part maker's ratings");
   });
 

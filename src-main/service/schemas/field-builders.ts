@@ -1,4 +1,5 @@
 import * as v from 'valibot';
+import { isPlausible, plausibleMessage, type PlausibleField } from '../../core/plausibility';
 
 // Small builders so that every field's message reads the same way. The field's name is
 // added in front of the message where the issue is turned into an ApiError.
@@ -51,4 +52,16 @@ export const flag = () => v.boolean('must be true or false');
 /** Required on create unless a default is given; optional in a patch. */
 export function nullable<S extends v.GenericSchema>(schema: S) {
   return v.nullable(schema);
+}
+
+/**
+ * A number inside the core's plausible range for the field, refused with one message that
+ * says what was expected (the same bounds the engine applies to stored values).
+ */
+export function plausible(field: PlausibleField) {
+  const message = plausibleMessage(field);
+  return v.pipe(
+    v.number('must be a number'),
+    v.check((x: number) => isPlausible(field, x), message),
+  );
 }

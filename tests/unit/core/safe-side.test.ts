@@ -393,7 +393,7 @@ describe('plausibility', () => {
     expect(isPlausible('motor.resistanceOhm', 10.5)).toBe(false);
     expect(isPlausible('gearing.drivetrainEfficiency', 0.29)).toBe(false);
     expect(isPlausible('battery.cellResistanceOhm', 0)).toBe(false);
-    expect(plausibleMessage('motor.kv')).toBe('Kv: expected from 10 to 100000 rpm/V (hobby motors lie in this range)');
+    expect(plausibleMessage('motor.kv')).toBe('Kv must be from 10 to 100000 rpm/V (hobby motors lie in this range)');
   });
 
   it('an implausible stored value counts as missing, so the check reads incomplete', () => {
