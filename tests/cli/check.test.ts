@@ -85,6 +85,63 @@ describe('rigbook check', () => {
     expect(run.out).toContain("follow the part maker's ratings");
   });
 
+  it('--json carries the safe-side verdicts: conductance share, retired pack, unloaded tip speed, ranking', async () => {
+    const t = temp();
+    const fleet = JSON.parse(readFileSync(EXAMPLE, 'utf8')) as Record<string, Record<string, unknown>[]>;
+    fleet.batteries!.push(
+      { id: 'small', name: 'Small 3S 2200', chemistry: 'lipo', cellsSeries: 3, capacityMah: 2200, cRatingContinuous: 25, cRatingBurst: 50, cellResistanceOhm: 0.002 },
+      { id: 'big', name: 'Big 3S 8000', chemistry: 'lipo', cellsSeries: 3, capacityMah: 8000, cRatingContinuous: 25, cRatingBurst: 50, cellResistanceOhm: 0.01 },
+      { id: 'tired', name: 'Tired 3S', chemistry: 'lipo', cellsSeries: 3, capacityMah: 5000, cRatingContinuous: 50, cRatingBurst: 100, cellResistanceOhm: 0.003, retired: true },
+    );
+    fleet.propellers = [{ id: 'prop-5', name: '5 inch', diameterMm: 127, pitchMm: 109, blades: 3, thrustCoefficient: 0.11, powerCoefficient: 0.05 }];
+    fleet.vehicles!.push({ id: 'quad', name: 'Quad', kind: 'multirotor', massKg: 0.7 });
+    const truck = fleet.builds![0]!;
+    fleet.builds!.push(
+      { ...truck, id: 'pair', name: 'Mixed pair', supplies: [{ arrangement: 'parallel', batteryIds: ['small', 'big'] }], measuredPeakCurrentA: 106, measuredAverageCurrentA: 106 },
+      { ...truck, id: 'tired-build', name: 'On a retired pack', supplies: [{ batteryIds: ['tired'] }] },
+      { ...truck, id: 'quad-build', name: 'Quad', vehicleId: 'quad', propellerId: 'prop-5', motorCount: 4, gearing: { internalRatio: 1 }, supplies: [{ batteryIds: ['pack-6s-5000'] }] },
+    );
+    writeFileSync(t.file('safe.json'), JSON.stringify(fleet));
+    const run = await rigbook(['check', t.file('safe.json'), '--json']);
+    expect(run.err).toBe('');
+    const out = JSON.parse(run.out) as CheckOutput;
+    const byId = new Map(out.builds.map((b) => [b.id, b]));
+
+    const pair = byId.get('pair')!.supplies[0]!;
+    const cont = pair.findings.find((x) => x.rule === 'battery-continuous')!;
+    // Current division (Alexander & Sadiku, "Fundamentals of Electric Circuits", ch. 2): 106 × 30 ÷ 36 A.
+    expect(cont.value as number).toBeCloseTo((106 * 30) / 36, 9);
+    expect(cont.limit as number).toBeCloseTo(55, 9);
+    expect(cont.status).toBe('over');
+    expect(cont.message).toMatch(/pack "Small 3S 2200"/);
+    expect(pair.packShares.map((p) => p.batteryId)).toEqual(['small', 'big']);
+
+    expect(byId.get('tired-build')!.status).toBe('over');
+    expect(byId.get('tired-build')!.supplies[0]!.findings.map((x) => x.rule)).toContain('pack-retired');
+
+    const quad = byId.get('quad-build')!.supplies[0]!;
+    // A propeller build: pitch speed, never a tyre speed; tip speed judged unloaded, above the static one.
+    expect(quad.figures.theoreticalSpeedKmh).toBeNull();
+    expect(quad.figures.pitchSpeedKmh).toBeGreaterThan(0);
+    expect(quad.figures.tipSpeedMps as number).toBeGreaterThan(quad.figures.tipSpeedStaticMps as number);
+    expect(quad.findings.find((x) => x.rule === 'prop-tip-speed')!.value).toBe(quad.figures.tipSpeedMps);
+
+    // The cars and trucks carry their run: the continuous current judged is at least the steady one.
+    const steady = byId.get('truck-on-3s')!.supplies[0]!.figures;
+    expect(steady.continuousCurrentA as number).toBeGreaterThanOrEqual(steady.steadyCurrentA as number);
+    expect(steady.runLengthS).toBe(4);
+  });
+
+  it('refuses a file that lists one pack twice in a build, naming it', async () => {
+    const t = temp();
+    const fleet = JSON.parse(readFileSync(EXAMPLE, 'utf8')) as { builds: { supplies: { batteryIds: string[] }[] }[] };
+    fleet.builds[0]!.supplies = [{ batteryIds: ['pack-3s-5000', 'pack-3s-5000'] }];
+    writeFileSync(t.file('twice.json'), JSON.stringify(fleet));
+    const run = await rigbook(['check', t.file('twice.json'), '--json']);
+    expect(run.code).toBe(3);
+    expect(run.err).toContain('builds[0].supplies[0].batteryIds[1]: pack "3S 5000 hard case" is already in this build');
+  });
+
   it('exits 0 when nothing is over', async () => {
     const t = temp();
     const fleet = JSON.parse(readFileSync(EXAMPLE, 'utf8')) as { builds: { id: string }[] };
