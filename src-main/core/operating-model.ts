@@ -9,7 +9,9 @@ import { known, lacking, missingOf, type Known } from './known';
 import { motorParams } from './motor';
 import { staticPropPoint, tipSpeed, unloadedPropRevPerS } from './propeller';
 import { tractionLimit } from './road-load';
-import { fullThrottleRun } from './run';
+import { fullThrottleRun, type RunModel } from './run';
+import type { Driveline, RoadVehicle } from './ground-load';
+import type { MotorParams } from './motor';
 import type { SupplyModel } from './supply';
 import { mpsToKmh, radPerSToRpm } from './units';
 
@@ -66,6 +68,29 @@ function allOf(k: Known, na: Known, ground: boolean): Operation {
     propRpmStatic: ground ? na : k,
     propRpmUnloaded: ground ? na : k,
   };
+}
+
+function runModelOf(inp: BuildInputs, m: MotorParams, voltageV: number, d: Driveline, road: RoadVehicle): RunModel {
+  const { tractionCoefficient: mu, massKg } = inp;
+  const tractionForceN = mu.value === null || massKg.value === null ? null : tractionLimit(mu.value, massKg.value) * inp.drivenShare;
+  return { m, voltageV, d, road, tractionForceN };
+}
+
+/**
+ * The full-throttle run of a car or truck on one supply, as the continuous current is judged on
+ * it (full charge, the same loop resistance); null where an input it needs is missing.
+ */
+export function groundRunModel(inp: BuildInputs, supply: Known<SupplyModel>): RunModel | null {
+  const { kind, kv, motorResistanceOhm: rm, noLoadCurrentA: i0, motorCount, finalDrive, tireDiameterMm, drivetrainEfficiency, massKg, dragAreaM2, rollingCoefficient } = inp;
+  if (kind.value === null || !isGround(kind.value) || supply.value === null) return null;
+  if (kv.value === null || rm.value === null || i0.value === null || motorCount.value === null) return null;
+  if (finalDrive.value === null || tireDiameterMm.value === null || drivetrainEfficiency.value === null) return null;
+  if (massKg.value === null || dragAreaM2.value === null || rollingCoefficient.value === null) return null;
+  const n = motorCount.value;
+  const m = motorParams(kv.value, rm.value + inp.controllerResistanceOhm + n * supply.value.modelResistanceOhm, i0.value);
+  const d = { motorCount: n, finalDrive: finalDrive.value, tireDiameterMm: tireDiameterMm.value, efficiency: drivetrainEfficiency.value };
+  const road = { massKg: massKg.value, dragAreaM2: dragAreaM2.value, rollingCoefficient: rollingCoefficient.value, airDensity: AIR_DENSITY };
+  return runModelOf(inp, m, supply.value.fullV, d, road);
 }
 
 export function operate(inp: BuildInputs, supply: Known<SupplyModel>): Operation {
@@ -125,8 +150,7 @@ export function operate(inp: BuildInputs, supply: Known<SupplyModel>): Operation
       // quoted at nominal voltage, like the theoretical speed beside it.
       const top = loadedTopSpeed(m, volts, d, road);
       const cruising = loadedTopSpeed(m, supply.value.nominalV, d, road);
-      const traction = tractionCoefficient.value === null ? null : tractionLimit(tractionCoefficient.value, massKg.value) * inp.drivenShare;
-      const run = fullThrottleRun({ m, voltageV: volts, d, road, tractionForceN: traction }, inp.runLengthS);
+      const run = fullThrottleRun(runModelOf(inp, m, volts, d, road), inp.runLengthS);
       op.steadyMotorA = known(top.currentA);
       op.runRmsMotorA = known(run.rmsCurrentA);
       op.runAverageMotorA = known(run.averageCurrentA);

@@ -14,6 +14,8 @@ export interface FigureDef {
   /** Stored value × scale is shown (ohm → milliohm). */
   scale?: number;
   hint?: string;
+  /** Shown only where the figure has a value (it belongs to some builds only). */
+  optional?: true;
 }
 
 export interface FigureGroup {
@@ -33,8 +35,12 @@ export const SUPPLY_FIGURES: FigureGroup = {
     { key: 'packResistanceOhm', label: 'Pack resistance', unit: 'mΩ', scale: 1000, decimals: 1 },
     { key: 'loadedVoltageV', label: 'Voltage at peak current', unit: 'V', decimals: 2 },
     { key: 'peakCurrentA', label: 'Peak current', unit: 'A', decimals: 1 },
-    { key: 'continuousCurrentA', label: 'Continuous current', unit: 'A', decimals: 1 },
-    { key: 'peakPowerW', label: 'Peak power', unit: 'W', decimals: 0 },
+    { key: 'continuousCurrentA', label: 'Continuous current', unit: 'A', decimals: 1, hint: 'cars and trucks: the larger of the run RMS and the steady current' },
+    { key: 'runRmsCurrentA', label: 'RMS current over the run', unit: 'A', decimals: 1, optional: true },
+    { key: 'runAverageCurrentA', label: 'Average current over the run', unit: 'A', decimals: 1, optional: true },
+    { key: 'steadyCurrentA', label: 'Steady current at top speed', unit: 'A', decimals: 1, optional: true },
+    { key: 'peakPowerW', label: 'Peak power', unit: 'W', decimals: 0, optional: true },
+    { key: 'peakPowerNoSagW', label: 'Peak power, assuming no sag', unit: 'W', decimals: 0, hint: 'pack resistance not measured', optional: true },
   ],
 };
 
@@ -60,6 +66,8 @@ export const DRIVETRAIN_FIGURES: FigureGroup = {
     { key: 'rolloutMm', label: 'Rollout', quantity: 'lengthMm', decimals: 1, hint: 'distance per motor turn' },
     { key: 'theoreticalSpeedKmh', label: 'Theoretical speed', quantity: 'speedKmh', decimals: 1, hint: 'at nominal no-load speed, no slip' },
     { key: 'loadedTopSpeedKmh', label: 'Loaded top speed', quantity: 'speedKmh', decimals: 1, hint: 'where motor torque meets road load' },
+    { key: 'runLengthS', label: 'Run length', unit: 's', decimals: 1, hint: 'full throttle from standstill', optional: true },
+    { key: 'drivenWeightShare', label: 'Weight on driven wheels', unit: '%', scale: 100, decimals: 0, optional: true },
   ],
 };
 
@@ -67,8 +75,15 @@ export const PROPELLER_FIGURES: FigureGroup = {
   id: 'propeller',
   title: 'Propeller',
   figures: [
+    { key: 'finalDriveRatio', label: 'Gear ratio', unit: ':1', decimals: 2, hint: 'motor turns per propeller turn' },
+    { key: 'pitchSpeedKmh', label: 'Pitch speed', quantity: 'speedKmh', decimals: 1, hint: 'pitch × propeller rev/s at nominal no-load speed', optional: true },
     { key: 'thrustN', label: 'Static thrust', quantity: 'forceN', decimals: 1 },
-    { key: 'tipSpeedMps', label: 'Tip speed', quantity: 'speedMps', decimals: 0 },
+    { key: 'propellerRpmStatic', label: 'Propeller speed, static', unit: 'rpm', decimals: 0, optional: true },
+    { key: 'propellerRpmUnloaded', label: 'Propeller speed, unloaded', unit: 'rpm', decimals: 0, hint: 'the highest it can reach, as it unloads on the move', optional: true },
+    { key: 'tipSpeedStaticMps', label: 'Tip speed, static', quantity: 'speedMps', decimals: 0, optional: true },
+    { key: 'tipSpeedMps', label: 'Tip speed, unloaded', quantity: 'speedMps', decimals: 0, hint: 'judged against the limit' },
+    { key: 'tipSpeedLimitMps', label: 'Tip speed limit', quantity: 'speedMps', decimals: 0, optional: true },
+    { key: 'fluidDensityKgM3', label: 'Water or air density', unit: 'kg/m³', decimals: 1, optional: true },
   ],
 };
 

@@ -1,4 +1,4 @@
-import { CHEMISTRIES, VEHICLE_KINDS } from '../../../src-main/core/domain';
+import { CHEMISTRIES, DRIVE_LAYOUTS, VEHICLE_KINDS, WATER_TYPES } from '../../../src-main/core/domain';
 import type { DisplayQuantity } from '../../../src-main/core/units';
 import type { PartTable } from './part-kinds';
 
@@ -30,6 +30,8 @@ export interface FieldDef {
 
 export const CHEMISTRY_LABELS: Readonly<Record<string, string>> = { lipo: 'LiPo', lihv: 'LiHV', lifepo4: 'LiFePO4', liion: 'Li-ion', nimh: 'NiMH' };
 export const KIND_LABELS: Readonly<Record<string, string>> = { car: 'Car', truck: 'Truck', boat: 'Boat', multirotor: 'Multirotor', plane: 'Plane' };
+export const DRIVE_LAYOUT_LABELS: Readonly<Record<string, string>> = { '': 'not recorded (taken as 4WD)', '4wd': '4WD (all wheels driven)', '2wd': '2WD (one axle driven)' };
+export const WATER_LABELS: Readonly<Record<string, string>> = { '': 'not recorded (taken as sea water)', fresh: 'Fresh water', sea: 'Sea water' };
 
 const NAME: FieldDef = { key: 'name', label: 'Name', type: 'text', column: true };
 const MASS: FieldDef = { key: 'massKg', label: 'Mass', type: 'number', quantity: 'massKg', nullable: true };
@@ -80,6 +82,7 @@ export const PART_FIELDS: Readonly<Record<PartTable, readonly FieldDef[]>> = {
     { key: 'blades', label: 'Blades', unit: 'count', type: 'integer', column: true },
     { key: 'thrustCoefficient', label: 'Thrust coefficient C_T', unit: 'no unit', type: 'number', nullable: true, column: true, hint: 'T = C_T·ρ·n²·D⁴' },
     { key: 'powerCoefficient', label: 'Power coefficient C_P', unit: 'no unit', type: 'number', nullable: true, column: true, hint: 'P = C_P·ρ·n³·D⁵' },
+    { key: 'maxRpm', label: 'Propeller rpm limit', unit: 'rpm', type: 'number', nullable: true, hint: "the maker's limit, often printed as a constant ÷ diameter; leave empty if none" },
     NOTES,
   ],
   vehicles: [
@@ -91,6 +94,9 @@ export const PART_FIELDS: Readonly<Record<PartTable, readonly FieldDef[]>> = {
     { key: 'dragAreaM2', label: 'Drag area Cd·A', quantity: 'areaM2', type: 'number', nullable: true },
     { key: 'rollingCoefficient', label: 'Rolling coefficient C_rr', unit: 'no unit', type: 'number', nullable: true },
     { key: 'tractionCoefficient', label: 'Traction coefficient μ', unit: 'no unit', type: 'number', nullable: true },
+    { key: 'driveLayout', label: 'Drive', type: 'select', options: ['', ...DRIVE_LAYOUTS], optionLabels: DRIVE_LAYOUT_LABELS, nullable: true, hint: 'cars and trucks' },
+    { key: 'drivenWeightShare', label: 'Weight on driven wheels', unit: '%', scale: 100, type: 'number', nullable: true, emptyText: '4WD 100 %, 2WD 70 %', hint: 'share of the weight on the driven wheels' },
+    { key: 'water', label: 'Water', type: 'select', options: ['', ...WATER_TYPES], optionLabels: WATER_LABELS, nullable: true, hint: 'boats: sea water (1025 kg/m³) loads a propeller more than fresh' },
     NOTES,
   ],
 };
