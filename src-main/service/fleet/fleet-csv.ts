@@ -33,6 +33,12 @@ function cellPlace(row: number, column?: string): string {
 
 export type CsvRecords = { ok: true; records: unknown[] } | { ok: false; unreadable: boolean; problems: FleetProblem[] };
 
+/**
+ * Columns added after the first files were written: a file from before them may leave them
+ * out, and the fields then take their defaults (not known).
+ */
+const LATER_COLUMNS: ReadonlySet<string> = new Set(['maxRpm', 'driveLayout', 'drivenWeightShare', 'water']);
+
 /** Reads and checks a CSV of one kind: header, every row, every cell; every problem named by row and column. */
 export function readCsvRecords(kind: CsvKind, text: string, onProgress?: OnProgress): CsvRecords {
   const parsed = parseCsv(text);
@@ -52,7 +58,9 @@ export function readCsvRecords(kind: CsvKind, text: string, onProgress?: OnProgr
     }
     seenColumns.add(name);
   });
-  for (const c of columns) if (!seenColumns.has(c.name)) problems.push({ place: cellPlace(1, c.name), message: 'this column is missing from the header' });
+  for (const c of columns) {
+    if (!seenColumns.has(c.name) && !LATER_COLUMNS.has(c.name)) problems.push({ place: cellPlace(1, c.name), message: 'this column is missing from the header' });
+  }
   if (problems.length > 0) return { ok: false, unreadable: false, problems };
 
   const schema = fleetRecordSchemas[kind];
