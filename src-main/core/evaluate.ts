@@ -331,6 +331,24 @@ function evaluateSupply(
     loadedVoltageV: null,
     thrustN: null,
     tipSpeedMps: null,
+    // Every key up front: one object shape for every supply, which keeps the hot path fast.
+    pitchSpeedKmh: null,
+    steadyCurrentA: null,
+    runRmsCurrentA: null,
+    runAverageCurrentA: null,
+    runLengthS: null,
+    peakPowerNoSagW: null,
+    tipSpeedStaticMps: null,
+    tipSpeedLimitMps: null,
+    propellerRpmStatic: null,
+    propellerRpmUnloaded: null,
+    drivenWeightShare: null,
+    fluidDensityKgM3: null,
+    loadedRpm: null,
+    loadedRpmFull: null,
+    motorPeakCurrentA: null,
+    motorContinuousCurrentA: null,
+    motorPeakPowerW: null,
     currentSource: anyCurrent ? (usePeak || measuredAvg ? 'measured' : 'model') : null,
     peakCurrentSource: peakA.value !== null ? peakSource : null,
     continuousCurrentSource: contA.value !== null ? contSource : null,
@@ -341,10 +359,7 @@ function evaluateSupply(
     if (!k) continue;
     // Absurd inputs can overflow; a figure is a finite number or null, never NaN or Infinity.
     if (k.value !== null && Number.isFinite(k.value)) figures[key] = k.value;
-    else {
-      figures[key] ??= null;
-      figureMissing[key] = k.missing ?? [];
-    }
+    else figureMissing[key] = k.missing ?? [];
   }
 
   const findings: Finding[] = [];

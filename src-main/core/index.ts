@@ -22,7 +22,7 @@ export { classRulesFor, classFindings } from './class-rules';
 export { fieldLabel, describeMissing } from './field-labels';
 export { NOT_APPLICABLE } from './operating-model';
 export { evaluateBuild } from './evaluate';
-export { fullThrottleRun, RUN_STEPS, type RunModel, type RunResult } from './run';
+export { fullThrottleRun, RUN_SAMPLES, type RunModel, type RunResult } from './run';
 export { runTrace, type RunTrace } from './run-trace';
 export { PLAUSIBLE, isPlausible, plausibleMessage, type PlausibleField } from './plausibility';
 export type { Known } from './known';
