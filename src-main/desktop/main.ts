@@ -17,6 +17,7 @@ import { isTrustedSender } from './sender-check';
 import { APP_ENTRY_URL, isAppUrl } from './url-policy';
 import { secureWebPreferences } from './web-preferences';
 import { pageCallRefusal } from '../service/page-call-policy';
+import { describeStorageError } from '../store/storage-errors';
 
 // The bundle sits in dist-main/, next to preload.cjs, with dist-renderer/ beside dist-main/
 // both in the checkout and inside the packaged app.asar.
@@ -104,7 +105,9 @@ function run(dbPath: string): void {
       });
     })
     .catch((error: unknown) => {
-      dialog.showErrorBox('Rigbook could not start', error instanceof Error ? error.message : String(error));
+      const storage = describeStorageError(error, dbPath);
+      console.error('Rigbook could not start:', error);
+      dialog.showErrorBox('Rigbook could not start', storage ? storage.message : error instanceof Error ? error.message : String(error));
       app.exit(1);
     });
 }

@@ -3,6 +3,7 @@ import path from 'node:path';
 import { resolveDbPath } from '../store/data-location';
 import { AUTO_BACKUPS_KEPT, openServiceHost } from '../service/open-service-host';
 import { startLocalServer } from './local-server';
+import { describeStorageError } from '../store/storage-errors';
 
 // Entry of the loopback shell: `node dist-main/local-main.cjs [--db PATH] [--port N]`.
 
@@ -35,6 +36,8 @@ async function main(): Promise<void> {
 }
 
 main().catch((error: unknown) => {
-  process.stderr.write(`Rigbook could not start: ${error instanceof Error ? error.message : String(error)}\n`);
+  const storage = describeStorageError(error);
+  const cause = error instanceof Error ? error.message : String(error);
+  process.stderr.write(storage ? `Rigbook could not start. ${storage.message}\n  (${storage.code}: ${cause})\n` : `Rigbook could not start: ${cause}\n`);
   process.exit(1);
 });
