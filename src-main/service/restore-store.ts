@@ -4,6 +4,14 @@ import { checkRestoreCandidate, lockStore, RestoreRefused, stageCopy, swapIn, ty
 import { openServiceHost } from './open-service-host';
 import { runWrite } from './run-write';
 
+/** The swap happened, but the store in place did not pass its check when opened again. */
+export class RestoredButUnsound extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'RestoredButUnsound';
+  }
+}
+
 export interface RestoreOutcome extends SwapResult {
   migrations: string[];
   /** Builds re-checked in the restored store, and how many of their stored verdicts were wrong. */
@@ -64,7 +72,7 @@ export async function restoreStore(candidate: string, target: string, options: {
   try {
     const rows = (reopened.pragma('integrity_check') as { integrity_check: string }[]).map((r) => r.integrity_check);
     if (rows.join('; ') !== 'ok') {
-      throw new Error(`the restored store failed its integrity check after the swap (${rows.slice(0, 3).join('; ')}). The replaced store is at ${swapped.keptAs ?? '(none)'}.`);
+      throw new RestoredButUnsound(`the restored store failed its integrity check after the swap (${rows.slice(0, 3).join('; ')}). The replaced store is at ${swapped.keptAs ?? '(none)'}.`);
     }
   } finally {
     reopened.close();

@@ -115,6 +115,9 @@ export function swapIn(staged: string, target: string, now: Date): SwapResult {
       // Out of WAL mode the kept store needs no file beside it (SQLite removes its -wal and -shm),
       // and closing this connection later removes nothing by name beside the restored file.
       lock.pragma('journal_mode = DELETE');
+      // Taken again in the new journal mode, so the lock is certainly exclusive while the files move.
+      lock.exec('BEGIN EXCLUSIVE');
+      lock.exec('COMMIT');
       // The lock stays held through the rename: a shell starting meanwhile waits instead of reading.
     }
     const asideBase = existsSync(target) ? join(dirname(target), `${stem}.replaced-${stamp}.sqlite`) : join(dirname(target), `${stem}.set-aside-${stamp}.sqlite`);

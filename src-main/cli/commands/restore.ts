@@ -1,5 +1,5 @@
 import { resolve } from 'node:path';
-import { restoreStore } from '../../service/restore-store';
+import { RestoredButUnsound, restoreStore } from '../../service/restore-store';
 import { RestoreRefused } from '../../store/restore-file';
 import { describeStorageError } from '../../store/storage-errors';
 import { CliFailure } from '../cli-io';
@@ -37,6 +37,7 @@ the disk is full or the folder cannot be written.`,
       if (error instanceof RestoreRefused) {
         throw new CliFailure(error.reason === 'unreadable' ? EXIT.unreadable : error.reason === 'invalid' ? EXIT.invalid : EXIT.store, error.message);
       }
+      if (error instanceof RestoredButUnsound) throw new CliFailure(EXIT.store, `Restored, but ${error.message}`);
       const storage = describeStorageError(error, dbPath);
       throw new CliFailure(EXIT.store, `The store was not replaced: ${storage ? storage.message : (error as Error).message}`);
     }
