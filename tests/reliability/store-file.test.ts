@@ -234,6 +234,7 @@ describe('restore', () => {
     const packs = after.batteries!.map((row) => (JSON.parse(row as string) as { id: string }).id);
     for (const id of acknowledged) expect(packs, `acknowledged pack ${id} (restore ${outcome})`).toContain(id);
     if (outcome === 'restored') expect(late.ok).toBe(false);
+    console.log(`restore with a shell starting meanwhile: ${outcome}, ${acknowledged.length} writes acknowledged, ${refused.length + (late.ok ? 0 : 1)} refused as store-changed`);
   });
 });
 
