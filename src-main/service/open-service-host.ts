@@ -47,10 +47,10 @@ export async function openServiceHost(options: HostOptions): Promise<ServiceHost
   const watchBefore = existed ? new StoreFileWatch(options.dbPath) : null;
   const store = await openStore(options.dbPath);
   const storeFile = watchBefore ?? (options.dbPath === ':memory:' ? undefined : new StoreFileWatch(options.dbPath));
-  const changed = storeFile?.problem() ?? null;
+  const changed = storeFile?.problem('opening') ?? null;
   if (changed) {
     await store.db.destroy();
-    throw new Error(changed.replace('while Rigbook was running. Nothing was saved: restart Rigbook', 'while Rigbook was opening it. Start Rigbook again'));
+    throw new Error(changed);
   }
   let autoBackupPath: string | null = null;
   if (options.autoBackup && existed) {

@@ -76,11 +76,14 @@ export class StoreFileWatch {
   }
 
   /** What happened to the store file since it was opened, in words; null when it is still there. */
-  problem(): string | null {
+  problem(when: 'running' | 'opening' = 'running'): string | null {
     if (this.identity === null) return null;
     const now = fileIdentity(this.path);
-    if (now === null) return `The store file ${this.path} was deleted or moved while Rigbook was running. Nothing was saved: restart Rigbook (or put the file back) before making changes.`;
-    if (!sameIdentity(now, this.identity)) return `The store file ${this.path} was replaced by another file (a restore, a copy or a sync) while Rigbook was running. Nothing was saved: restart Rigbook to work with the file now in place.`;
-    return null;
+    const what = now === null ? 'was deleted or moved' : !sameIdentity(now, this.identity) ? 'was replaced by another file (a restore, a copy or a sync)' : null;
+    if (what === null) return null;
+    if (when === 'opening') return `The store file ${this.path} ${what} while Rigbook was opening it. Start Rigbook again.`;
+    return now === null
+      ? `The store file ${this.path} ${what} while Rigbook was running. Nothing was saved: restart Rigbook (or put the file back) before making changes.`
+      : `The store file ${this.path} ${what} while Rigbook was running. Nothing was saved: restart Rigbook to work with the file now in place.`;
   }
 }
