@@ -127,7 +127,7 @@ describe('the command line as a user who may not write the store', () => {
     chmodSync(store, 0o444);
     const file = asOtherUser(['import', fleetFile, '--db', store]);
     expect(file.code, file.err).toBe(4);
-    expect(file.err).toMatch(/read-only/);
+    expect(file.err).toMatch(/cannot be written: the file or its folder is read-only/);
     expect(file.err).not.toMatch(/\n\s+at /);
 
     chmodSync(store, 0o666);
@@ -135,7 +135,7 @@ describe('the command line as a user who may not write the store', () => {
     const dir = asOtherUser(['import', fleetFile, '--db', store]);
     chmodSync(folder.dir, 0o755);
     expect(dir.code, dir.err).toBe(4);
-    expect(dir.err).toMatch(/read-only|cannot be written|could not be opened/);
+    expect(dir.err).toMatch(/cannot be written: the file or its folder is read-only/);
     expect(dir.err).not.toMatch(/\n\s+at /);
 
     const check = await openServiceHost({ dbPath: store, actor: 'tester' });
