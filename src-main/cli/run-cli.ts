@@ -9,6 +9,7 @@ import { importCommand } from './commands/import';
 import { restoreCommand } from './commands/restore';
 import { EXIT, EXIT_CODES_HELP } from './exit-codes';
 import { storePath } from './open-store';
+import { describeStorageError } from '../store/storage-errors';
 
 export const COMMANDS: readonly Command[] = [checkCommand, importCommand, exportCommand, backupCommand, restoreCommand, demoCommand];
 
@@ -97,6 +98,12 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
     if (error instanceof CliFailure) {
       io.err(`rigbook ${command.name}: ${error.message}\n`);
       return error.code;
+    }
+    const storage = describeStorageError(error);
+    if (storage) {
+      // A person's problem to fix (space, permissions, another program): the message and SQLite's own words, no stack.
+      io.err(`rigbook ${command.name}: ${storage.message}\n  (${storage.code}: ${error instanceof Error ? error.message : String(error)})\n`);
+      return EXIT.store;
     }
     io.err(`rigbook ${command.name}: something went wrong: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
     return EXIT.store;

@@ -40,7 +40,7 @@ follow from the records.
       io.out(text);
       return EXIT.ok;
     }
-    const path = writeOutputFile(io, file, text);
+    const path = writeOutputFile(io, file, text, dbPath);
     io.err(`Wrote ${summary} to ${path}\n`);
     return EXIT.ok;
   },
