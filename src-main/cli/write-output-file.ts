@@ -14,6 +14,27 @@ export function writeOutputFile(io: CliIo, file: string, text: string): string {
     return path;
   } catch (error) {
     rmSync(partial, { force: true });
-    throw new CliFailure(EXIT.store, `Cannot write ${file}: ${(error as Error).message}`);
+    // The system's message names the temporary file beside the target; the person only knows their own.
+    throw new CliFailure(EXIT.store, `Cannot write ${file}: ${writeReason(error)}`);
+  }
+}
+
+function writeReason(error: unknown): string {
+  switch ((error as { code?: string }).code) {
+    case 'ENOENT':
+    case 'ENOTDIR':
+      return 'its folder cannot be made or is not a folder.';
+    case 'EACCES':
+    case 'EPERM':
+      return 'permission denied.';
+    case 'EROFS':
+      return 'the disk or folder is read-only.';
+    case 'ENOSPC':
+    case 'EDQUOT':
+      return 'the disk is full (nothing was written; free some space and try again).';
+    case 'EISDIR':
+      return 'it is a folder, not a file.';
+    default:
+      return `the system refused the write (${(error as { code?: string }).code ?? 'unknown reason'}); nothing was written.`;
   }
 }

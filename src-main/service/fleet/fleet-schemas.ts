@@ -5,7 +5,7 @@
 
 import * as v from 'valibot';
 import { buildCreateSchema } from '../schemas/build-schemas';
-import { count, id, nullable, record } from '../schemas/field-builders';
+import { count, newId, nullable, record } from '../schemas/field-builders';
 import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from '../schemas/part-schemas';
 import type { FleetKind } from './fleet-format';
 
@@ -19,7 +19,7 @@ const bookkeeping = {
 
 function fileRecord<const E extends v.ObjectEntries & { id: unknown }>(entries: E) {
   const { id: _optionalId, ...rest } = entries;
-  return record({ id: id(), ...(rest as Omit<E, 'id'>), ...bookkeeping });
+  return record({ id: newId(), ...(rest as Omit<E, 'id'>), ...bookkeeping });
 }
 
 export const fleetRecordSchemas = {

@@ -37,6 +37,7 @@ import { FLEET_KINDS, FLEET_PART_KINDS, KIND_WORDS, type FleetKind, type FleetPa
 import { sortProblems, type FleetProblem } from './fleet-problems';
 import { NO_STORED_IDS, referenceProblems } from './fleet-references';
 import { progressCounter, type OnProgress } from './progress';
+import { recordChange, suspectMessage, type RecordChange } from './fleet-changes';
 import { validateFleet } from './validate-fleet';
 import { readJsonText } from './read-fleet-text';
 
@@ -53,6 +54,8 @@ export interface ImportOptions {
   source?: string;
   /** Refuse (as a conflict, nothing written) when the store already holds any part or build. */
   requireEmptyStore?: boolean;
+  /** Confirms changes that look like a spreadsheet's damage (a number scaled by 100 or more, or out of its plausible range); without it they refuse the import. */
+  acceptChanges?: boolean;
   onProgress?: OnProgress;
 }
 
@@ -64,6 +67,8 @@ export interface KindCounts {
 
 /** The most build-level verdict changes a report lists; the count says how many there were. */
 export const MAX_LISTED_CHANGES = 500;
+/** The most changed records a report lists field by field; `changedRecordCount` says how many there were. Changes that need confirming are always listed. */
+export const MAX_LISTED_RECORD_CHANGES = 1000;
 
 export interface ImportReport {
   /** False when the file was refused: `problems` says why, and nothing was written. */
@@ -84,6 +89,15 @@ export interface ImportReport {
   verdictChanges: VerdictChange[];
   verdictChangeCount: number;
   historyId: number | null;
+  /** Stored records the import changes (or would change), field by field, before → after. */
+  recordChanges: RecordChange[];
+  changedRecordCount: number;
+  /** How many field changes need confirming (`acceptChanges`); when not confirmed the import is refused and each is a problem. */
+  suspectChangeCount: number;
+  /** Refused only because changes need confirming: importing again with `acceptChanges` would go through. */
+  needsConfirmation: boolean;
+  /** CSV rows holding nothing but separators, skipped. */
+  skippedRows: number;
 }
 
 function zeroCounts(): Record<FleetKind, KindCounts> {
@@ -98,7 +112,7 @@ function zeroStatuses(): Record<Status, number> {
   return out;
 }
 
-export function refusedReport(options: ImportOptions, problems: FleetProblem[], unreadable = false): ImportReport {
+export function refusedReport(options: ImportOptions, problems: FleetProblem[], unreadable = false, changes: RecordChange[] = [], needsConfirmation = false): ImportReport {
   return {
     ok: false,
     unreadable,
@@ -113,12 +127,28 @@ export function refusedReport(options: ImportOptions, problems: FleetProblem[], 
     verdictChanges: [],
     verdictChangeCount: 0,
     historyId: null,
+    ...listedChanges(changes),
+    needsConfirmation,
+    skippedRows: 0,
+  };
+}
+
+function listedChanges(changes: readonly RecordChange[]): Pick<ImportReport, 'recordChanges' | 'changedRecordCount' | 'suspectChangeCount'> {
+  const suspect = changes.filter((c) => c.fields.some((f) => f.suspect !== null));
+  const rest = changes.filter((c) => !c.fields.some((f) => f.suspect !== null));
+  return {
+    recordChanges: [...suspect, ...rest.slice(0, Math.max(0, MAX_LISTED_RECORD_CHANGES - suspect.length))],
+    changedRecordCount: changes.length,
+    suspectChangeCount: suspect.reduce((n, c) => n + c.fields.filter((f) => f.suspect !== null).length, 0),
   };
 }
 
 /** Thrown inside the transaction to leave it with nothing written. */
 class ImportRefused extends Error {
-  constructor(readonly problems: FleetProblem[]) {
+  constructor(
+    readonly problems: FleetProblem[],
+    readonly changes: RecordChange[] = [],
+  ) {
     super('import refused');
   }
 }
@@ -147,6 +177,7 @@ interface Written {
   removed: ClearedCounts | null;
   recheck: readonly string[] | BuildSelector;
   changedIds: Partial<Record<FleetKind, string[]>>;
+  changes: RecordChange[];
 }
 
 async function writeParts<K extends FleetPartKind>(
@@ -165,8 +196,10 @@ async function writeParts<K extends FleetPartKind>(
   for (const record of records) {
     const stored = before.get(record.id);
     if (!stored) added.push(record);
-    else if (!sameFields(kind, record, stored)) changed.push(record);
-    else written.counts[kind].unchanged++;
+    else if (!sameFields(kind, record, stored)) {
+      changed.push(record);
+      written.changes.push(recordChange(kind, stored, record));
+    } else written.counts[kind].unchanged++;
   }
   await insertPartRows(trx, kind, added, at);
   for (const record of changed) {
@@ -185,7 +218,7 @@ async function writeParts<K extends FleetPartKind>(
 
 async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, at: string, onProgress?: OnProgress): Promise<Written> {
   const merging = mode === 'merge';
-  const written: Written = { counts: zeroCounts(), removed: null, recheck: [], changedIds: {} };
+  const written: Written = { counts: zeroCounts(), removed: null, recheck: [], changedIds: {}, changes: [] };
   if (!merging) written.removed = await clearFleetTables(trx);
   const total = FLEET_KINDS.reduce((n, k) => n + fleet[k].length, 0);
   const progress = progressCounter(onProgress, 'write', total);
@@ -215,6 +248,7 @@ async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, 
     const stored = storedBuilds.get(b.id);
     return stored !== undefined && !sameFields('builds', b, stored);
   });
+  for (const b of changedBuilds) written.changes.push(recordChange('builds', storedBuilds.get(b.id)!, b));
   written.counts.builds = { added: addedBuilds.length, updated: changedBuilds.length, unchanged: fleet.builds.length - addedBuilds.length - changedBuilds.length };
   written.changedIds.builds = [...addedBuilds, ...changedBuilds].map((b) => b.id);
   // Supplies of every rewritten build go first, so one may move a supply id to another.
@@ -287,6 +321,10 @@ export async function importFleet(ctx: ServiceContext, input: unknown, options: 
         const problems = [...validation.problems, ...referenceProblems(validation.fleet, validation.fileIds, stored, validation.buildPlaces)];
         if (problems.length > 0) throw new ImportRefused(sortProblems(problems, FLEET_KINDS));
         written = await writeFleet(trx, validation.fleet, options.mode, at, options.onProgress);
+        if (!options.acceptChanges) {
+          const suspect = written.changes.flatMap((record) => record.fields.filter((f) => f.suspect !== null).map((f) => ({ place: '', message: suspectMessage(record, f) })));
+          if (suspect.length > 0) throw new ImportRefused(suspect, written.changes);
+        }
         const what = source === 'demo' ? 'the demo fleet' : source === 'csv' ? 'a CSV file' : 'a fleet file';
         return {
           result: null,
@@ -328,9 +366,12 @@ export async function importFleet(ctx: ServiceContext, input: unknown, options: 
       verdictChanges: buildChanges.slice(0, MAX_LISTED_CHANGES),
       verdictChangeCount: buildChanges.length,
       historyId: options.dryRun ? null : outcome.historyId,
+      ...listedChanges(done.changes),
+      needsConfirmation: false,
+      skippedRows: 0,
     };
   } catch (error) {
-    if (error instanceof ImportRefused) return refusedReport(options, error.problems);
+    if (error instanceof ImportRefused) return refusedReport(options, error.problems, false, error.changes, error.changes.length > 0);
     throw error;
   }
 }
@@ -338,6 +379,6 @@ export async function importFleet(ctx: ServiceContext, input: unknown, options: 
 /** Import of a file's text: not JSON at all is refused as unreadable, with where reading stopped. */
 export async function importFleetText(ctx: ServiceContext, text: string, options: ImportOptions): Promise<ImportReport> {
   const read = readJsonText(text);
-  if (!read.ok) return refusedReport(options, [{ place: '', message: read.reason }], true);
+  if (!read.ok) return refusedReport(options, [{ place: read.place, message: read.reason }], read.unreadable);
   return importFleet(ctx, read.value, options);
 }
