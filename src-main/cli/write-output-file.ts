@@ -13,7 +13,11 @@ export function writeOutputFile(io: CliIo, file: string, text: string): string {
     renameSync(partial, path);
     return path;
   } catch (error) {
-    rmSync(partial, { force: true });
+    try {
+      rmSync(partial, { force: true });
+    } catch {
+      // Nothing was made (the folder could not be): nothing to remove.
+    }
     // The system's message names the temporary file beside the target; the person only knows their own.
     throw new CliFailure(EXIT.store, `Cannot write ${file}: ${writeReason(error)}`);
   }
