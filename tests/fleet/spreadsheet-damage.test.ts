@@ -138,6 +138,12 @@ describe('ids a spreadsheet cannot mangle', () => {
     expect(report.ok).toBe(false);
     expect(report.problems.map(problemLine)).toEqual([expect.stringMatching(/^row 2, column "id": "1" matches no pack in the store, but "001" is the same number written differently/)]);
     expect(await dumpStore(f.db)).toEqual(before);
+    // The same in a fleet file a script rewrote.
+    const fleet = await f.call('fleet.export', {});
+    fleet.batteries[0]!.id = '1';
+    const json = await f.call('fleet.import', { fleet, mode: 'merge' });
+    expect(json.problems.map(problemLine)).toEqual([expect.stringMatching(/^batteries\[0\]\.id: "1" matches no pack in the store, but "001" is the same number written differently/)]);
+    expect(await dumpStore(f.db)).toEqual(before);
   });
 
   it.each([

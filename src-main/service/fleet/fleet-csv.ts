@@ -4,7 +4,10 @@ import { listParts } from '../../store/repositories/parts';
 import type { ServiceContext } from '../service-context';
 import { canonicalRecord } from './canonical-record';
 import { csvText, parseCsv } from './csv';
-import { csvColumns, fromCell, looksNumeric, toCell, type CsvKind } from './csv-columns';
+import { csvColumns, fromCell, toCell, type CsvKind } from './csv-columns';
+import { numericTwin } from './numeric-twin';
+
+export { numericTwin };
 import { FLEET_FORMAT, FLEET_VERSION, KIND_WORDS } from './fleet-format';
 import { fleetRecordSchemas } from './fleet-schemas';
 import type { FleetProblem } from './fleet-problems';
@@ -49,17 +52,6 @@ function otherSeparator(header: readonly string[], known: ReadonlySet<string>): 
     const names = only.split(sep).map((n) => n.trim());
     if (names.length > 1 && names.some((n) => known.has(n))) return word;
   }
-  return null;
-}
-
-/**
- * A stored id that equals `id` as a number (`001` and `1`, `1.50` and `1.5`, `100000` and
- * `1e5`): the id a spreadsheet rewrote. Null when there is none, or when `id` is stored as it is.
- */
-export function numericTwin(id: string, stored: ReadonlySet<string>): string | null {
-  if (stored.has(id) || !looksNumeric(id)) return null;
-  const value = Number(id);
-  for (const s of stored) if (looksNumeric(s) && Number(s) === value) return s;
   return null;
 }
 

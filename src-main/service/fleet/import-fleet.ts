@@ -35,7 +35,8 @@ import type { ServiceContext } from '../service-context';
 import { sameFields } from './canonical-record';
 import { FLEET_KINDS, FLEET_PART_KINDS, KIND_WORDS, type FleetKind, type FleetPartKind, type FleetRecords } from './fleet-format';
 import { sortProblems, type FleetProblem } from './fleet-problems';
-import { NO_STORED_IDS, referenceProblems } from './fleet-references';
+import { NO_STORED_IDS, referenceProblems, type StoredIds } from './fleet-references';
+import { numericTwin } from './numeric-twin';
 import { progressCounter, type OnProgress } from './progress';
 import { recordChange, suspectMessage, type RecordChange } from './fleet-changes';
 import { validateFleet } from './validate-fleet';
@@ -300,6 +301,21 @@ async function refuseUnlessEmpty(db: DbHandle): Promise<void> {
   }
 }
 
+const ID_PLACE = /^(batteries|motors|controllers|propellers|vehicles)\[(\d+)\]\.id$/;
+
+/** An id refused for starting with a digit that equals a stored id as a number (`1` for `001`): say so, as the CSV import does. */
+function hintRewrittenIds(input: unknown, problems: readonly FleetProblem[], stored: StoredIds): FleetProblem[] {
+  return problems.map((p) => {
+    const m = ID_PLACE.exec(p.place);
+    if (!m) return p;
+    const kind = m[1] as keyof Pick<StoredIds, 'batteries' | 'motors' | 'controllers' | 'propellers' | 'vehicles'>;
+    const raw = ((input as Record<string, unknown[]>)[kind]?.[Number(m[2])] as { id?: unknown } | undefined)?.id;
+    const twin = typeof raw === 'string' ? numericTwin(raw, stored[kind]) : null;
+    if (twin === null) return p;
+    return { place: p.place, message: `"${String(raw)}" matches no ${KIND_WORDS[kind].one} in the store, but "${twin}" is the same number written differently: a spreadsheet or script probably rewrote the id. Nothing was added; put the id back as "${twin}".` };
+  });
+}
+
 function tally(verdicts: readonly BuildVerdict[]): Record<Status, number> {
   const out = zeroStatuses();
   for (const v of verdicts) out[v.status]++;
@@ -318,7 +334,7 @@ export async function importFleet(ctx: ServiceContext, input: unknown, options: 
         // Checked inside the transaction, so no other writer can change what the references resolve to.
         const stored = options.mode === 'merge' ? await readFleetIds(trx) : NO_STORED_IDS;
         if (options.requireEmptyStore) await refuseUnlessEmpty(trx);
-        const problems = [...validation.problems, ...referenceProblems(validation.fleet, validation.fileIds, stored, validation.buildPlaces)];
+        const problems = [...hintRewrittenIds(input, validation.problems, stored), ...referenceProblems(validation.fleet, validation.fileIds, stored, validation.buildPlaces)];
         if (problems.length > 0) throw new ImportRefused(sortProblems(problems, FLEET_KINDS));
         written = await writeFleet(trx, validation.fleet, options.mode, at, options.onProgress);
         if (!options.acceptChanges) {
