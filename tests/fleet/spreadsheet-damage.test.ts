@@ -2,6 +2,7 @@ import { homedir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { parseCsv } from '../../src-main/service/fleet/csv';
+import { fleetText } from '../../src-main/service/fleet/export-fleet';
 import { escapeFormula, unescapeFormula } from '../../src-main/service/fleet/csv-columns';
 import { decodeFileBytes } from '../../src-main/service/fleet/decode-file-bytes';
 import { numericTwin } from '../../src-main/service/fleet/fleet-csv';
@@ -243,6 +244,18 @@ describe('text encodings', () => {
     expect(refused.reason).toContain('UTF-8 as its text encoding');
     expect(refused.reason).toContain('--encoding windows-1252');
     expect(decodeFileBytes(new Uint8Array([0xff, 0xfe, 0x41, 0x00]))).toMatchObject({ ok: false, reason: expect.stringContaining('UTF-16') });
+  });
+
+  it('text already decoded with its accents lost (U+FFFD) is refused by the handlers too, nothing written', async () => {
+    await seedTwoBuggies(f);
+    const { text } = await f.call('fleet.exportCsv', { kind: 'vehicles' });
+    const before = await dumpStore(f.db);
+    const csv = await f.call('fleet.importCsv', { kind: 'vehicles', text: text.replace('Bench', 'J\uFFFDrgen') });
+    expect(csv).toMatchObject({ ok: false, unreadable: true });
+    expect(csv.problems[0]!.message).toMatch(/replacement character \(U\+FFFD\) on line 2/);
+    const json = await f.call('fleet.import', { text: fleetText(await f.call('fleet.export', {})).replace('Bench', 'M\uFFFDller') });
+    expect(json).toMatchObject({ ok: false, unreadable: true });
+    expect(await dumpStore(f.db)).toEqual(before);
   });
 
   it('Windows-1252 is read when asked for, accents intact', () => {

@@ -49,3 +49,16 @@ export function decodeFileBytes(bytes: Uint8Array, encoding: FileEncoding = 'utf
     return { ok: false, reason: `the file is not UTF-8 text (byte 0x${hex} on line ${bad.line} is not valid UTF-8; accented letters saved as Windows-1252 look like this). ${HOW_TO_FIX}` };
   }
 }
+
+/**
+ * Text handed over already decoded (the window reads the file itself) can only show the
+ * damage: a U+FFFD replacement character is what a lenient decoder leaves for every byte that
+ * was not UTF-8, and the letter it replaced is gone. Refused, rather than saved that way.
+ */
+export function lossyDecodingReason(text: string): string | null {
+  const at = text.indexOf('\uFFFD');
+  if (at < 0) return null;
+  let line = 1;
+  for (let i = 0; i < at; i++) if (text.charCodeAt(i) === 10) line++;
+  return `the text holds a replacement character (U+FFFD) on line ${line}: the file was not UTF-8 and was decoded with its accented letters already lost. ${HOW_TO_FIX}`;
+}

@@ -6,6 +6,7 @@ import { canonicalRecord } from './canonical-record';
 import { csvText, parseCsv } from './csv';
 import { csvColumns, fromCell, toCell, type CsvKind } from './csv-columns';
 import { numericTwin } from './numeric-twin';
+import { lossyDecodingReason } from './decode-file-bytes';
 
 export { numericTwin };
 import { FLEET_FORMAT, FLEET_VERSION, KIND_WORDS } from './fleet-format';
@@ -57,6 +58,8 @@ function otherSeparator(header: readonly string[], known: ReadonlySet<string>): 
 
 /** Reads and checks a CSV of one kind: header, every row, every cell; every problem named by row and column. `storedIds`, when given, are the ids of that kind already in the store. */
 export function readCsvRecords(kind: CsvKind, text: string, onProgress?: OnProgress, storedIds?: ReadonlySet<string>): CsvRecords {
+  const lossy = lossyDecodingReason(text);
+  if (lossy !== null) return { ok: false, unreadable: true, problems: [{ place: '', message: `Cannot read the file: ${lossy}` }] };
   const parsed = parseCsv(text);
   if (!parsed.ok) return { ok: false, unreadable: true, problems: [{ place: '', message: `The file is not readable CSV: ${parsed.reason}.` }] };
   const blank = parsed.rows.map(isBlankRow);

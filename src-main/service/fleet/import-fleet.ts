@@ -41,6 +41,7 @@ import { progressCounter, type OnProgress } from './progress';
 import { recordChange, suspectMessage, type RecordChange } from './fleet-changes';
 import { validateFleet } from './validate-fleet';
 import { readJsonText } from './read-fleet-text';
+import { lossyDecodingReason } from './decode-file-bytes';
 
 export const IMPORT_MODES = ['merge', 'replace'] as const;
 export type ImportMode = (typeof IMPORT_MODES)[number];
@@ -394,6 +395,8 @@ export async function importFleet(ctx: ServiceContext, input: unknown, options: 
 
 /** Import of a file's text: not JSON at all is refused as unreadable, with where reading stopped. */
 export async function importFleetText(ctx: ServiceContext, text: string, options: ImportOptions): Promise<ImportReport> {
+  const lossy = lossyDecodingReason(text);
+  if (lossy !== null) return refusedReport(options, [{ place: '', message: `Cannot read the file: ${lossy}` }], true);
   const read = readJsonText(text);
   if (!read.ok) return refusedReport(options, [{ place: read.place, message: read.reason }], read.unreadable);
   return importFleet(ctx, read.value, options);
