@@ -39,6 +39,15 @@ describe('rigbook and fleet files from scripts and spreadsheets', () => {
     expect(imported.out).toMatch(/^Imported standard input \(merge\): added 2 packs, 1 motor, 1 speed controller, 1 vehicle, 2 builds\./);
   });
 
+  it('check refuses a field named twice with its path (exit 3), and a 20 000-deep broken file with its place (exit 2)', async () => {
+    const dup = await rigbook(['check', '-'], { stdin: '{"format":"rigbook-fleet","version":1,"motors":[{"id":"m1","name":"M","kv":3200,"kv":32000}]}' });
+    expect(dup.code).toBe(3);
+    expect(dup.err).toContain('standard input is not a valid rigbook-fleet file (1 problem):\n  motors[0].kv: the field "kv" appears twice in one object');
+    const deep = await rigbook(['check', '-'], { stdin: `${'['.repeat(20_000)}}` });
+    expect(deep.code).toBe(2);
+    expect(deep.err).toBe('Cannot read standard input: The file is not JSON: unexpected "}" where a value should be, at line 1, column 20001.\n');
+  });
+
   it('the factor-1000 CSV is refused on the command line, listed field by field, and goes through with --accept-changes', async () => {
     const t = temp();
     const db = t.file('s.sqlite');
