@@ -23,12 +23,33 @@ export function writeOutputFile(io: CliIo, file: string, text: string, storePath
     renameSync(partial, path);
     return path;
   } catch (error) {
-    rmSync(partial, { force: true });
-    if (error instanceof CliFailure) throw error;
-    const storage = describeStorageError(error, dirname(path));
-    if (storage && storage.problem !== 'in-use') {
-      throw new CliFailure(EXIT.store, `Cannot write ${file}: ${storage.problem === 'disk-full' ? `the disk holding ${dirname(path)} is full` : `${dirname(path)} cannot be written (read-only, or another user's)`}. Nothing was written. (${storage.code}: ${(error as Error).message})`);
+    try {
+      rmSync(partial, { force: true });
+    } catch {
+      // Nothing was made (the folder could not be): nothing to remove.
     }
-    throw new CliFailure(EXIT.store, `Cannot write ${file}: ${(error as Error).message}`);
+    if (error instanceof CliFailure) throw error;
+    // The system's message names the temporary file beside the target; the person only knows
+    // their own, so the reason is worded here and only the system's code is kept.
+    const code = (error as { code?: string }).code;
+    throw new CliFailure(EXIT.store, `Cannot write ${file}: ${writeReason(error, dirname(path))}${code ? ` (${code})` : ''}`);
+  }
+}
+
+function writeReason(error: unknown, folder: string): string {
+  const storage = describeStorageError(error, folder);
+  if (storage?.problem === 'disk-full') return `the disk holding ${folder} is full. Nothing was written; free some space and try again.`;
+  switch ((error as { code?: string }).code) {
+    case 'ENOENT':
+    case 'ENOTDIR':
+      return 'its folder cannot be made or is not a folder. Nothing was written.';
+    case 'EACCES':
+    case 'EPERM':
+    case 'EROFS':
+      return `${folder} cannot be written (read-only, or another user's). Nothing was written.`;
+    case 'EISDIR':
+      return 'it is a folder, not a file. Nothing was written.';
+    default:
+      return 'the system refused the write. Nothing was written.';
   }
 }

@@ -22,6 +22,22 @@ export const id = () =>
     v.regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'may hold only letters, digits, dot, dash and underscore'),
   );
 
+/**
+ * The id of a record being created (by a form or an import). It starts with a letter:
+ * spreadsheets rewrite anything that looks like a number (001 → 1, 1.50 → 1.5,
+ * 1e5 → 1.00E+05), and a rewritten id would silently become another record. References to
+ * records already stored still take any `id()`.
+ */
+export const newId = () =>
+  v.pipe(
+    id(),
+    v.regex(
+      /^[A-Za-z]/,
+      (issue) =>
+        `must start with a letter (${JSON.stringify(issue.input)} does not): spreadsheets rewrite ids that look like numbers (001 becomes 1, 1e5 becomes 1.00E+05), so Rigbook's ids start with a letter`,
+    ),
+  );
+
 export const name = () =>
   v.pipe(v.string('must be text'), v.trim(), v.minLength(1, 'is required'), v.maxLength(MAX_NAME, `must be at most ${MAX_NAME} characters`));
 
