@@ -14,6 +14,9 @@ export interface NumberMarks {
   readonly indianGrouping: boolean;
 }
 
+/** Locales a user can choose for numbers; '' follows the system's. */
+export const NUMBER_LOCALE_TAGS = ['', 'en-US', 'en-GB', 'en-IN', 'de-DE', 'de-CH', 'fr-FR', 'es-ES', 'it-IT', 'nl-NL', 'pt-BR', 'sv-SE', 'pl-PL'] as const;
+
 export type ParsedNumber = { kind: 'empty' } | { kind: 'number'; value: number } | { kind: 'refused'; message: string };
 
 const SPACES = /[\s\u00a0\u2007\u2009\u202f]/gu;

@@ -17,6 +17,13 @@ export interface FieldDef {
   quantity?: DisplayQuantity;
   /** Shown value = stored value × scale (ohm shown as milliohm, ratio shown as percent). */
   scale?: number;
+  /**
+   * Typed and checked as a percentage (stored as a fraction, scale 100): bounds read "100 %",
+   * and a value from 0 to 1 is refused as a fraction typed by habit.
+   */
+  percent?: boolean;
+  /** Decimals of a converted (imperial) value in the input; 2 unless said. */
+  inputDecimals?: number;
   options?: readonly string[];
   optionLabels?: Readonly<Record<string, string>>;
   hint?: string;
