@@ -2,6 +2,7 @@ import type { Figures, VehicleKind } from '../../../src-main/core/domain';
 import type { DisplayQuantity, UnitSystem } from '../../../src-main/core/units';
 import { MISSING, fixed } from '../format/number';
 import { displayUnit, toDisplay } from '../../../src-main/core/units';
+import { thrustAsMass } from '../format/units';
 
 export interface FigureDef {
   key: string;
@@ -14,6 +15,8 @@ export interface FigureDef {
   /** Stored value × scale is shown (ohm → milliohm). */
   scale?: number;
   hint?: string;
+  /** A second reading beside the figure: thrust as the mass it lifts (g or oz). */
+  alt?: 'thrustMass';
 }
 
 export interface FigureGroup {
@@ -67,7 +70,7 @@ export const PROPELLER_FIGURES: FigureGroup = {
   id: 'propeller',
   title: 'Propeller',
   figures: [
-    { key: 'thrustN', label: 'Static thrust', quantity: 'forceN', decimals: 1 },
+    { key: 'thrustN', label: 'Static thrust', quantity: 'forceN', decimals: 1, alt: 'thrustMass', hint: 'all motors together; in brackets the mass it holds up' },
     { key: 'tipSpeedMps', label: 'Tip speed', quantity: 'speedMps', decimals: 0 },
   ],
 };
@@ -93,9 +96,17 @@ export function figureNumber(def: FigureDef, figures: Figures | null | undefined
   return fixed(shown, def.decimals);
 }
 
+/** The second reading of a figure ("1 254 g" beside the thrust in newtons), or null. */
+export function figureAlt(def: FigureDef, figures: Figures | null | undefined, system: UnitSystem): string | null {
+  const raw = figures?.[def.key];
+  if (def.alt !== 'thrustMass' || typeof raw !== 'number' || !Number.isFinite(raw)) return null;
+  return thrustAsMass(raw, system);
+}
+
 export function figureText(def: FigureDef, figures: Figures | null | undefined, system: UnitSystem): string {
   const n = figureNumber(def, figures, system);
   if (n === MISSING) return n;
   const unit = figureUnit(def, system);
-  return unit === ':1' ? `${n}:1` : `${n} ${unit}`;
+  const alt = figureAlt(def, figures, system);
+  return unit === ':1' ? `${n}:1` : `${n} ${unit}${alt ? ` (${alt})` : ''}`;
 }

@@ -39,7 +39,9 @@ export const CHEMISTRY_LABELS: Readonly<Record<string, string>> = { lipo: 'LiPo'
 export const KIND_LABELS: Readonly<Record<string, string>> = { car: 'Car', truck: 'Truck', boat: 'Boat', multirotor: 'Multirotor', plane: 'Plane' };
 
 const NAME: FieldDef = { key: 'name', label: 'Name', type: 'text', column: true };
-const MASS: FieldDef = { key: 'massKg', label: 'Mass', type: 'number', quantity: 'massKg', nullable: true };
+// Packs, motors and controllers are weighed in grams or ounces, vehicles in kilograms or pounds.
+const MASS: FieldDef = { key: 'massKg', label: 'Mass', type: 'number', quantity: 'massSmallKg', inputDecimals: 1, nullable: true };
+const VEHICLE_MASS: FieldDef = { key: 'massKg', label: 'Mass', type: 'number', quantity: 'massKg', nullable: true };
 const NOTES: FieldDef = { key: 'notes', label: 'Notes', type: 'notes' };
 
 export const PART_FIELDS: Readonly<Record<PartTable, readonly FieldDef[]>> = {
@@ -94,7 +96,7 @@ export const PART_FIELDS: Readonly<Record<PartTable, readonly FieldDef[]>> = {
     { key: 'kind', label: 'Kind', type: 'select', options: VEHICLE_KINDS, optionLabels: KIND_LABELS, column: true },
     { key: 'owner', label: 'Owner', type: 'text', column: true },
     { key: 'className', label: 'Class', type: 'text', column: true },
-    { ...MASS, column: true },
+    { ...VEHICLE_MASS, column: true },
     {
       key: 'dragAreaM2',
       label: 'Drag area Cd·A',
