@@ -12,6 +12,8 @@ export interface FigureDef {
   /** A quantity shown in the user's system (km/h or mph, mm or in). */
   quantity?: DisplayQuantity;
   decimals: number;
+  /** Decimals in imperial units where they differ (a rollout of 1.30 in, not 1.3). */
+  imperialDecimals?: number;
   /** Stored value × scale is shown (ohm → milliohm). */
   scale?: number;
   hint?: string;
@@ -60,7 +62,7 @@ export const DRIVETRAIN_FIGURES: FigureGroup = {
   title: 'Drivetrain',
   figures: [
     { key: 'finalDriveRatio', label: 'Final drive ratio', unit: ':1', decimals: 2, hint: 'spur ÷ pinion × internal ratio' },
-    { key: 'rolloutMm', label: 'Rollout', quantity: 'lengthMm', decimals: 1, hint: 'distance per motor turn' },
+    { key: 'rolloutMm', label: 'Rollout', quantity: 'lengthMm', decimals: 1, imperialDecimals: 2, hint: 'distance per motor turn' },
     { key: 'theoreticalSpeedKmh', label: 'Theoretical speed', quantity: 'speedKmh', decimals: 1, hint: 'at nominal no-load speed, no slip' },
     { key: 'loadedTopSpeedKmh', label: 'Loaded top speed', quantity: 'speedKmh', decimals: 1, hint: 'where motor torque meets road load' },
   ],
@@ -93,7 +95,7 @@ export function figureNumber(def: FigureDef, figures: Figures | null | undefined
   if (typeof raw !== 'number' || !Number.isFinite(raw)) return MISSING;
   const scaled = raw * (def.scale ?? 1);
   const shown = def.quantity ? toDisplay(scaled, def.quantity, system) : scaled;
-  return fixed(shown, def.decimals);
+  return fixed(shown, system === 'imperial' ? (def.imperialDecimals ?? def.decimals) : def.decimals);
 }
 
 /** The second reading of a figure ("1 254 g" beside the thrust in newtons), or null. */
