@@ -221,3 +221,33 @@ test('a check that lacks an input names the field by its label and links to it; 
   await expect(form.locator('[data-field="dragAreaM2"] .hint')).toContainText('m²');
   await shot(page, 'entry-vehicle-hints', true);
 });
+
+test('the swap preview reads its numbers the same way: percent efficiency, thousands marks, every bad value beside its field', async ({ page, shell }) => {
+  const { build, motor } = await seedOneBuild(shell);
+  await openApp(page, shell, `#/builds/${build.id}/swap`);
+  await page.getByRole('tab', { name: 'Change gearing' }).click();
+  await expect(page.locator('input[name="gearing.drivetrainEfficiency"]')).toHaveValue('88');
+  await page.locator('input[name="gearing.drivetrainEfficiency"]').fill('0.9');
+  await page.locator('input[name="gearing.pinionTeeth"]').fill('1e2');
+  await page.getByRole('button', { name: 'Preview' }).click();
+  const gearing = page.locator('.gearing');
+  await expect(gearing.getByRole('alert')).toHaveCount(2);
+  await expect(gearing).toContainText('for 90 % type 90');
+  await expect(gearing).toContainText('exponent');
+  await expect(page.getByTestId('preview-result')).toHaveCount(0);
+  await shot(page, 'entry-swap-refused');
+
+  await page.locator('input[name="gearing.drivetrainEfficiency"]').fill('90');
+  await page.locator('input[name="gearing.pinionTeeth"]').fill('15');
+  await page.getByRole('button', { name: 'Preview' }).click();
+  await expect(page.getByTestId('preview-result')).toBeVisible();
+
+  // A shared record's value typed with a thousands mark.
+  await page.getByRole('tab', { name: "Edit a shared part's ratings" }).click();
+  await page.getByLabel('Part record').selectOption({ label: 'motor: Test 2200Kv' });
+  await page.getByLabel('Field').selectOption({ label: 'Rated power (W)' });
+  await page.getByLabel('New value').fill('2,400');
+  await page.getByRole('button', { name: 'Preview' }).click();
+  await expect(page.getByTestId('preview-result')).toBeVisible();
+  expect((await shell.api<StoredRecord>('motors.get', { id: motor.id })).maxPowerW).toBe(2600);
+});

@@ -10,7 +10,9 @@ export function requestFieldFocus(field: string | null): void {
 /** Focuses the requested field if this form holds it (`idPrefix-key`); returns whether it did. */
 export function focusRequestedField(idPrefix: string, doc: Document = document): boolean {
   if (requested === null) return false;
-  const target = doc.getElementById(`${idPrefix}-${requested}`) ?? doc.querySelector<HTMLElement>(`[data-field="${CSS.escape(requested)}"] input, [data-field="${CSS.escape(requested)}"] select, #supplies-${CSS.escape(requested)}`);
+  // Fields are `idPrefix-key`; a group such as the supplies is found by its data-field.
+  const field = CSS.escape(requested);
+  const target = doc.getElementById(`${idPrefix}-${requested}`) ?? doc.querySelector<HTMLElement>(`[data-field="${field}"] input, [data-field="${field}"] select`);
   if (!target) return false;
   requested = null;
   target.focus();
