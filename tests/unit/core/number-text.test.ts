@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { numberForInput, numberMarks, parseNumberText, type ParsedNumber } from '../../src-main/core/number-text';
+import { numberForInput, numberMarks, parseNumberText, type ParsedNumber } from '../../../src-main/core/number-text';
 
 // The outside reference is Intl.NumberFormat itself (ECMA-402, with the CLDR data of the
 // running engine): whatever it prints for a locale must read back as the same number, or be
