@@ -2,6 +2,7 @@ import type { Figures, VehicleKind } from '../../../src-main/core/domain';
 import type { DisplayQuantity, UnitSystem } from '../../../src-main/core/units';
 import { MISSING, fixed } from '../format/number';
 import { displayUnit, toDisplay } from '../../../src-main/core/units';
+import { thrustAsMass } from '../format/units';
 
 export interface FigureDef {
   key: string;
@@ -11,9 +12,13 @@ export interface FigureDef {
   /** A quantity shown in the user's system (km/h or mph, mm or in). */
   quantity?: DisplayQuantity;
   decimals: number;
+  /** Decimals in imperial units where they differ (a rollout of 1.30 in, not 1.3). */
+  imperialDecimals?: number;
   /** Stored value × scale is shown (ohm → milliohm). */
   scale?: number;
   hint?: string;
+  /** A second reading beside the figure: thrust as the mass it lifts (g or oz). */
+  alt?: 'thrustMass';
 }
 
 export interface FigureGroup {
@@ -57,7 +62,7 @@ export const DRIVETRAIN_FIGURES: FigureGroup = {
   title: 'Drivetrain',
   figures: [
     { key: 'finalDriveRatio', label: 'Final drive ratio', unit: ':1', decimals: 2, hint: 'spur ÷ pinion × internal ratio' },
-    { key: 'rolloutMm', label: 'Rollout', quantity: 'lengthMm', decimals: 1, hint: 'distance per motor turn' },
+    { key: 'rolloutMm', label: 'Rollout', quantity: 'lengthMm', decimals: 1, imperialDecimals: 2, hint: 'distance per motor turn' },
     { key: 'theoreticalSpeedKmh', label: 'Theoretical speed, nominal', quantity: 'speedKmh', decimals: 1, hint: 'at nominal no-load speed, no slip' },
     { key: 'loadedTopSpeedKmh', label: 'Loaded top speed, nominal', quantity: 'speedKmh', decimals: 1, hint: 'where motor torque meets road load' },
   ],
@@ -67,7 +72,7 @@ export const PROPELLER_FIGURES: FigureGroup = {
   id: 'propeller',
   title: 'Propeller',
   figures: [
-    { key: 'thrustN', label: 'Static thrust, full charge', quantity: 'forceN', decimals: 1 },
+    { key: 'thrustN', label: 'Static thrust, full charge', quantity: 'forceN', decimals: 1, alt: 'thrustMass', hint: 'all motors together; in brackets the mass it holds up' },
     { key: 'tipSpeedMps', label: 'Tip speed, full charge', quantity: 'speedMps', decimals: 0, hint: 'at the highest rpm the propeller reaches' },
   ],
 };
@@ -90,12 +95,20 @@ export function figureNumber(def: FigureDef, figures: Figures | null | undefined
   if (typeof raw !== 'number' || !Number.isFinite(raw)) return MISSING;
   const scaled = raw * (def.scale ?? 1);
   const shown = def.quantity ? toDisplay(scaled, def.quantity, system) : scaled;
-  return fixed(shown, def.decimals);
+  return fixed(shown, system === 'imperial' ? (def.imperialDecimals ?? def.decimals) : def.decimals);
+}
+
+/** The second reading of a figure ("1 254 g" beside the thrust in newtons), or null. */
+export function figureAlt(def: FigureDef, figures: Figures | null | undefined, system: UnitSystem): string | null {
+  const raw = figures?.[def.key];
+  if (def.alt !== 'thrustMass' || typeof raw !== 'number' || !Number.isFinite(raw)) return null;
+  return thrustAsMass(raw, system);
 }
 
 export function figureText(def: FigureDef, figures: Figures | null | undefined, system: UnitSystem): string {
   const n = figureNumber(def, figures, system);
   if (n === MISSING) return n;
   const unit = figureUnit(def, system);
-  return unit === ':1' ? `${n}:1` : `${n} ${unit}`;
+  const alt = figureAlt(def, figures, system);
+  return unit === ':1' ? `${n}:1` : `${n} ${unit}${alt ? ` (${alt})` : ''}`;
 }
