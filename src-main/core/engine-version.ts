@@ -3,4 +3,7 @@
  * verdicts carry only statuses and list figures (the detail is evaluated afresh), so a store
  * opened by a newer engine re-checks every build once to keep the list and the sheets agreed.
  */
-export const ENGINE_VERSION = 2;
+// 2: stored verdicts name the rule and source of the list's current (re-check fills them in).
+// 3: safe-side model: parallel shares by conductance, unloaded tip speed, run current, geared
+//    propellers, retired and repeated packs, incomplete above tight, plausibility bounds.
+export const ENGINE_VERSION = 3;

@@ -5,6 +5,7 @@ import type { ServiceHost } from '../service/contract';
 import { CONTENT_SECURITY_POLICY } from './content-security-policy';
 import { hostAllowed, originAllowed, tokenMatches } from './request-guard';
 import { readStatic } from './static-files';
+import { pageCallRefusal } from '../service/page-call-policy';
 
 export const TOKEN_HEADER = 'x-rigbook-token';
 /** Large enough for a shop's whole fleet file; anything bigger is refused before parsing. */
@@ -16,6 +17,8 @@ export interface LocalServerOptions {
   rendererDir: string;
   port?: number;
   token?: string;
+  /** Only 127.0.0.1 is accepted: the shell serves this computer alone. Any other address is refused before listening. */
+  bindAddress?: string;
 }
 
 export interface LocalServer {
@@ -24,6 +27,8 @@ export interface LocalServer {
   openUrl: string;
   token: string;
   port: number;
+  /** What the listening socket itself reports (`server.address()`). */
+  listening: { address: string; family: string; port: number };
   close(): Promise<void>;
 }
 
@@ -63,6 +68,9 @@ async function readBody(req: IncomingMessage): Promise<string> {
 
 /** Serves the renderer and the handler map on 127.0.0.1 only. */
 export async function startLocalServer(options: LocalServerOptions): Promise<LocalServer> {
+  if (options.bindAddress !== undefined && options.bindAddress !== LOOPBACK) {
+    throw new Error(`The browser shell listens on ${LOOPBACK} only (this computer); it will not listen on "${options.bindAddress}".`);
+  }
   const token = options.token ?? randomBytes(24).toString('base64url');
   let port = 0;
   const sockets = new Set<import('node:net').Socket>();
@@ -102,7 +110,8 @@ export async function startLocalServer(options: LocalServerOptions): Promise<Loc
         return refuse(res, tooLarge ? 413 : 400, tooLarge ? "Request too large" : "Body is not valid JSON");
       }
       const name = decodeURIComponent(url.pathname.slice('/api/'.length));
-      const result = await options.host.call(name, args);
+      const refused = pageCallRefusal('loopback', options.host.dbPath, name, args);
+      const result = refused ? { ok: false as const, error: refused } : await options.host.call(name, args);
       return sendJson(res, 200, result);
     }
 
@@ -127,13 +136,15 @@ export async function startLocalServer(options: LocalServerOptions): Promise<Loc
     server.once('error', reject);
     server.listen(options.port ?? 0, LOOPBACK, () => resolve());
   });
-  port = (server.address() as AddressInfo).port;
+  const bound = server.address() as AddressInfo;
+  port = bound.port;
   const url = `http://${LOOPBACK}:${port}/`;
   return {
     url,
     openUrl: `${url}#token=${token}`,
     token,
     port,
+    listening: { address: bound.address, family: bound.family, port: bound.port },
     close: async () => {
       unsubscribe();
       for (const res of eventStreams) res.end();

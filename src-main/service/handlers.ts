@@ -1,7 +1,7 @@
 import type * as v from 'valibot';
 import type { AnyHandler } from './define-handler';
 import { archiveHandler, createHandler, getHandler, listHandler, updateHandler } from './handlers/part-handlers';
-import { archiveBuild, createBuild, getBuildSheet, listBuilds, previewChange, updateBuild } from './handlers/build-handlers';
+import { archiveBuild, createBuild, duplicateBuild, getBuildSheet, listBuilds, previewChange, updateBuild } from './handlers/build-handlers';
 import { listHistoryEntries } from './handlers/history-handlers';
 import { getSettings, updateSettings } from './handlers/settings-handlers';
 import { storeInfo } from './handlers/store-handlers';
@@ -50,6 +50,7 @@ export const handlers = {
   'builds.create': createBuild,
   'builds.update': updateBuild,
   'builds.archive': archiveBuild,
+  'builds.duplicate': duplicateBuild,
   'builds.preview': previewChange,
   'history.list': listHistoryEntries,
   'settings.get': getSettings,

@@ -7,6 +7,7 @@ import type { EventListener, ServiceHost } from './contract';
 import { dispatch } from './dispatch';
 import { recheckIfEngineChanged } from './engine-upgrade';
 import type { ServiceContext } from './service-context';
+import { StoreFileWatch } from '../store/file-identity';
 
 export interface HostOptions {
   dbPath: string;
@@ -41,7 +42,16 @@ export const AUTO_BACKUPS_KEPT = 5;
 export async function openServiceHost(options: HostOptions): Promise<ServiceHost & { ctx: ServiceContext; autoBackupPath: string | null }> {
   // A store created just now holds nothing worth a copy.
   const existed = options.dbPath !== ':memory:' && existsSync(options.dbPath);
+  // The file's identity is taken before SQLite opens it: a restore that swaps the file in the
+  // meantime must not leave this host writing into the file it replaced.
+  const watchBefore = existed ? new StoreFileWatch(options.dbPath) : null;
   const store = await openStore(options.dbPath);
+  const storeFile = watchBefore ?? (options.dbPath === ':memory:' ? undefined : new StoreFileWatch(options.dbPath));
+  const changed = storeFile?.problem('opening') ?? null;
+  if (changed) {
+    await store.db.destroy();
+    throw new Error(changed);
+  }
   let autoBackupPath: string | null = null;
   if (options.autoBackup && existed) {
     try {
@@ -62,6 +72,7 @@ export async function openServiceHost(options: HostOptions): Promise<ServiceHost
     now: options.now ?? (() => new Date()),
     newId: options.newId ?? randomId,
     raw: store.raw,
+    ...(storeFile ? { storeFile } : {}),
     emit: (event) => {
       for (const listener of listeners) {
         try {

@@ -1,12 +1,14 @@
 import type { Migration, MigrationProvider } from 'kysely';
 import * as initial from '../../migrations/20261202-0001-initial';
 import * as safeSideInputs from '../../migrations/20261202-0002-safe-side-inputs';
+import * as verdictCurrentRule from '../../migrations/20261202-0004-verdict-current-rule';
 
 // Static imports rather than a folder read at run time: bundlers follow these, so the
 // packaged app carries every migration. Add each new migration here, in name order.
 export const MIGRATIONS: Record<string, Migration> = {
   '20261202-0001-initial': initial,
   '20261202-0002-safe-side-inputs': safeSideInputs,
+  '20261202-0004-verdict-current-rule': verdictCurrentRule,
 };
 
 export const staticMigrationProvider: MigrationProvider = {

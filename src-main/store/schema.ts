@@ -83,6 +83,10 @@ export interface VerdictTable {
   peakCurrentA: number | null;
   /** The tightest current limit the peak current is checked against, for the list. */
   peakCurrentLimitA: number | null;
+  /** The rule whose check gave the list's current and limit (null: no current check had both). */
+  currentRule: string | null;
+  /** Whether that current came from the model or from a measured log. */
+  currentSource: string | null;
   /** `supplyId=status` pairs joined by commas: cheap to compare on a re-check without parsing JSON. */
   supplyStatuses: string;
   evaluatedAt: string;

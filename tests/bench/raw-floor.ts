@@ -51,10 +51,11 @@ const SQL = {
   propellers: 'select * from propellers where id in (select value from json_each(?))',
   classRules: 'select * from classRules where archivedAt is null and className in (select value from json_each(?))',
   stored: 'select v.buildId, v.status, v.supplyStatuses from builds b join verdicts v on v.buildId = b.id where b.motorId = ?',
-  upsertVerdict: `insert into verdicts (buildId, status, supplyVoltageFullV, theoreticalSpeedKmh, peakCurrentA, peakCurrentLimitA, supplyStatuses, evaluatedAt)
-    values (?, ?, ?, ?, ?, ?, ?, ?)
+  upsertVerdict: `insert into verdicts (buildId, status, supplyVoltageFullV, theoreticalSpeedKmh, peakCurrentA, peakCurrentLimitA, currentRule, currentSource, supplyStatuses, evaluatedAt)
+    values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)
     on conflict (buildId) do update set status = excluded.status, supplyVoltageFullV = excluded.supplyVoltageFullV,
       theoreticalSpeedKmh = excluded.theoreticalSpeedKmh, peakCurrentA = excluded.peakCurrentA, peakCurrentLimitA = excluded.peakCurrentLimitA,
+      currentRule = excluded.currentRule, currentSource = excluded.currentSource,
       supplyStatuses = excluded.supplyStatuses, evaluatedAt = excluded.evaluatedAt`,
   history: `insert into history (at, actor, action, entityKind, entityId, summary, reason, before, after, verdictChanges)
     values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
@@ -74,11 +75,13 @@ function byId<T extends { id: string }>(rows: Row[], map: (row: Row) => T = (row
 }
 
 /** The list figures of a verdict row, computed the way the store keeps them (the tightest current check's value and limit). */
-function rowValues(verdict: BuildVerdict): [number | null, number | null, number | null, number | null, string] {
+function rowValues(verdict: BuildVerdict): [number | null, number | null, number | null, number | null, string | null, string | null, string] {
   let fullV: number | null = null;
   let speed: number | null = null;
   let peak: number | null = null;
   let limit: number | null = null;
+  let rule: string | null = null;
+  let source: string | null = null;
   let tightest = Number.POSITIVE_INFINITY;
   const statuses: string[] = [];
   for (const s of verdict.supplies) {
@@ -91,12 +94,17 @@ function rowValues(verdict: BuildVerdict): [number | null, number | null, number
         tightest = finding.margin;
         peak = finding.value;
         limit = finding.limit;
+        rule = finding.rule;
+        source = finding.source ?? f.currentSource;
       }
     }
-    if (peak === null && f.peakCurrentA !== null) peak = f.peakCurrentA;
+    if (peak === null && f.peakCurrentA !== null) {
+      peak = f.peakCurrentA;
+      source = f.currentSource;
+    }
     statuses.push(`${s.supplyId}=${s.status}`);
   }
-  return [fullV, speed, peak, limit, statuses.join(',')];
+  return [fullV, speed, peak, limit, rule, source, statuses.join(',')];
 }
 
 export class RawFloor {
@@ -195,7 +203,7 @@ export class RawFloor {
 
       const changes: { buildId: string; supplyId: string | null; from: Status | null; to: Status }[] = [];
       for (const v of verdicts) {
-        const [fullV, speed, peak, limit, supplyStatuses] = rowValues(v);
+        const [fullV, speed, peak, limit, rule, source, supplyStatuses] = rowValues(v);
         const before = stored.get(v.buildId);
         if (before?.status !== v.status) changes.push({ buildId: v.buildId, supplyId: null, from: (before?.status ?? null) as Status | null, to: v.status });
         if (before?.supplyStatuses !== supplyStatuses) {
@@ -205,7 +213,7 @@ export class RawFloor {
             if (from !== s.status) changes.push({ buildId: v.buildId, supplyId: s.supplyId, from, to: s.status });
           }
         }
-        st.upsertVerdict.run(v.buildId, v.status, fullV, speed, peak, limit, supplyStatuses, at);
+        st.upsertVerdict.run(v.buildId, v.status, fullV, speed, peak, limit, rule, source, supplyStatuses, at);
       }
       const history = st.history.run(
         at, 'bench', 'update', 'motors', motorId, `Changed motor "${String(after.name)}": maxCurrentA ${String(before.maxCurrentA)} → ${maxCurrentA}`, 'benchmark (raw floor)',

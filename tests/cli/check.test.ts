@@ -18,8 +18,9 @@ afterEach(() => temps.splice(0).forEach((t) => t.remove()));
 interface CheckOutput {
   builds: {
     id: string;
+    name: string;
     status: string;
-    supplies: { batteryIds: string[]; status: string; figures: Record<string, number | string | null>; findings: Record<string, unknown>[]; packShares: Record<string, unknown>[]; assumptions: string[] }[];
+    supplies: { id: string; name: string; batteryIds: string[]; status: string; figures: Record<string, number | string | null>; findings: Record<string, unknown>[]; packShares: Record<string, unknown>[]; assumptions: string[] }[];
   }[];
 }
 
@@ -35,44 +36,66 @@ describe('rigbook check', () => {
       ['truck-on-6s', 'over'],
     ]);
     for (const b of out.builds) {
-      expect(Object.keys(b)).toEqual(['id', 'status', 'supplies']);
+      expect(Object.keys(b)).toEqual(['id', 'name', 'status', 'supplies']);
       for (const s of b.supplies) {
-        expect(Object.keys(s)).toEqual(['batteryIds', 'status', 'figures', 'findings', 'packShares', 'assumptions']);
+        expect(Object.keys(s)).toEqual(['id', 'name', 'batteryIds', 'status', 'figures', 'findings', 'packShares', 'assumptions']);
         expect(Object.keys(s.figures)).toEqual(
           expect.arrayContaining(['packVoltageNominalV', 'packVoltageFullV', 'torqueConstantNmPerA', 'noLoadRpm', 'finalDriveRatio', 'theoreticalSpeedKmh', 'peakCurrentA', 'continuousCurrentA']),
         );
         for (const finding of s.findings) expect(Object.keys(finding)).toEqual(['rule', 'status', 'value', 'limit', 'unit', 'margin', 'message']);
       }
     }
+    // Build and supply names and ids, as the file has them (the supply id derived as <build id>.s1).
+    expect(out.builds[1]).toMatchObject({ id: 'truck-on-6s', name: 'Truck on 6S (4S controller)' });
+    expect(out.builds[1]!.supplies[0]).toMatchObject({ id: 'truck-on-6s.s1', name: '6S 5000 basher', batteryIds: ['pack-6s-5000'] });
     // Pure: no store was opened or created.
     expect(existsSync(t.file('never.sqlite'))).toBe(false);
   });
+
+  it('--json rounds figures to 6 significant digits: no float noise', async () => {
+    const out = JSON.parse((await rigbook(['check', EXAMPLE, '--json'])).out) as CheckOutput;
+    const f = out.builds[0]!.supplies[0]!.figures;
+    // 3 × 3.7 in binary floating point is 11.100000000000001; six significant digits give 11.1.
+    expect(3 * 3.7).not.toBe(11.1);
+    expect(f.packVoltageNominalV).toBe(11.1);
+    for (const b of out.builds)
+      for (const s of b.supplies) {
+        for (const value of Object.values(s.figures)) if (typeof value === 'number') expect(value).toBe(Number(value.toPrecision(6)));
+        for (const finding of s.findings) for (const key of ['value', 'limit', 'margin']) {
+          const value = finding[key];
+          if (typeof value === 'number') expect(value).toBe(Number(value.toPrecision(6)));
+        }
+      }
+  });
+
+  /** Equal to six significant digits, the precision `check --json` promises. */
+  const close6 = (actual: unknown, expected: number) => expect(Math.abs((actual as number) - expected)).toBeLessThanOrEqual(Math.abs(expected) * 5e-6);
 
   it('the figures agree with values worked out independently', async () => {
     const run = await rigbook(['check', EXAMPLE, '--json']);
     const out = JSON.parse(run.out) as CheckOutput;
     const f = out.builds[0]!.supplies[0]!.figures;
     // 3 cells × 3.7 V nominal, × 4.20 V full (LiPo, cell makers' specification sheets).
-    expect(f.packVoltageNominalV).toBeCloseTo(11.1, 9);
-    expect(f.packVoltageFullV).toBeCloseTo(12.6, 9);
+    close6(f.packVoltageNominalV, 11.1);
+    close6(f.packVoltageFullV, 12.6);
     // Kt = 1 / Kv in SI units (N·m/A = V·s/rad); Kv converted with mathjs: 3200 rev/min per volt.
     const kvRad = unit(3200, 'cycle/minute').toNumber('rad/s');
-    expect(f.torqueConstantNmPerA).toBeCloseTo(1 / kvRad, 12);
+    close6(f.torqueConstantNmPerA, 1 / kvRad);
     // The trade's no-load figure: Kv × nominal voltage.
-    expect(f.noLoadRpm).toBeCloseTo(3200 * 11.1, 6);
+    close6(f.noLoadRpm, 3200 * 11.1);
     // Final drive = spur / pinion × internal ratio: 46 / 14 × 2.85.
-    expect(f.finalDriveRatio).toBeCloseTo((46 / 14) * 2.85, 12);
+    close6(f.finalDriveRatio, (46 / 14) * 2.85);
     // Wheel rpm × circumference (110 mm tyre), converted to km/h with mathjs.
     const wheelRevPerMin = (3200 * 11.1) / ((46 / 14) * 2.85);
     const expectedKmh = unit(wheelRevPerMin * Math.PI * unit(110, 'mm').toNumber('m'), 'm/minute').toNumber('km/h');
-    expect(f.theoreticalSpeedKmh).toBeCloseTo(expectedKmh, 9);
+    close6(f.theoreticalSpeedKmh, expectedKmh);
 
     const over = out.builds[1]!.supplies[0]!.findings.find((x) => x.rule === 'controller-voltage')!;
     // 6 × 4.20 V against a controller rated for 4 cells (4 × 4.2 V).
     expect(over).toMatchObject({ status: 'over', unit: 'V' });
-    expect(over.value as number).toBeCloseTo(25.2, 9);
-    expect(over.limit as number).toBeCloseTo(16.8, 9);
-    expect(over.margin as number).toBeCloseTo((16.8 - 25.2) / 16.8, 9);
+    close6(over.value, 25.2);
+    close6(over.limit, 16.8);
+    close6(over.margin, (16.8 - 25.2) / 16.8);
   });
 
   it('prints a readable table per build and supply', async () => {

@@ -24,7 +24,7 @@ const PACKS = {
 } as const;
 
 const MOTORS = {
-  tork: { name: 'Tork 2050 4-pole 2200Kv', kv: 2200, resistanceOhm: 0.008, noLoadCurrentA: 2.4, maxCurrentA: 140, maxPowerW: 2600, maxVoltageV: 26, maxRpm: 60000, poles: 4, massKg: 0.36 },
+  shop2050: { name: 'Shop 2050 4-pole 2200Kv', kv: 2200, resistanceOhm: 0.008, noLoadCurrentA: 2.4, maxCurrentA: 140, maxPowerW: 2600, maxVoltageV: 26, maxRpm: 60000, poles: 4, massKg: 0.36 },
   stadium: { name: 'Stadium 3660 3300Kv', kv: 3300, resistanceOhm: 0.012, noLoadCurrentA: 3.5, maxCurrentA: 100, maxPowerW: 1500, maxVoltageV: 17, maxRpm: 55000, poles: 4, massKg: 0.25 },
   crawler: { name: 'Crawler 540 21T', kv: 2000, resistanceOhm: 0.04, noLoadCurrentA: 1.5, maxCurrentA: 40, maxPowerW: 300, maxVoltageV: 12, maxRpm: 30000, poles: 2, massKg: 0.17 },
   marine: { name: 'Marine 4074 2000Kv', kv: 2000, resistanceOhm: 0.007, noLoadCurrentA: 3, maxCurrentA: 150, maxPowerW: 3000, maxVoltageV: 26, maxRpm: 55000, poles: 4, massKg: 0.45 },
@@ -82,11 +82,11 @@ export async function seedFleet(api: Api): Promise<SeededFleet> {
   const one = (id: string) => [{ arrangement: 'series', batteryIds: [id] }];
   const builds: Record<string, object> = {
     buggyRace: { name: 'Buggy club race', vehicleId: vehicles.buggy, motorId: motors.stadium, controllerId: controllers.stadium80, supplies: one(packs.club2s), gearing: { pinionTeeth: 19, spurTeeth: 87, internalRatio: 2.6, tireDiameterMm: 83, drivetrainEfficiency: 0.9 } },
-    buggyBash: { name: 'Buggy 4S bash', vehicleId: vehicles.buggy, motorId: motors.tork, controllerId: controllers.shop150, supplies: one(packs.shop4s1), gearing: { pinionTeeth: 13, spurTeeth: 54, internalRatio: 2.6, tireDiameterMm: 83, drivetrainEfficiency: 0.9 } },
-    sct: { name: 'SC truck 4S', vehicleId: vehicles.sct, motorId: motors.tork, controllerId: controllers.shop150, supplies: one(packs.shop4s1), gearing: { pinionTeeth: 14, spurTeeth: 50, internalRatio: 2.85, tireDiameterMm: 110, drivetrainEfficiency: 0.88 } },
-    sctAlt: { name: 'SC truck spare pack', vehicleId: vehicles.sct, motorId: motors.tork, controllerId: controllers.shop150, supplies: one(packs.shop4s2), gearing: { pinionTeeth: 14, spurTeeth: 50, internalRatio: 2.85, tireDiameterMm: 110, drivetrainEfficiency: 0.88 } },
-    monster6s: { name: 'Monster 6S', vehicleId: vehicles.monster, motorId: motors.tork, controllerId: controllers.shop150, supplies: one(packs.basher6s), gearing: { pinionTeeth: 15, spurTeeth: 46, internalRatio: 3.6, tireDiameterMm: 170, drivetrainEfficiency: 0.85 } },
-    monster8s: { name: 'Monster 2 × 4S in series', vehicleId: vehicles.monster, motorId: motors.tork, controllerId: controllers.shop150, supplies: [{ arrangement: 'series', batteryIds: [packs.shop4s1, packs.shop4s2] }], gearing: { pinionTeeth: 13, spurTeeth: 46, internalRatio: 3.6, tireDiameterMm: 170, drivetrainEfficiency: 0.85 } },
+    buggyBash: { name: 'Buggy 4S bash', vehicleId: vehicles.buggy, motorId: motors.shop2050, controllerId: controllers.shop150, supplies: one(packs.shop4s1), gearing: { pinionTeeth: 13, spurTeeth: 54, internalRatio: 2.6, tireDiameterMm: 83, drivetrainEfficiency: 0.9 } },
+    sct: { name: 'SC truck 4S', vehicleId: vehicles.sct, motorId: motors.shop2050, controllerId: controllers.shop150, supplies: one(packs.shop4s1), gearing: { pinionTeeth: 14, spurTeeth: 50, internalRatio: 2.85, tireDiameterMm: 110, drivetrainEfficiency: 0.88 } },
+    sctAlt: { name: 'SC truck spare pack', vehicleId: vehicles.sct, motorId: motors.shop2050, controllerId: controllers.shop150, supplies: one(packs.shop4s2), gearing: { pinionTeeth: 14, spurTeeth: 50, internalRatio: 2.85, tireDiameterMm: 110, drivetrainEfficiency: 0.88 } },
+    monster6s: { name: 'Monster 6S', vehicleId: vehicles.monster, motorId: motors.shop2050, controllerId: controllers.shop150, supplies: one(packs.basher6s), gearing: { pinionTeeth: 15, spurTeeth: 46, internalRatio: 3.6, tireDiameterMm: 170, drivetrainEfficiency: 0.85 } },
+    monster8s: { name: 'Monster 2 × 4S in series', vehicleId: vehicles.monster, motorId: motors.shop2050, controllerId: controllers.shop150, supplies: [{ arrangement: 'series', batteryIds: [packs.shop4s1, packs.shop4s2] }], gearing: { pinionTeeth: 13, spurTeeth: 46, internalRatio: 3.6, tireDiameterMm: 170, drivetrainEfficiency: 0.85 } },
     crawler: { name: 'Crawler trail', vehicleId: vehicles.crawler, motorId: motors.crawler, controllerId: controllers.crawler40, supplies: one(packs.nimh), gearing: { pinionTeeth: 11, spurTeeth: 87, internalRatio: 3.0, tireDiameterMm: 108, drivetrainEfficiency: 0.8 } },
     crawlerNoEsc: { name: 'Crawler rebuild', vehicleId: vehicles.crawler, motorId: motors.crawler, controllerId: null, supplies: one(packs.nimh), gearing: { pinionTeeth: 11, spurTeeth: 87, internalRatio: 3.0, tireDiameterMm: 108, drivetrainEfficiency: 0.8 } },
     boat: { name: 'Deep-V 6S', vehicleId: vehicles.boat, motorId: motors.marine, controllerId: controllers.marine180, propellerId: propellers.boat, supplies: [{ arrangement: 'series', batteryIds: [packs.boatA, packs.boatB] }] },

@@ -3,6 +3,8 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { test as base, expect } from '@playwright/test';
+import { isLoopbackAddress } from '../helpers/loopback-only';
+import { expectNoAxeViolations } from './axe-check';
 
 /** A real loopback shell on its own store, started from the built bundle as a user would. */
 export interface Shell {
@@ -56,7 +58,7 @@ export async function startShell(extraArgs: string[] = []): Promise<{ shell: She
   return { shell, stop };
 }
 
-export const test = base.extend<{ shell: Shell; consoleErrors: string[] }>({
+export const test = base.extend<{ shell: Shell; consoleErrors: string[]; outsideRequests: string[]; axeFinalState: void }>({
   shell: async ({}, use) => {
     const { shell, stop } = await startShell();
     await use(shell);
@@ -77,6 +79,32 @@ export const test = base.extend<{ shell: Shell; consoleErrors: string[] }>({
       });
       await use(errors);
       expect(errors, 'errors in the page console').toEqual([]);
+    },
+    { auto: true },
+  ],
+  // Tests send traffic to the loopback range only: any request the page makes elsewhere fails the test.
+  outsideRequests: [
+    async ({ context }, use) => {
+      const outside: string[] = [];
+      context.on('request', (request) => {
+        const url = new URL(request.url());
+        if (!/^(https?|wss?):$/.test(url.protocol)) return;
+        if (!isLoopbackAddress(url.hostname.replace(/^\[|\]$/g, ''))) outside.push(request.url());
+      });
+      await use(outside);
+      expect(outside, 'requests outside 127.0.0.0/8 and ::1').toEqual([]);
+    },
+    { auto: true },
+  ],
+  // Every test that passes also has the screen it ended on checked against the accessibility
+  // rule set, so a screen added later is covered by the first test that reaches it. Pages that
+  // never opened the app (about:blank) are not ours to judge.
+  axeFinalState: [
+    async ({ page, shell }, use, testInfo) => {
+      await use();
+      if (testInfo.status !== testInfo.expectedStatus || page.isClosed() || !page.url().startsWith(shell.url)) return;
+      const hash = new URL(page.url()).hash.replace(/#token=.*/, '') || '#/';
+      await expectNoAxeViolations(page, `end of "${testInfo.title}" (${hash})`);
     },
     { auto: true },
   ],

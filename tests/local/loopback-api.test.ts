@@ -1,9 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { connect } from 'node:net';
-import { networkInterfaces } from 'node:os';
 import { request } from 'node:http';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { MAX_BODY_BYTES } from '../../src-main/local/local-server';
+import { MAX_BODY_BYTES, startLocalServer } from '../../src-main/local/local-server';
+import { assertLoopbackTarget, isLoopbackAddress } from '../helpers/loopback-only';
 import { apiCall, corsHeaders, rawRequest, startShell, type RawResponse } from './support/local-shell';
 
 // The loopback shell is a door into the machine that any web page the user visits can knock
@@ -68,12 +68,30 @@ describe('the loopback shell listens on 127.0.0.1 only', () => {
     expect(v6).toEqual([]);
   });
 
-  it('refuses connections on every other address of this machine', async () => {
-    const others = ['127.0.0.2', '::1', ...Object.values(networkInterfaces()).flatMap((list) => (list ?? []).filter((i) => !i.internal).map((i) => (i.family === 'IPv6' && i.scopeid ? `${i.address}%${i.scopeid}` : i.address)))];
+  it('the listening socket itself reports 127.0.0.1 (server.address())', () => {
+    expect(shell.server.listening).toEqual({ address: '127.0.0.1', family: 'IPv4', port: shell.port });
+  });
+
+  it.each(['0.0.0.0', '::', '::1', '127.0.0.2', 'localhost', '192.0.2.10'])('refuses to start when asked to listen on %s, before opening any socket', async (address) => {
+    // 192.0.2.10 is in TEST-NET-1 (RFC 5737): documentation only, never routed; nothing connects to it here.
+    await expect(startLocalServer({ host: shell.host, rendererDir: shell.temp.dir, bindAddress: address })).rejects.toThrow(`listens on 127.0.0.1 only (this computer); it will not listen on "${address}"`);
+  });
+
+  it('starts when asked for 127.0.0.1 explicitly', async () => {
+    const server = await startLocalServer({ host: shell.host, rendererDir: shell.temp.dir, bindAddress: '127.0.0.1' });
+    try {
+      expect(server.listening.address).toBe('127.0.0.1');
+    } finally {
+      await server.close();
+    }
+  });
+
+  it('refuses connections on the other loopback addresses (127.0.0.2, ::1), and tries nothing outside the loopback range', async () => {
+    const others = ['127.0.0.2', '::1'];
     const outcomes: Record<string, string> = {};
     for (const address of others) {
       outcomes[address] = await new Promise<string>((resolve) => {
-        const socket = connect({ host: address, port: shell.port });
+        const socket = connect({ host: assertLoopbackTarget(address), port: shell.port });
         socket.setTimeout(3000, () => {
           socket.destroy();
           resolve('timeout');
@@ -86,7 +104,23 @@ describe('the loopback shell listens on 127.0.0.1 only', () => {
       });
     }
     for (const [address, outcome] of Object.entries(outcomes)) expect(outcome, `${address} (all: ${JSON.stringify(outcomes)})`).not.toBe('connected');
-    console.log(`loopback binding: other local addresses tried: ${JSON.stringify(outcomes)}`);
+    // The control: the same connection code does reach the shell on its own address.
+    const own = await new Promise<string>((resolve) => {
+      const socket = connect({ host: '127.0.0.1', port: shell.port });
+      socket.once('connect', () => {
+        socket.destroy();
+        resolve('connected');
+      });
+      socket.once('error', (e: NodeJS.ErrnoException) => resolve(e.code ?? 'error'));
+    });
+    expect(own).toBe('connected');
+  });
+
+  it('the test helpers refuse any target outside 127.0.0.0/8 and ::1 before connecting', async () => {
+    for (const address of ['127.0.0.1', '127.255.255.254', '::1', '::ffff:127.0.0.1']) expect(isLoopbackAddress(address), address).toBe(true);
+    // Documentation ranges (RFC 5737, RFC 3849), a private range, the unspecified addresses, a name.
+    for (const address of ['192.0.2.1', '2001:db8::1', '10.0.0.1', '0.0.0.0', '::', 'localhost', '128.0.0.1', '::ffff:192.0.2.1']) expect(isLoopbackAddress(address), address).toBe(false);
+    await expect(rawRequest({ port: shell.port, path: '/', address: '192.0.2.1' })).rejects.toThrow('outside that range');
   });
 });
 

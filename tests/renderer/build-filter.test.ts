@@ -23,16 +23,18 @@ function summary(over: Partial<BuildSummary> & { id: string; name: string }): Bu
     theoreticalSpeedKmh: null,
     peakCurrentA: null,
     peakCurrentLimitA: null,
+    currentRule: null,
+    currentSource: null,
     updatedAt: '2026-01-01T00:00:00Z',
     ...over,
   };
 }
 
 const rows = [
-  summary({ id: 'a', name: 'Alpha 4S', owner: 'Dana', status: 'over', batteryIds: ['pack-1'], supplyLabels: ['Shop 4S #1'], supplyVoltageFullV: 16.8, peakCurrentA: 96, peakCurrentLimitA: 120 }),
-  summary({ id: 'b', name: 'bravo 2S', owner: 'Ravi', status: 'clear', kind: 'truck', motorId: 'mot-1', motorName: 'Tork 2200', supplyVoltageFullV: 8.4, peakCurrentA: 30, peakCurrentLimitA: 120 }),
-  summary({ id: 'c', name: 'Charlie', owner: 'Dana', status: 'tight', kind: 'boat', propellerId: 'prop-1' }),
-  summary({ id: 'd', name: 'Delta', owner: '', status: null }),
+  summary({ id: 'a', name: 'Amber 4S', owner: 'Dana', status: 'over', batteryIds: ['pack-1'], supplyLabels: ['Shop 4S #1'], supplyVoltageFullV: 16.8, peakCurrentA: 96, peakCurrentLimitA: 120 }),
+  summary({ id: 'b', name: 'blue 2S', owner: 'Ravi', status: 'clear', kind: 'truck', motorId: 'mot-1', motorName: 'Wendleby 2200', supplyVoltageFullV: 8.4, peakCurrentA: 30, peakCurrentLimitA: 120 }),
+  summary({ id: 'c', name: 'Coral boat', owner: 'Dana', status: 'tight', kind: 'boat', propellerId: 'prop-1' }),
+  summary({ id: 'd', name: 'Dove-grey buggy', owner: '', status: null }),
 ];
 const hay = new Map(rows.map((r) => [r.id, haystackOf(r)]));
 const ids = (list: BuildSummary[]) => list.map((r) => r.id);
@@ -44,7 +46,7 @@ describe('builds list filter', () => {
 
   it('needs every typed word to match somewhere, case-insensitive', () => {
     expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, text: 'dana 4s' }, hay))).toEqual(['a']);
-    expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, text: 'TORK' }, hay))).toEqual(['b']);
+    expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, text: 'WENDLEBY' }, hay))).toEqual(['b']);
     expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, text: 'shop #1' }, hay))).toEqual(['a']);
     expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, text: 'nothing-like-this' }, hay))).toEqual([]);
   });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { changedFieldsOf } from '../../src-renderer/lib/history/history-diff';
 import { historyFieldName } from '../../src-renderer/lib/history/field-names';
+import { localDateTime } from '../../src-renderer/lib/format/date';
 
 describe('history before → after', () => {
   it('lists the changed fields only, skipping version and timestamps', () => {
@@ -44,5 +45,14 @@ describe('history before → after', () => {
     expect(historyFieldName('batteries', 'cellResistanceOhm')).toBe('Cell resistance, measured (Ω)');
     expect(historyFieldName('builds', 'gearing.tireDiameterMm')).toBe('Tyre diameter (mm)');
     expect(historyFieldName('vehicles', 'massKg')).toBe('Mass (kg)');
+  });
+});
+
+describe('moments in a change', () => {
+  it('shows an archive time in local time and its absence as not archived', () => {
+    const at = '2026-12-02T11:34:08.886Z';
+    // The outside reference is Intl.DateTimeFormat itself (ECMA-402), through localDateTime.
+    expect(changedFieldsOf({ archivedAt: null }, { archivedAt: at })).toEqual([{ field: 'archivedAt', before: 'not archived', after: localDateTime(at) }]);
+    expect(localDateTime(at)).not.toContain('T11:34');
   });
 });

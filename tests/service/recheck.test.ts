@@ -78,7 +78,7 @@ describe('re-check on every change', () => {
 
   it('refuses a build that names a missing pack, naming the supply field', async () => {
     const seed = await seedTwoBuggies(f);
-    const error = await f.refuse('builds.create', { name: 'Ghost', vehicleId: seed.vehicle.id, supplies: [{ batteryIds: [seed.pack2s.id, 'pack-missing'] }] });
+    const error = await f.refuse('builds.create', { name: 'Build with a missing pack', vehicleId: seed.vehicle.id, supplies: [{ batteryIds: [seed.pack2s.id, 'pack-missing'] }] });
     expect(error).toMatchObject({ kind: 'invalid', field: 'supplies.0.batteryIds.1' });
     expect(await f.call('builds.list', {})).toHaveLength(2);
   });

@@ -16,7 +16,7 @@ import { loadBuildContexts } from '../recheck';
 import { runWrite, type WriteOutcome } from '../run-write';
 import { buildCreateSchema, buildPatchSchema } from '../schemas/build-schemas';
 import { partSchemasByTable } from '../schemas/part-schemas-by-table';
-import { flag, id, oneOf, record, text } from '../schemas/field-builders';
+import { flag, id, MAX_NAME, name, oneOf, record, text } from '../schemas/field-builders';
 import { STATUSES, VEHICLE_KINDS } from '../../core/domain';
 import { conflict, reasonField, updateInput, writePartPatch } from './part-handlers';
 import type { ServiceContext } from '../service-context';
@@ -106,11 +106,14 @@ export const getBuildSheet = defineHandler(record({ id: id() }), async (ctx, inp
   };
 });
 
-export const createBuild = defineHandler(buildCreateSchema, async (ctx, input) => {
+type BuildCreateInput = v.InferOutput<typeof buildCreateSchema>;
+
+/** Adds a build (or, with `preview`, does so and rolls it back). */
+async function writeNewBuild(ctx: ServiceContext, input: BuildCreateInput, options: { preview?: boolean } = {}): Promise<WriteOutcome<Build>> {
   const { id: given, supplies, ...rest } = input;
   const buildId = given ?? ctx.newId('build');
   const fields: BuildFields = { ...rest, supplies: withSupplyIds(ctx, supplies) };
-  const outcome = await runWrite(ctx, async (trx, at) => {
+  return runWrite(ctx, async (trx, at) => {
     if (await getBuild(trx, buildId)) throw new ServiceError('conflict', `id: a build with id "${buildId}" already exists`, 'id');
     await checkReferences(trx, buildId, fields);
     await insertBuild(trx, buildId, fields, at);
@@ -121,7 +124,58 @@ export const createBuild = defineHandler(buildCreateSchema, async (ctx, input) =
       recheck: [buildId],
       changed: { kind: 'builds', ids: [buildId] },
     };
-  }, { messages: true });
+  }, { ...options, messages: true });
+}
+
+export const createBuild = defineHandler(buildCreateSchema, async (ctx, input) => {
+  const outcome = await writeNewBuild(ctx, input);
+  return { record: outcome.result, verdict: outcome.verdicts[0] ?? null };
+});
+
+/** "Name (copy)", cut to the longest name a record may have. */
+function copyName(original: string): string {
+  const suffix = ' (copy)';
+  return original.length + suffix.length <= MAX_NAME ? original + suffix : original.slice(0, MAX_NAME - suffix.length) + suffix;
+}
+
+/**
+ * A new build with every setting of another: same vehicle, parts, gearing, supplies (under new
+ * supply ids), measured currents, threshold and notes. The copy is active even when the
+ * original is archived, and its history entry names the original.
+ */
+export const duplicateBuild = defineHandler(record({ id: id(), newId: v.optional(id()), name: v.optional(name()) }), async (ctx, input) => {
+  const newId = input.newId ?? ctx.newId('build');
+  const outcome = await runWrite(
+    ctx,
+    async (trx, at) => {
+      const source = await requireBuild(trx, input.id);
+      if (await getBuild(trx, newId)) throw new ServiceError('conflict', `newId: a build with id "${newId}" already exists`, 'newId');
+      const { id: _id, version: _version, archivedAt: _archived, supplies, ...rest } = source;
+      const fields: BuildFields = {
+        ...rest,
+        name: input.name ?? copyName(source.name),
+        supplies: withSupplyIds(ctx, supplies.map((s) => ({ arrangement: s.arrangement, batteryIds: s.batteryIds }))),
+      };
+      await checkReferences(trx, newId, fields);
+      await insertBuild(trx, newId, fields, at);
+      const stored = await requireBuild(trx, newId);
+      return {
+        result: stored,
+        history: {
+          action: 'create',
+          entityKind: 'builds',
+          entityId: newId,
+          summary: `Added build "${stored.name}" as a copy of "${source.name}"`,
+          reason: '',
+          before: null,
+          after: stored,
+        },
+        recheck: [newId],
+        changed: { kind: 'builds', ids: [newId] },
+      };
+    },
+    { messages: true },
+  );
   return { record: outcome.result, verdict: outcome.verdicts[0] ?? null };
 });
 
@@ -182,6 +236,7 @@ const PART_TABLES = ['batteries', 'motors', 'controllers', 'propellers', 'vehicl
 const previewInput = v.union(
   [
     record({ build: updateInput(buildPatchSchema) }),
+    record({ create: buildCreateSchema }),
     record({
       part: record({ kind: oneOf(PART_TABLES), id: id(), expectedVersion: v.pipe(v.number('must be a number'), v.integer('must be a whole number')), changes: v.record(v.string(), v.unknown()), reason: reasonField() }),
     }),
@@ -197,6 +252,8 @@ export const previewChange = defineHandler(previewInput, async (ctx, input) => {
   let outcome: WriteOutcome<unknown>;
   if ('build' in input) {
     outcome = await writeBuildPatch(ctx, input.build, 'update', { preview: true });
+  } else if ('create' in input) {
+    outcome = await writeNewBuild(ctx, input.create, { preview: true });
   } else {
     const { kind, changes } = input.part;
     // The record shape depends on `kind`, so the changes are parsed here, with the same rules as an update.

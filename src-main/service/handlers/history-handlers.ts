@@ -1,5 +1,5 @@
 import * as v from 'valibot';
-import { listHistory } from '../../store/repositories/history';
+import { buildNamesFor, listHistory, NAMED_BUILDS_PER_ENTRY } from '../../store/repositories/history';
 import { defineHandler } from '../define-handler';
 import { count, id, oneOf, record } from '../schemas/field-builders';
 
@@ -16,5 +16,19 @@ export const listHistoryEntries = defineHandler(
     }),
     { limit: 200 },
   ),
-  async (ctx, input) => listHistory(ctx.db, input),
+  async (ctx, input) => {
+    const entries = await listHistory(ctx.db, input);
+    const names = await buildNamesFor(ctx.db, entries);
+    // Each entry carries the names of the builds it speaks of, archived ones too.
+    return entries.map((e) => {
+      const buildNames: Record<string, string> = {};
+      const add = (id: string) => {
+        const n = names.get(id);
+        if (n !== undefined) buildNames[id] = n;
+      };
+      if (e.entityKind === 'builds') add(e.entityId);
+      for (const c of e.verdictChanges.slice(0, NAMED_BUILDS_PER_ENTRY * 2)) add(c.buildId);
+      return { ...e, buildNames };
+    });
+  },
 );

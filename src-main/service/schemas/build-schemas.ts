@@ -1,6 +1,6 @@
 import * as v from 'valibot';
 import { ARRANGEMENTS } from '../../core/domain';
-import { count, id, name, notes, nullable, number, oneOf, plausible, positive, record } from './field-builders';
+import { count, id, name, newId, notes, nullable, number, oneOf, plausible, positive, record } from './field-builders';
 
 export const gearingSchema = record({
   pinionTeeth: v.optional(nullable(count(5, 200)), null),
@@ -36,7 +36,7 @@ const buildEntries = {
 };
 
 export const buildCreateSchema = record({
-  id: v.optional(id()),
+  id: v.optional(newId()),
   name: buildEntries.name,
   vehicleId: buildEntries.vehicleId,
   motorId: v.optional(buildEntries.motorId, null),

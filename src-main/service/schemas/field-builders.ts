@@ -1,5 +1,5 @@
 import * as v from 'valibot';
-import { isPlausible, plausibleMessage, type PlausibleField } from '../../core/plausibility';
+import { PLAUSIBLE, plausibleMessage, type PlausibleField, type PlausibleRange } from '../../core/plausibility';
 
 // Small builders so that every field's message reads the same way. The field's name is
 // added in front of the message where the issue is turned into an ApiError.
@@ -21,6 +21,22 @@ export const id = () =>
     v.minLength(1, 'is required'),
     v.maxLength(64, 'must be at most 64 characters'),
     v.regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'may hold only letters, digits, dot, dash and underscore'),
+  );
+
+/**
+ * The id of a record being created (by a form or an import). It starts with a letter:
+ * spreadsheets rewrite anything that looks like a number (001 → 1, 1.50 → 1.5,
+ * 1e5 → 1.00E+05), and a rewritten id would silently become another record. References to
+ * records already stored still take any `id()`.
+ */
+export const newId = () =>
+  v.pipe(
+    id(),
+    v.regex(
+      /^[A-Za-z]/,
+      (issue) =>
+        `must start with a letter (${JSON.stringify(issue.input)} does not): spreadsheets rewrite ids that look like numbers (001 becomes 1, 1e5 becomes 1.00E+05), so Rigbook's ids start with a letter`,
+    ),
   );
 
 export const name = () =>
@@ -60,8 +76,12 @@ export function nullable<S extends v.GenericSchema>(schema: S) {
  */
 export function plausible(field: PlausibleField) {
   const message = plausibleMessage(field);
-  return v.pipe(
-    v.number('must be a number'),
-    v.check((x: number) => isPlausible(field, x), message),
-  );
+  const r: PlausibleRange = PLAUSIBLE[field];
+  // Bounds as value actions (not a free-form check), so the published JSON Schema carries them too;
+  // they are exactly the core's isPlausible (finite, above, min, max).
+  const checks: v.PipeItem<number, number, v.BaseIssue<unknown>>[] = [v.finite(message)];
+  if (r.above !== undefined) checks.push(v.gtValue(r.above, message));
+  if (r.min !== undefined) checks.push(v.minValue(r.min, message));
+  checks.push(v.maxValue(r.max, message));
+  return v.pipe(v.number('must be a number'), ...checks);
 }

@@ -1,6 +1,6 @@
 import * as v from 'valibot';
 import { CHEMISTRIES, DRIVE_LAYOUTS, VEHICLE_KINDS, WATER_TYPES } from '../../core/domain';
-import { count, flag, id, name, notes, nullable, number, oneOf, plausible, positive, record, text } from './field-builders';
+import { count, flag, id, name, newId, notes, nullable, number, oneOf, plausible, positive, record, text } from './field-builders';
 
 // Each part kind lists its fields once; the create schema fills defaults and the patch
 // schema makes every field optional. Limits are generous bounds against typing slips, not
@@ -10,7 +10,7 @@ function schemasFor<const E extends v.ObjectEntries, const D extends { [K in key
   const createEntries = Object.fromEntries(
     Object.entries(entries).map(([key, schema]) => [key, key in defaults ? v.optional(schema, defaults[key as keyof D] as never) : schema]),
   ) as { [K in keyof E]: K extends keyof D ? v.OptionalSchema<E[K], never> : E[K] };
-  const create = record({ id: v.optional(id()), ...createEntries });
+  const create = record({ id: v.optional(newId()), ...createEntries });
   const patch = v.partial(record(entries));
   return { create, patch };
 }

@@ -26,6 +26,9 @@ export interface BuildSummary {
   theoreticalSpeedKmh: number | null;
   peakCurrentA: number | null;
   peakCurrentLimitA: number | null;
+  /** Rule id of the check the current and limit come from; null when no current check was made. */
+  currentRule: string | null;
+  currentSource: 'model' | 'measured' | null;
   updatedAt: string;
 }
 
@@ -67,6 +70,8 @@ export async function listBuildSummaries(db: DbHandle, filter: BuildListFilter =
       'verdicts.theoreticalSpeedKmh',
       'verdicts.peakCurrentA',
       'verdicts.peakCurrentLimitA',
+      'verdicts.currentRule',
+      'verdicts.currentSource',
       'builds.updatedAt',
     ])
     .orderBy('builds.name')
@@ -113,6 +118,7 @@ export async function listBuildSummaries(db: DbHandle, filter: BuildListFilter =
     ...r,
     kind: r.kind as VehicleKind,
     status: r.status as Status | null,
+    currentSource: r.currentSource === 'model' || r.currentSource === 'measured' ? r.currentSource : null,
     supplyLabels: labels.get(r.id)?.labels ?? [],
     batteryIds: labels.get(r.id)?.batteryIds ?? [],
   }));

@@ -1,5 +1,5 @@
 import type { Status } from '../../core/domain';
-import type { DbHandle } from '../db-handle';
+import { chunks, type DbHandle } from '../db-handle';
 import { selectedBuildIds, selectsNothing, type BuildSelector } from '../build-selector';
 
 export interface VerdictChange {
@@ -96,4 +96,31 @@ export async function listHistory(db: DbHandle, q: HistoryQuery): Promise<Histor
     after: r.after === null ? null : (JSON.parse(r.after) as unknown),
     verdictChanges: JSON.parse(r.verdictChanges) as VerdictChange[],
   }));
+}
+
+/** How many of an entry's re-checked builds are named: as many as a timeline shows. */
+export const NAMED_BUILDS_PER_ENTRY = 200;
+
+/**
+ * The names of the builds an entry speaks of (its own build, and the builds whose verdicts it
+ * changed, up to NAMED_BUILDS_PER_ENTRY), archived builds included, so a timeline never shows
+ * a bare id for a build that still exists.
+ */
+export async function buildNamesFor(db: DbHandle, entries: readonly HistoryEntry[]): Promise<Map<string, string>> {
+  const ids = new Set<string>();
+  for (const e of entries) {
+    if (e.entityKind === 'builds') ids.add(e.entityId);
+    let named = 0;
+    for (const c of e.verdictChanges) {
+      if (named >= NAMED_BUILDS_PER_ENTRY) break;
+      if (!ids.has(c.buildId)) named += 1;
+      ids.add(c.buildId);
+    }
+  }
+  const out = new Map<string, string>();
+  for (const part of chunks([...ids], 500)) {
+    const rows = await db.selectFrom('builds').select(['id', 'name']).where('id', 'in', part).execute();
+    for (const r of rows) out.set(r.id, r.name);
+  }
+  return out;
 }

@@ -40,6 +40,8 @@ export function verdictToRow(verdict: BuildVerdict, evaluatedAt: string): NewVer
   let theoreticalSpeedKmh: number | null = null;
   let peakCurrentA: number | null = null;
   let peakCurrentLimitA: number | null = null;
+  let currentRule: string | null = null;
+  let currentSource: string | null = null;
   let tightest = Number.POSITIVE_INFINITY;
   for (const s of verdict.supplies) {
     const f = s.figures;
@@ -51,9 +53,15 @@ export function verdictToRow(verdict: BuildVerdict, evaluatedAt: string): NewVer
         tightest = finding.margin;
         peakCurrentA = finding.value;
         peakCurrentLimitA = finding.limit;
+        currentRule = finding.rule;
+        currentSource = finding.source ?? f.currentSource;
       }
     }
-    if (peakCurrentA === null && f.peakCurrentA !== null) peakCurrentA = f.peakCurrentA;
+    if (peakCurrentA === null && f.peakCurrentA !== null) {
+      // No current check could be made: the supply's peak, with no limit and no rule.
+      peakCurrentA = f.peakCurrentA;
+      currentSource = f.currentSource;
+    }
   }
   return {
     buildId: verdict.buildId,
@@ -62,12 +70,14 @@ export function verdictToRow(verdict: BuildVerdict, evaluatedAt: string): NewVer
     theoreticalSpeedKmh,
     peakCurrentA,
     peakCurrentLimitA,
+    currentRule,
+    currentSource,
     supplyStatuses: encodeSupplyStatuses(verdict.supplies),
     evaluatedAt,
   };
 }
 
-// 9 columns a row: 3 000 rows stay under SQLite's 32 766 bound parameters.
+// 10 columns a row: 3 000 rows stay under SQLite's 32 766 bound parameters.
 const ROWS_PER_INSERT = 3000;
 
 /** Upserts verdict rows in large batches: a few statements for a 10 000-build re-check. */
@@ -83,6 +93,8 @@ export async function writeVerdicts(db: DbHandle, rows: readonly NewVerdictRow[]
           theoreticalSpeedKmh: eb.ref('excluded.theoreticalSpeedKmh'),
           peakCurrentA: eb.ref('excluded.peakCurrentA'),
           peakCurrentLimitA: eb.ref('excluded.peakCurrentLimitA'),
+          currentRule: eb.ref('excluded.currentRule'),
+          currentSource: eb.ref('excluded.currentSource'),
           supplyStatuses: eb.ref('excluded.supplyStatuses'),
           evaluatedAt: eb.ref('excluded.evaluatedAt'),
         })),

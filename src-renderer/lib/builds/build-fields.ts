@@ -15,7 +15,7 @@ export const BUILD_FIELDS = {
   spurTeeth: { key: 'gearing.spurTeeth', label: 'Spur', unit: 'teeth', type: 'integer', nullable: true },
   internalRatio: { key: 'gearing.internalRatio', label: 'Internal ratio', unit: ':1', type: 'number', hint: 'gearbox or transmission after the spur; 1 where there is none' },
   tireDiameterMm: { key: 'gearing.tireDiameterMm', label: 'Tyre diameter', quantity: 'lengthMm', type: 'number', nullable: true },
-  drivetrainEfficiency: { key: 'gearing.drivetrainEfficiency', label: 'Drivetrain efficiency', unit: '%', scale: 100, type: 'number' },
+  drivetrainEfficiency: { key: 'gearing.drivetrainEfficiency', label: 'Drivetrain efficiency', unit: '%', scale: 100, percent: true, type: 'number', hint: 'in percent: 90 for 90 %; spur and gearbox together, typically 85–95 % (common practice)' },
   measuredPeakCurrentA: { key: 'measuredPeakCurrentA', label: 'Measured peak current', unit: 'A', type: 'number', nullable: true, hint: 'whole supply; replaces the model on the supply it was logged on' },
   measuredAverageCurrentA: { key: 'measuredAverageCurrentA', label: 'Measured average current', unit: 'A', type: 'number', nullable: true, hint: 'whole supply; replaces the model on the supply it was logged on' },
   measuredSupplyId: {
@@ -34,7 +34,7 @@ export const BUILD_FIELDS = {
     emptyText: 'default 4 s',
     hint: 'full throttle from standstill; the continuous current is judged over it (cars and trucks)',
   },
-  tightThreshold: { key: 'tightThreshold', label: 'Tight threshold', unit: '% headroom', scale: 100, type: 'number', nullable: true, emptyText: 'default', hint: 'empty: the class or default threshold' },
+  tightThreshold: { key: 'tightThreshold', label: 'Tight threshold', unit: '% headroom', scale: 100, percent: true, type: 'number', nullable: true, emptyText: 'default', hint: 'empty: the class or default threshold' },
   notes: { key: 'notes', label: 'Notes', type: 'notes' },
 } as const satisfies Record<string, FieldDef>;
 

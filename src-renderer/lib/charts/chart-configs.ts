@@ -90,7 +90,10 @@ export function currentPowerConfig(d: MotorChartData): ChartConfiguration<'line'
   };
 }
 
-export function torqueEfficiencyConfig(d: MotorChartData): ChartConfiguration<'line' | 'scatter'> {
+/** Torque in the user's units: N·m, or oz·in in imperial. */
+export function torqueEfficiencyConfig(d: MotorChartData, system: UnitSystem = 'metric'): ChartConfiguration<'line' | 'scatter'> {
+  const torqueUnit = displayUnit('torqueNm', system);
+  const torque = d.curve.torqueNm.map((t) => toDisplay(t, 'torqueNm', system));
   const effAt = (rpm: number): number => {
     const { rpm: xs, efficiency } = d.curve;
     for (let k = 1; k < xs.length; k++) {
@@ -105,7 +108,7 @@ export function torqueEfficiencyConfig(d: MotorChartData): ChartConfiguration<'l
     type: 'line',
     data: {
       datasets: [
-        { type: 'line', label: 'Torque (N·m)', data: xy(d.curve.rpm, d.curve.torqueNm), borderColor: SERIES.torque.color, borderDash: SERIES.torque.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y' },
+        { type: 'line', label: `Torque (${torqueUnit})`, data: xy(d.curve.rpm, torque), borderColor: SERIES.torque.color, borderDash: SERIES.torque.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y' },
         {
           type: 'line',
           label: 'Efficiency (%)',
@@ -119,7 +122,7 @@ export function torqueEfficiencyConfig(d: MotorChartData): ChartConfiguration<'l
         operatingPoints(d, d.marks.map((m) => effAt(m.rpm)), 'y1'),
       ],
     },
-    options: motorCurveOptions(d, (y) => `${y.toFixed(0)} %`, (i) => (i === 0 ? 3 : 0), { title: 'Torque (N·m)' }, { title: 'Efficiency (%)', max: 100 }),
+    options: motorCurveOptions(d, (y) => `${y.toFixed(0)} %`, (i) => (i === 0 ? (system === 'metric' ? 3 : 1) : 0), { title: `Torque (${torqueUnit})` }, { title: 'Efficiency (%)', max: 100 }),
   };
 }
 

@@ -15,3 +15,21 @@ export function dateTime(iso: string, zone: 'local' | 'utc' = 'local'): string {
 export function dateOnly(iso: string, zone: 'local' | 'utc' = 'local'): string {
   return dateTime(iso, zone).slice(0, 10);
 }
+
+/**
+ * A moment as the reader's own calendar and clock show it (the system's locale and time zone,
+ * month by name so the day and month cannot be swapped), for timelines; the timezone-free
+ * `dateTime` stays for printed sheets and files.
+ */
+export function localDateTime(iso: string, locale?: string, timeZone?: string): string {
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return iso;
+  return new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle: 'short', ...(timeZone ? { timeZone } : {}) }).format(d);
+}
+
+/** The same moment with its time zone named, for a tooltip. */
+export function localDateTimeLong(iso: string, locale?: string, timeZone?: string): string {
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return iso;
+  return new Intl.DateTimeFormat(locale, { dateStyle: 'full', timeStyle: 'long', ...(timeZone ? { timeZone } : {}) }).format(d);
+}

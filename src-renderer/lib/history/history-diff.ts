@@ -1,4 +1,5 @@
 // Before → after of the fields a history entry changed, as short readable pairs.
+import { localDateTime } from '../format/date';
 
 export interface FieldChange {
   field: string;
@@ -10,8 +11,13 @@ const SKIP = new Set(['version', 'updatedAt', 'createdAt', 'id']);
 
 type NameOf = (id: string) => string;
 
+const ISO_MOMENT = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/;
+
 function show(value: unknown, key = '', nameOf?: NameOf): string {
+  if (key === 'archivedAt' && value === null) return 'not archived';
   if (value === null || value === undefined) return 'empty';
+  // Moments (archivedAt) in the reader's calendar and clock, as the timeline shows its own.
+  if (key.endsWith('At') && typeof value === 'string' && ISO_MOMENT.test(value)) return localDateTime(value);
   if (nameOf && typeof value === 'string' && key.endsWith('Id')) return nameOf(value);
   if (typeof value === 'string') return value === '' ? 'empty' : value;
   if (typeof value === 'number' || typeof value === 'boolean') return String(value);

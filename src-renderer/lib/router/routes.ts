@@ -1,4 +1,5 @@
 // Hash routes: the screen lives in the address, so a reload (or a bookmark) opens it again.
+import { formatListQuery, isDefaultListQuery, parseListQuery, type ListQuery } from '../builds/list-query';
 
 export const PART_SLUGS = ['packs', 'motors', 'controllers', 'propellers'] as const;
 export type PartSlug = (typeof PART_SLUGS)[number];
@@ -7,8 +8,8 @@ export const HISTORY_KINDS = ['builds', 'batteries', 'motors', 'controllers', 'p
 export type HistoryKind = (typeof HISTORY_KINDS)[number];
 
 export type Route =
-  | { name: 'builds' }
-  | { name: 'build-new' }
+  | { name: 'builds'; query?: ListQuery }
+  | { name: 'build-new'; vehicleId?: string }
   | { name: 'build'; id: string }
   | { name: 'build-edit'; id: string }
   | { name: 'build-swap'; id: string }
@@ -33,13 +34,19 @@ function decode(segment: string | undefined): string | null {
 
 /** Reads `#/builds/abc` into a route; anything unknown opens the builds list. */
 export function parseRoute(hash: string): Route {
-  const path = hash.replace(/^#\/?/, '').split('?')[0] ?? '';
+  const [path = '', search = ''] = hash.replace(/^#\/?/, '').split('?');
   const [head, a, b] = path.split('/');
   switch (head) {
     case 'builds': {
-      if (a === 'new') return { name: 'build-new' };
+      if (a === 'new') {
+        const vehicleId = new URLSearchParams(search).get('vehicle');
+        return vehicleId ? { name: 'build-new', vehicleId } : { name: 'build-new' };
+      }
       const id = decode(a);
-      if (id === null) return { name: 'builds' };
+      if (id === null) {
+        const query = parseListQuery(search);
+        return isDefaultListQuery(query) ? { name: 'builds' } : { name: 'builds', query };
+      }
       if (b === 'edit') return { name: 'build-edit', id };
       if (b === 'swap') return { name: 'build-swap', id };
       return { name: 'build', id };
@@ -61,10 +68,12 @@ const enc = encodeURIComponent;
 
 export function formatRoute(route: Route): string {
   switch (route.name) {
-    case 'builds':
-      return '#/builds';
+    case 'builds': {
+      const search = route.query ? formatListQuery(route.query) : '';
+      return search === '' ? '#/builds' : `#/builds?${search}`;
+    }
     case 'build-new':
-      return '#/builds/new';
+      return route.vehicleId ? `#/builds/new?${new URLSearchParams({ vehicle: route.vehicleId }).toString()}` : '#/builds/new';
     case 'build':
       return `#/builds/${enc(route.id)}`;
     case 'build-edit':

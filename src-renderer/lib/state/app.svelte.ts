@@ -2,6 +2,7 @@ import type { Client } from '../api/client';
 import { Router } from '../router/router.svelte';
 import { BuildsListState } from './builds-list.svelte';
 import { CatalogState } from './catalog.svelte';
+import { OverConfirmState } from './over-confirm.svelte';
 import { SettingsState } from './settings.svelte';
 import { StoreInfoState } from './store-info.svelte';
 
@@ -12,6 +13,8 @@ export class AppState {
   readonly builds: BuildsListState;
   readonly info: StoreInfoState;
   readonly catalog: CatalogState;
+  /** The question asked before a save that makes a build OVER. */
+  readonly overConfirm: OverConfirmState;
 
   constructor(readonly client: Client) {
     this.router = new Router();
@@ -19,6 +22,7 @@ export class AppState {
     this.builds = new BuildsListState(client);
     this.info = new StoreInfoState(client);
     this.catalog = new CatalogState(client);
+    this.overConfirm = new OverConfirmState(client);
   }
 
   get units() {

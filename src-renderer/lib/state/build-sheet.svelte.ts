@@ -60,6 +60,45 @@ export class BuildSheetState {
     );
   }
 
+  busy = $state(false);
+  actionMessage = $state<string | null>(null);
+
+  /** Archives the build (kept with its history, left out of the list) or restores it. */
+  async setArchived(archived: boolean): Promise<boolean> {
+    const b = this.sheet?.build;
+    if (!b) return false;
+    this.busy = true;
+    this.actionMessage = null;
+    try {
+      await this.client.call('builds.archive', { id: b.id, expectedVersion: b.version, archived, reason: '' });
+      await this.load();
+      this.actionMessage = archived ? 'Archived.' : 'Restored to the builds list.';
+      return true;
+    } catch (error) {
+      this.actionMessage = asApiError(error).message;
+      return false;
+    } finally {
+      this.busy = false;
+    }
+  }
+
+  /** A new build with this one's settings; returns its id. */
+  async duplicate(): Promise<string | null> {
+    const b = this.sheet?.build;
+    if (!b) return null;
+    this.busy = true;
+    this.actionMessage = null;
+    try {
+      const made = await this.client.call('builds.duplicate', { id: b.id });
+      return made.record.id;
+    } catch (error) {
+      this.actionMessage = asApiError(error).message;
+      return null;
+    } finally {
+      this.busy = false;
+    }
+  }
+
   /** Pack names of a supply, joined the way they are wired. */
   supplyName(batteryIds: readonly string[], arrangement: 'series' | 'parallel' | undefined): string {
     const names = batteryIds.map((id) => this.packsById.get(id)?.name ?? id);

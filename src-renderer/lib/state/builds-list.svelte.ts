@@ -2,6 +2,7 @@ import type { Status, VehicleKind } from '../../../src-main/core/domain';
 import type { ServiceEvent } from '../../../src-main/service/contract';
 import { asApiError, type Client } from '../api/client';
 import type { BuildSummary } from '../builds/build-summary';
+import { DEFAULT_LIST_QUERY, type ListQuery } from '../builds/list-query';
 import { countByStatus, haystackOf, isEmptyFilter, matchingPositions, narrows, ownersOf, sortSummaries, type BuildFilter, type SortDir, type SortKey } from '../builds/build-filter';
 
 /** Runs work when the page is idle (after the next frame where idle callbacks are missing). */
@@ -27,6 +28,8 @@ export class BuildsListState {
   kinds = $state<VehicleKind[]>([]);
   owner = $state('');
   partId = $state('');
+  /** Lists the archived builds instead of the active ones. */
+  archived = $state(false);
   selectedId = $state<string | null>(null);
   /** Build ids whose rows changed by an event in the last moments, to draw the eye. */
   recentlyChanged = $state.raw<ReadonlySet<string>>(new Set());
@@ -43,10 +46,23 @@ export class BuildsListState {
   #hay: (string | undefined)[] = [];
   /** The last filter and the positions it let through: a keystroke that only narrows it looks at those alone. */
   #lastFilter: { from: readonly BuildSummary[]; filter: BuildFilter; positions: number[] | null } | null = null;
-  sorted = $derived(sortSummaries(this.all, this.sortKey, this.sortDir));
+  /** The builds of the list shown: the active ones, or the archived ones. */
+  scoped = $derived(this.archived ? this.all.filter((s) => s.archivedAt !== null) : this.all);
+  sorted = $derived(sortSummaries(this.scoped, this.sortKey, this.sortDir));
   visible = $derived(this.#filter(this.sorted, { text: this.text, statuses: this.statuses, kinds: this.kinds, owner: this.owner, partId: this.partId }));
   owners = $derived(ownersOf(this.all));
-  counts = $derived(countByStatus(this.all));
+  counts = $derived(countByStatus(this.scoped));
+  /** Everything the address keeps of the list (see list-query.ts). */
+  query = $derived<ListQuery>({
+    text: this.text,
+    statuses: this.statuses,
+    kinds: this.kinds,
+    owner: this.owner,
+    partId: this.partId,
+    sortKey: this.sortKey,
+    sortDir: this.sortDir,
+    archived: this.archived,
+  });
   selectedIndex = $derived(this.selectedId === null ? -1 : this.visible.findIndex((s) => s.id === this.selectedId));
   filtering = $derived(this.text.trim() !== '' || this.statuses.length > 0 || this.kinds.length > 0 || this.owner !== '' || this.partId !== '');
 
@@ -57,7 +73,10 @@ export class BuildsListState {
 
   async load(): Promise<void> {
     try {
-      const rows = await this.client.call('builds.list', {});
+      const archived = this.archived;
+      const rows = await this.client.call('builds.list', archived ? { includeArchived: true } : {});
+      // A newer load for the other list may have been asked for meanwhile.
+      if (archived !== this.archived) return;
       // For the benchmark: the time from here to the first row on screen is a budget.
       performance.mark('rigbook:builds-data');
       this.#haystacks = new Map();
@@ -161,6 +180,25 @@ export class BuildsListState {
     this.kinds = [];
     this.owner = '';
     this.partId = '';
+  }
+
+  /** Sets the list to what an address asks for; reloads when it switches between active and archived builds. */
+  applyQuery(q: ListQuery = DEFAULT_LIST_QUERY): void {
+    this.text = q.text;
+    this.statuses = [...q.statuses];
+    this.kinds = [...q.kinds];
+    this.owner = q.owner;
+    this.partId = q.partId;
+    this.sortKey = q.sortKey;
+    this.sortDir = q.sortDir;
+    if (q.archived !== this.archived) this.showArchived(q.archived);
+  }
+
+  showArchived(archived: boolean): void {
+    if (archived === this.archived) return;
+    this.archived = archived;
+    this.selectedId = null;
+    void this.load();
   }
 
   selectIndex(index: number): void {

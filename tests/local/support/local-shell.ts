@@ -4,6 +4,7 @@ import path from 'node:path';
 import { startLocalServer, type LocalServer } from '../../../src-main/local/local-server';
 import type { ServiceEvent } from '../../../src-main/service/contract';
 import { openServiceHost } from '../../../src-main/service/open-service-host';
+import { assertLoopbackTarget } from '../../helpers/loopback-only';
 import { tempDir } from '../../helpers/temp-dir';
 
 export const INDEX_MARK = 'rigbook-index-page';
@@ -56,7 +57,7 @@ export interface RawRequest {
   /** Sent exactly as given; `host: null` sends no Host header at all. */
   headers?: Record<string, string | null>;
   body?: string | Buffer;
-  /** Where to connect; the shell's own address unless a test aims elsewhere. */
+  /** Where to connect: the shell's own address unless a test aims at another loopback address (nothing outside 127.0.0.0/8 and ::1). */
   address?: string;
   timeoutMs?: number;
 }
@@ -75,7 +76,7 @@ export function rawRequest(options: RawRequest): Promise<RawResponse> {
   }
   return new Promise((resolve, reject) => {
     const req = request(
-      { host: options.address ?? '127.0.0.1', port: options.port, method: options.method ?? 'GET', path: options.path, headers, setHost: false, agent: false, timeout: options.timeoutMs ?? 10_000 },
+      { host: assertLoopbackTarget(options.address ?? '127.0.0.1'), port: options.port, method: options.method ?? 'GET', path: options.path, headers, setHost: false, agent: false, timeout: options.timeoutMs ?? 10_000 },
       (res) => {
         const chunks: Buffer[] = [];
         res.on('data', (c: Buffer) => chunks.push(c));

@@ -58,8 +58,11 @@ describe('limit checks', () => {
     expect(f.status).toBe('incomplete');
     expect(f.margin).toBeNull();
     expect(f.missing).toEqual(['motor.resistanceOhm', 'motor.maxCurrentA']);
-    expect(f.message).toContain('motor.resistanceOhm');
+    // Paths stay in `missing`; the sentence carries only words a user reads.
+    expect(f.message).not.toContain('motor.resistanceOhm');
+    expect(f.message).not.toMatch(/\(\w+\.\w+\)/u);
     expect(f.message).toContain('winding resistance');
+    expect(f.message).toContain('rated current');
   });
 
   it('status is over exactly when the margin is negative (property)', () => {
