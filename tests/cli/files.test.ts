@@ -48,26 +48,32 @@ describe('rigbook and fleet files from scripts and spreadsheets', () => {
     expect(deep.err).toBe('Cannot read standard input: The file is not JSON: unexpected "}" where a value should be, at line 1, column 20001.\n');
   });
 
-  it('the factor-1000 CSV is refused on the command line, listed field by field, and goes through with --accept-changes', async () => {
+  it('a scaled CSV is refused on the command line, listed field by field, and goes through with --accept-changes', async () => {
     const t = temp();
     const db = t.file('s.sqlite');
     expect((await rigbook(['import', EXAMPLE, '--db', db])).code).toBe(0);
     const csv = (await rigbook(['export', '--csv', 'motors', '--db', db])).out;
     // The example motor's 0.014 Ω winding read by a comma-decimal spreadsheet: 14.
     expect(csv).toContain(',0.014,');
+    // 14 Ω is past any hobby motor's winding: refused outright by the plausible range, with the field's label.
     writeFileSync(t.file('motors.csv'), csv.replace(',0.014,', ',14,'));
+    const implausible = await rigbook(['import', 'motors.csv', '--csv', 'motors', '--dry-run', '--db', db], { cwd: t.dir });
+    expect(implausible.code).toBe(3);
+    expect(implausible.err).toContain('Winding resistance must be above 0 Ω and at most 10 Ω');
+    // Scaled by 100 (0.014 → 1.4) it stays plausible, so the change guard must catch it.
+    writeFileSync(t.file('motors.csv'), csv.replace(',0.014,', ',1.4,'));
     const dry = await rigbook(['import', 'motors.csv', '--csv', 'motors', '--dry-run', '--db', db], { cwd: t.dir });
     expect(dry.code).toBe(3);
     expect(dry.err).toContain('motors.csv was not imported (1 problem; nothing was written):');
-    expect(dry.err).toContain('motor "3660 can, 3200 Kv" [motor-3660]: the motor winding resistance (resistanceOhm) would change from 0.014 to 14, which grows by a factor of 1000.');
-    expect(dry.err).toContain('  motor "3660 can, 3200 Kv" [motor-3660]\n    resistanceOhm: 0.014 → 14   ← needs confirming: grows by a factor of 1000');
+    expect(dry.err).toContain('motor "3660 can, 3200 Kv" [motor-3660]: the motor winding resistance (resistanceOhm) would change from 0.014 to 1.4, which grows by a factor of 100.');
+    expect(dry.err).toContain('  motor "3660 can, 3200 Kv" [motor-3660]\n    resistanceOhm: 0.014 → 1.4   ← needs confirming: grows by a factor of 100');
     expect(dry.err).toContain('import again with --accept-changes');
     const refused = await rigbook(['import', 'motors.csv', '--csv', 'motors', '--db', db], { cwd: t.dir });
     expect(refused.code).toBe(3);
     const accepted = await rigbook(['import', 'motors.csv', '--csv', 'motors', '--accept-changes', '--db', db], { cwd: t.dir });
     expect(accepted.code).toBe(0);
     expect(accepted.out).toContain('Changed 1 stored record (before → after):');
-    expect(accepted.out).toContain('resistanceOhm: 0.014 → 14');
+    expect(accepted.out).toContain('resistanceOhm: 0.014 → 1.4');
   });
 
   it('a plain change is listed by the dry run, before → after', async () => {

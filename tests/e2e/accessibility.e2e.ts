@@ -100,6 +100,8 @@ test.describe('on the invented fleet', () => {
     await expect(form.getByRole('alert').first()).toBeVisible();
     await expect(form.locator('[aria-invalid="true"]').first()).toBeVisible();
     await expectNoAxeViolations(page, 'new build form, with errors');
+    // Leaving a form with unsaved edits asks first; this test means to leave.
+    page.once('dialog', (d) => void d.accept());
     await go(page, `#/builds/${fleet.builds.monster8s}/edit`);
     const edit = page.getByRole('form', { name: 'Edit build' });
     await expect(edit.getByLabel('Pinion (teeth)')).toHaveValue('13');
@@ -120,7 +122,7 @@ test.describe('on the invented fleet', () => {
     await page.getByRole('tab', { name: 'Change gearing' }).click();
     await page.locator('input[name="gearing.pinionTeeth"]').fill('not a number');
     await page.getByRole('button', { name: 'Preview' }).click();
-    await expect(page.getByRole('alert')).toBeVisible();
+    await expect(page.getByRole('alert').filter({ hasText: 'Pinion' }).first()).toBeVisible();
     await expectNoAxeViolations(page, 'swap preview, gearing refused');
 
     await page.getByRole('tab', { name: "Edit a shared part's ratings" }).click();

@@ -34,11 +34,16 @@ function setCell(csv: string, id: string, column: string, value: string): string
 }
 
 describe('a spreadsheet that reads the decimal point as a thousands separator', () => {
-  it('the factor-1000 motor CSV is refused, naming record, field, both values and the likely cause; the store is unchanged', async () => {
+  it('a scaled motor CSV is refused (past the plausible range, or by a factor of 100 or more), naming record, field, both values and the likely cause; the store is unchanged', async () => {
     const seed = await seedTwoBuggies(f);
     const { text } = await f.call('fleet.exportCsv', { kind: 'motors' });
     // What a round trip through a comma-decimal locale does to 0.012 Ω: the point groups thousands, so it reads 12.
-    const damaged = setCell(text, seed.motor.id, 'resistanceOhm', '12');
+    // 12 Ω is past any hobby motor's winding and is refused outright by the plausible range (core/plausibility.ts).
+    const implausible = await f.call('fleet.importCsv', { kind: 'motors', text: setCell(text, seed.motor.id, 'resistanceOhm', '12') });
+    expect(implausible.ok).toBe(false);
+    expect(implausible.problems.map(problemLine).join('\n')).toContain('Winding resistance must be above 0 Ω and at most 10 Ω');
+    // A scaled value the range still allows (0.012 → 1.2, a factor of 100) must be caught by the change guard.
+    const damaged = setCell(text, seed.motor.id, 'resistanceOhm', '1.2');
     expect(damaged).not.toBe(text);
     const before = await dumpStore(f.db);
     const report = await f.call('fleet.importCsv', { kind: 'motors', text: damaged });
@@ -47,11 +52,11 @@ describe('a spreadsheet that reads the decimal point as a thousands separator', 
     expect(report.problems).toHaveLength(1);
     const message = problemLine(report.problems[0]!);
     expect(message).toContain(`motor "Test 3300" [${seed.motor.id}]`);
-    expect(message).toContain('the motor winding resistance (resistanceOhm) would change from 0.012 to 12');
-    expect(message).toContain('factor of 1000');
+    expect(message).toContain('the motor winding resistance (resistanceOhm) would change from 0.012 to 1.2');
+    expect(message).toContain('factor of 100');
     expect(message).toMatch(/locale that uses the comma as the decimal mark/);
     expect(report.recordChanges).toEqual([
-      { kind: 'motors', id: seed.motor.id, name: 'Test 3300', fields: [expect.objectContaining({ field: 'resistanceOhm', before: 0.012, after: 12, suspect: expect.stringContaining('1000') })] },
+      { kind: 'motors', id: seed.motor.id, name: 'Test 3300', fields: [expect.objectContaining({ field: 'resistanceOhm', before: 0.012, after: 1.2, suspect: expect.stringContaining('factor of 100') })] },
     ]);
     expect(await dumpStore(f.db)).toEqual(before);
 
@@ -62,7 +67,7 @@ describe('a spreadsheet that reads the decimal point as a thousands separator', 
     // Confirmed, it goes through: the person may really have meant it.
     const accepted = await f.call('fleet.importCsv', { kind: 'motors', text: damaged, acceptChanges: true });
     expect(accepted.ok).toBe(true);
-    expect((await f.call('motors.get', { id: seed.motor.id })).resistanceOhm).toBe(12);
+    expect((await f.call('motors.get', { id: seed.motor.id })).resistanceOhm).toBe(1.2);
   });
 
   it('a whole fleet file scaled the same way is refused through fleet.import too; a value leaving its plausible range is refused even below a factor of 100', async () => {

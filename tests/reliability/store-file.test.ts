@@ -233,7 +233,9 @@ describe('restore', () => {
     const after = await auditedDump(target);
     const packs = after.batteries!.map((row) => (JSON.parse(row as string) as { id: string }).id);
     for (const id of acknowledged) expect(packs, `acknowledged pack ${id} (restore ${outcome})`).toContain(id);
-    if (outcome === 'restored') expect(late.ok).toBe(false);
+    // A shell that opened the replaced file and kept writing would lose its acknowledged writes,
+    // which the loop above catches; one that waited for the restore's lock and opened the
+    // restored file may write on (its writes are then in the store).
     console.log(`restore with a shell starting meanwhile: ${outcome}, ${acknowledged.length} writes acknowledged, ${refused.length + (late.ok ? 0 : 1)} refused as store-changed`);
   });
 });
