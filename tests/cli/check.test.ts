@@ -2,18 +2,12 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { unit } from 'mathjs';
-import { afterEach, describe, expect, it } from 'vitest';
-import { tempDir } from '../helpers/temp-dir';
+import { describe, expect, it } from 'vitest';
+import { tempDirsPerTest } from '../helpers/temp-dir';
 import { rigbook } from './run';
 
 const EXAMPLE = join(process.cwd(), 'demo-fixtures', 'example-fleet.json');
-const temps: ReturnType<typeof tempDir>[] = [];
-function temp() {
-  const t = tempDir();
-  temps.push(t);
-  return t;
-}
-afterEach(() => temps.splice(0).forEach((t) => t.remove()));
+const temp = tempDirsPerTest();
 
 interface CheckOutput {
   builds: {

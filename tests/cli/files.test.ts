@@ -1,22 +1,16 @@
 import { spawnSync } from 'node:child_process';
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { generateFleet } from '../../demo-fixtures/generate-fleet';
 import { fleetText } from '../../src-main/service/fleet/export-fleet';
 import { evaluateFleet } from '../../src-main/service/fleet/evaluate-fleet';
-import { tempDir } from '../helpers/temp-dir';
+import { tempDirsPerTest } from '../helpers/temp-dir';
 import { rigbook } from './run';
 
 const EXAMPLE = join(process.cwd(), 'demo-fixtures', 'example-fleet.json');
 const PACKAGE_VERSION = (JSON.parse(readFileSync(join(process.cwd(), 'package.json'), 'utf8')) as { version: string }).version;
-const temps: ReturnType<typeof tempDir>[] = [];
-function temp() {
-  const t = tempDir();
-  temps.push(t);
-  return t;
-}
-afterEach(() => temps.splice(0).forEach((t) => t.remove()));
+const temp = tempDirsPerTest();
 
 describe('rigbook and fleet files from scripts and spreadsheets', () => {
   it('--version prints the package version', async () => {
