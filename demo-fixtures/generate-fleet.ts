@@ -117,7 +117,12 @@ export function generateFleet(options: GenerateOptions): FleetFile {
     const buildId = id('gen-b', i);
     const first = i % 2 === 0 ? HOT_PACK_ID : batteries[1 + Math.floor(rnd() * (batteries.length - 1))]!.id;
     const supplies = [{ id: `${buildId}.s1`, arrangement: 'series' as const, batteryIds: [first] }];
-    if (rnd() < 0.3) supplies.push({ id: `${buildId}.s2`, arrangement: 'series' as const, batteryIds: [pick(batteries).id] });
+    if (rnd() < 0.3) {
+      // One physical pack can be in one place only: a second supply takes another pack.
+      let second = pick(batteries).id;
+      if (second === first) second = batteries[(batteries.findIndex((b) => b.id === first) + 1) % batteries.length]!.id;
+      supplies.push({ id: `${buildId}.s2`, arrangement: 'series' as const, batteryIds: [second] });
+    }
     builds.push({
       ...meta,
       id: buildId,

@@ -1,5 +1,7 @@
 import type { ParseArgsConfig } from 'node:util';
-import type { CliIo } from './cli-io';
+import { FILE_ENCODINGS, type FileEncoding } from '../service/fleet/decode-file-bytes';
+import { CliFailure, type CliIo } from './cli-io';
+import { EXIT } from './exit-codes';
 
 export type OptionSpec = NonNullable<ParseArgsConfig['options']>;
 
@@ -26,3 +28,15 @@ export const textValue = (values: CommandInput['values'], name: string): string 
   const v = values[name];
   return typeof v === 'string' ? v : undefined;
 };
+
+export const ENCODING_HELP = `  --encoding E   the file's text encoding: utf-8 (the default; a byte-order mark is
+                 fine) or windows-1252; any other bytes are refused, never guessed`;
+
+/** `--encoding`, checked: UTF-8 unless the person names Windows-1252. */
+export function encodingOption(values: CommandInput['values']): FileEncoding {
+  const given = textValue(values, 'encoding');
+  if (given === undefined) return 'utf-8';
+  const e = given.toLowerCase() === 'utf8' ? 'utf-8' : given.toLowerCase() === 'cp1252' ? 'windows-1252' : given.toLowerCase();
+  if (!(FILE_ENCODINGS as readonly string[]).includes(e)) throw new CliFailure(EXIT.usage, `--encoding must be ${FILE_ENCODINGS.join(' or ')} (not "${given}").`);
+  return e as FileEncoding;
+}

@@ -6,6 +6,7 @@ import { resolveDbPath } from '../store/data-location';
 import { CliFailure, type CliIo } from './cli-io';
 import { EXIT } from './exit-codes';
 import { progressPrinter } from './progress-line';
+import { describeStorageError } from '../store/storage-errors';
 
 export type Host = Awaited<ReturnType<typeof openServiceHost>>;
 
@@ -33,7 +34,9 @@ export async function withStore<T>(io: CliIo, dbPath: string, options: StoreOpti
   try {
     host = await openServiceHost({ dbPath, ...(options.autoBackup ? { autoBackup: { keep: AUTO_BACKUPS_KEPT, minIntervalHours: 0 } } : {}) });
   } catch (error) {
-    throw new CliFailure(EXIT.store, `The store at ${dbPath} could not be opened: ${error instanceof Error ? error.message : String(error)}`);
+    const storage = describeStorageError(error, dbPath);
+    const cause = error instanceof Error ? error.message : String(error);
+    throw new CliFailure(EXIT.store, storage ? `The store could not be opened. ${storage.message}\n  (${storage.code}: ${cause})` : `The store at ${dbPath} could not be opened: ${cause}`);
   }
   const progress = progressPrinter(io);
   const stop = host.subscribe(progress.onEvent);

@@ -9,6 +9,10 @@ import { importCommand } from './commands/import';
 import { restoreCommand } from './commands/restore';
 import { EXIT, EXIT_CODES_HELP } from './exit-codes';
 import { storePath } from './open-store';
+import { describeStorageError } from '../store/storage-errors';
+import { RIGBOOK_VERSION } from './version';
+import { ENGINE_VERSION } from '../core/engine-version';
+import { FLEET_VERSION } from '../service/fleet/fleet-format';
 
 export const COMMANDS: readonly Command[] = [checkCommand, importCommand, exportCommand, backupCommand, restoreCommand, demoCommand];
 
@@ -31,6 +35,7 @@ Options for every command:
   --db PATH    the store to use (else RIGBOOK_DB, else the app's data folder)
   --json       print data as JSON where the command prints data
   -h, --help   help for a command: rigbook COMMAND --help
+  --version    print the version of rigbook, of its rules engine and of the file format
 
 ${EXIT_CODES_HELP}
 `;
@@ -52,6 +57,10 @@ function splitCommand(argv: readonly string[]): { name: string | undefined; rest
 
 /** Runs one `rigbook` command line; returns the exit code. Never throws for a person's mistake. */
 export async function runCli(argv: readonly string[], io: CliIo): Promise<number> {
+  if (argv.length === 1 && (argv[0] === '--version' || argv[0] === '-V')) {
+    io.out(`rigbook ${RIGBOOK_VERSION} (rules engine ${ENGINE_VERSION}, fleet file version ${FLEET_VERSION})\n`);
+    return EXIT.ok;
+  }
   const { name, rest } = splitCommand(argv);
   if (name === undefined || name === 'help') {
     const topic = name === 'help' ? rest.find((a) => !a.startsWith('-')) : undefined;
@@ -97,6 +106,12 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
     if (error instanceof CliFailure) {
       io.err(`rigbook ${command.name}: ${error.message}\n`);
       return error.code;
+    }
+    const storage = describeStorageError(error);
+    if (storage) {
+      // A person's problem to fix (space, permissions, another program): the message and SQLite's own words, no stack.
+      io.err(`rigbook ${command.name}: ${storage.message}\n  (${storage.code}: ${error instanceof Error ? error.message : String(error)})\n`);
+      return EXIT.store;
     }
     io.err(`rigbook ${command.name}: something went wrong: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
     return EXIT.store;

@@ -2,10 +2,27 @@
 // part makes each of its fields lack the build's reference to it (e.g. `build.motorId`), so a
 // finding says to pick the part rather than to fill in one of its fields.
 
-import { CONTROLLER_VOLTS_PER_RATED_CELL } from './constants';
+import {
+  AIR_DENSITY,
+  CONTROLLER_VOLTS_PER_RATED_CELL,
+  DEFAULT_2WD_DRIVEN_SHARE,
+  DEFAULT_RUN_LENGTH_S,
+  FRESH_WATER_DENSITY,
+  SEA_WATER_DENSITY,
+} from './constants';
 import { VEHICLE_KINDS, type BuildContext, type VehicleKind } from './domain';
 import { finalDriveRatio } from './drivetrain';
 import { count, known, lacking, nonNegative, positive, type Known } from './known';
+import { isPlausible, type PlausibleField } from './plausibility';
+
+/** A positive value inside the field's plausible range, else lacking the field. */
+function plausible(x: number | null | undefined, field: PlausibleField): Known {
+  const k = positive(x, field);
+  return k.value !== null && !isPlausible(field, k.value) ? lacking(field) : k;
+}
+
+/** Where the share of weight on the driven wheels came from. */
+export type DrivenShareSource = 'recorded' | '4wd' | '2wd' | 'unknown';
 
 export interface BuildInputs {
   kind: Known<VehicleKind>;
@@ -37,6 +54,21 @@ export interface BuildInputs {
   /** Null where nothing was measured. */
   measuredPeakA: Known | null;
   measuredAverageA: Known | null;
+  /** Share of the weight on the driven wheels, 0 to 1, and where it came from. */
+  drivenShare: number;
+  drivenShareSource: DrivenShareSource;
+  /** Density of what the propeller turns in, kg/m³, and whether the water type was assumed. */
+  fluidDensity: number;
+  waterAssumed: boolean;
+  /** Motor turns per propeller turn (1 for direct drive). */
+  propGearRatio: number;
+  /** True where a gearbox sits between motor and propeller: its efficiency then applies. */
+  propGeared: boolean;
+  pitchMm: Known;
+  /** Maker's rpm limit of the propeller; null where none is recorded. */
+  propMaxRpm: number | null;
+  runLengthS: number;
+  runLengthDefault: boolean;
 }
 
 function measured(x: number | null | undefined, field: string): Known | null {
@@ -66,9 +98,30 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
     pinion.value !== null && spur.value !== null && internal.value !== null
       ? known(finalDriveRatio(spur.value, pinion.value, internal.value))
       : lacking(...[pinion, spur, internal].flatMap((k) => k.missing ?? []));
-  const eff = gearing?.drivetrainEfficiency;
-  const drivetrainEfficiency =
-    typeof eff === 'number' && eff > 0 && eff <= 1 ? known(eff) : lacking('gearing.drivetrainEfficiency');
+  const drivetrainEfficiency = plausible(gearing?.drivetrainEfficiency, 'gearing.drivetrainEfficiency');
+
+  // A propeller build's ratio: the gearbox (internal ratio), times spur ÷ pinion where both are given.
+  const propGearRatio =
+    (internal.value ?? 1) * (pinion.value !== null && spur.value !== null ? spur.value / pinion.value : 1);
+  const propGeared = propGearRatio !== 1;
+
+  const recordedShare = vehicle?.drivenWeightShare;
+  const layout = vehicle?.driveLayout ?? null;
+  let drivenShare = 1;
+  let drivenShareSource: DrivenShareSource = layout === '2wd' ? '2wd' : layout === '4wd' ? '4wd' : 'unknown';
+  if (typeof recordedShare === 'number' && isPlausible('vehicle.drivenWeightShare', recordedShare)) {
+    drivenShare = recordedShare;
+    drivenShareSource = 'recorded';
+  } else if (layout === '2wd') {
+    drivenShare = DEFAULT_2WD_DRIVEN_SHARE;
+  }
+  const boat = vehicle?.kind === 'boat';
+  const water = vehicle?.water ?? null;
+  const fluidDensity = !boat ? AIR_DENSITY : water === 'fresh' ? FRESH_WATER_DENSITY : SEA_WATER_DENSITY;
+
+  const run = build.runLengthS;
+  const runGiven = typeof run === 'number' && isPlausible('build.runLengthS', run);
+  const propMaxRpm = propeller?.maxRpm;
 
   const controllerR = controller ? nonNegative(controller.resistanceOhm, 'controller.resistanceOhm') : known(0);
   const diameterMm = propeller ? positive(propeller.diameterMm, 'propeller.diameterMm') : noProp;
@@ -80,8 +133,8 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
         : lacking<VehicleKind>('vehicle.kind')
       : lacking<VehicleKind>('build.vehicleId'),
     motorCount: count(build.motorCount, 'build.motorCount'),
-    kv: motor ? positive(motor.kv, 'motor.kv') : noMotor,
-    motorResistanceOhm: motor ? positive(motor.resistanceOhm, 'motor.resistanceOhm') : noMotor,
+    kv: motor ? plausible(motor.kv, 'motor.kv') : noMotor,
+    motorResistanceOhm: motor ? plausible(motor.resistanceOhm, 'motor.resistanceOhm') : noMotor,
     noLoadCurrentA: motor ? nonNegative(motor.noLoadCurrentA, 'motor.noLoadCurrentA') : noMotor,
     motorMaxVoltageV: motor ? positive(motor.maxVoltageV, 'motor.maxVoltageV') : noMotor,
     motorMaxRpm: motor ? positive(motor.maxRpm, 'motor.maxRpm') : noMotor,
@@ -105,5 +158,15 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
     thrustCoefficient: propeller ? positive(propeller.thrustCoefficient, 'propeller.thrustCoefficient') : noProp,
     measuredPeakA: measured(build.measuredPeakCurrentA, 'build.measuredPeakCurrentA'),
     measuredAverageA: measured(build.measuredAverageCurrentA, 'build.measuredAverageCurrentA'),
+    drivenShare,
+    drivenShareSource,
+    fluidDensity,
+    waterAssumed: boat && water !== 'fresh' && water !== 'sea',
+    propGearRatio,
+    propGeared,
+    pitchMm: propeller ? positive(propeller.pitchMm, 'propeller.pitchMm') : noProp,
+    propMaxRpm: typeof propMaxRpm === 'number' && isPlausible('propeller.maxRpm', propMaxRpm) ? propMaxRpm : null,
+    runLengthS: runGiven ? run : DEFAULT_RUN_LENGTH_S,
+    runLengthDefault: !runGiven,
   };
 }

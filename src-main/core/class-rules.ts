@@ -27,7 +27,11 @@ const FIGURE_WORDS: Readonly<Record<string, string>> = {
   peakPowerW: 'Peak power',
   loadedVoltageV: 'Loaded supply voltage',
   thrustN: 'Static thrust',
-  tipSpeedMps: 'Propeller tip speed',
+  tipSpeedMps: 'Propeller tip speed (unloaded)',
+  tipSpeedStaticMps: 'Propeller tip speed (static)',
+  pitchSpeedKmh: 'Pitch speed',
+  runRmsCurrentA: 'RMS current over the run',
+  steadyCurrentA: 'Steady current',
   loadedRpm: 'Loaded motor speed',
   loadedRpmFull: 'Loaded motor speed at full charge',
 };

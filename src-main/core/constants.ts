@@ -13,8 +13,15 @@ export const AIR_DENSITY = 1.225;
  */
 export const FRESH_WATER_DENSITY = 1000;
 
-/** Speed of sound in air at ISA sea level, m/s. */
-export const SPEED_OF_SOUND_SEA_LEVEL = 340.29;
+/**
+ * Sea water density, kg/m³: the usual round figure for surface sea water (about 35 g/kg
+ * salinity, 15 °C gives about 1025.9 kg/m³ by the UNESCO 1980 equation of state of sea water;
+ * from memory). Denser than fresh water, so a propeller in the sea asks for more current.
+ */
+export const SEA_WATER_DENSITY = 1025;
+
+/** Speed of sound in air at ISA sea level (15 °C), m/s (ISO 2533:1975, ICAO Doc 7488). */
+export const SPEED_OF_SOUND_SEA_LEVEL = 340.294;
 
 /**
  * Share of the speed of sound a propeller tip may reach before the prop-tip-speed rule reads
@@ -22,6 +29,26 @@ export const SPEED_OF_SOUND_SEA_LEVEL = 340.29;
  * noise climb steeply and small propellers are loaded beyond what they are designed for.
  */
 export const PROP_TIP_MACH_LIMIT = 0.85;
+
+/**
+ * Length of the full-throttle run from standstill the continuous current is judged over, when a
+ * build sets none: about a club straight at full throttle. Our own default, stated on the sheet.
+ */
+export const DEFAULT_RUN_LENGTH_S = 4;
+
+/**
+ * Share of the weight on the driven axle of a 2WD car or truck when none is recorded. Rear-drive
+ * buggies and trucks carry about 60–65 % on the rear axle at rest and launch moves more weight
+ * rearward (common practice, from memory); 0.7 keeps the launch current on the high side.
+ */
+export const DEFAULT_2WD_DRIVEN_SHARE = 0.7;
+
+/**
+ * Packs joined in parallel should be within this voltage per cell of each other when they are
+ * connected (common practice, from memory): more and the fuller pack drives a large current
+ * into the other.
+ */
+export const PARALLEL_MATCH_VOLTS_PER_CELL = 0.1;
 
 /** Cell voltage at which a controller rated only in cells is taken to be rated (LiPo full charge). */
 export const CONTROLLER_VOLTS_PER_RATED_CELL = 4.2;

@@ -9,11 +9,21 @@ export type Chemistry = (typeof CHEMISTRIES)[number];
 export const VEHICLE_KINDS = ['car', 'truck', 'boat', 'multirotor', 'plane'] as const;
 export type VehicleKind = (typeof VEHICLE_KINDS)[number];
 
-export const STATUSES = ['over', 'tight', 'incomplete', 'clear'] as const;
-/** Worst first: the order a build's overall verdict is taken in. */
+/**
+ * Worst first: the order a build's overall verdict is taken in. A check that cannot be made
+ * is worse news than a known small margin, so incomplete ranks above tight.
+ */
+export const STATUSES = ['over', 'incomplete', 'tight', 'clear'] as const;
 export type Status = (typeof STATUSES)[number];
 
 export const ARRANGEMENTS = ['series', 'parallel'] as const;
+
+/** Which wheels are driven: all of them, or one axle. */
+export const DRIVE_LAYOUTS = ['4wd', '2wd'] as const;
+export type DriveLayout = (typeof DRIVE_LAYOUTS)[number];
+
+export const WATER_TYPES = ['fresh', 'sea'] as const;
+export type WaterType = (typeof WATER_TYPES)[number];
 export type Arrangement = (typeof ARRANGEMENTS)[number];
 
 /** Fields every stored, editable record carries. */
@@ -77,6 +87,8 @@ export interface Propeller extends RecordMeta {
   thrustCoefficient: number | null;
   /** Power coefficient C_P in P = C_P·ρ·n³·D⁵. */
   powerCoefficient: number | null;
+  /** The maker's rpm limit (often printed as a constant ÷ diameter); null where none is published. */
+  maxRpm?: number | null;
 }
 
 export interface Vehicle extends RecordMeta {
@@ -87,6 +99,12 @@ export interface Vehicle extends RecordMeta {
   dragAreaM2: number | null;
   rollingCoefficient: number | null;
   tractionCoefficient: number | null;
+  /** Cars and trucks: 4WD or 2WD; null reads as 4WD (all the weight on driven wheels, the high-current side). */
+  driveLayout?: DriveLayout | null;
+  /** Share of the weight on the driven wheels, 0 to 1; null takes the layout's default. */
+  drivenWeightShare?: number | null;
+  /** Boats: fresh or sea water; null reads as sea water (the denser, the high-current side). */
+  water?: WaterType | null;
   owner: string;
   className: string;
 }
@@ -117,9 +135,16 @@ export interface Build extends RecordMeta {
   propellerId: string | null;
   gearing: Gearing;
   supplies: Supply[];
-  /** Measured currents override the model where recorded. */
+  /** Measured currents override the model where recorded, on the supply they were measured on. */
   measuredPeakCurrentA: number | null;
   measuredAverageCurrentA: number | null;
+  /**
+   * The supply the measured currents were logged on; null with one supply means that one.
+   * With several supplies and none named, the measurements are not used (the sheet says so).
+   */
+  measuredSupplyId?: string | null;
+  /** Length of the full-throttle run the continuous current is judged over, s; null takes the default. */
+  runLengthS?: number | null;
   /** Margin under which a rule reads `tight`; null takes the class's or the default 0.15. */
   tightThreshold: number | null;
 }
@@ -166,6 +191,22 @@ export interface Finding {
   source?: 'model' | 'measured';
   /** Unmeasured inputs the model took as zero (pack or controller resistance): reads currents on the high side. */
   assumed?: string[];
+  /** The pack a per-pack rule (battery-continuous, battery-burst, pack-retired) is about: the worst one. */
+  batteryId?: string;
+}
+
+/** One pack's part of a supply's current, as judged. */
+export interface PackShare {
+  batteryId: string;
+  name: string;
+  /** Fraction of the supply current this pack is taken to carry (1 for packs in series). */
+  share: number;
+  /** True where the share is the pessimistic bound because a resistance is not measured. */
+  bound: boolean;
+  continuousA: number | null;
+  peakA: number | null;
+  continuousLimitA: number | null;
+  burstLimitA: number | null;
 }
 
 /** Figures of one supply; null where an input needed for it is missing. */
@@ -198,6 +239,10 @@ export interface SupplyVerdict {
   status: Status;
   figures: Figures;
   findings: Finding[];
+  /** Each pack's share of the current, in supply order. */
+  packShares: PackShare[];
+  /** What the model assumed where it had to (plain sentences, for the sheet). */
+  assumptions: string[];
 }
 
 export interface BuildVerdict {

@@ -4,4 +4,6 @@
  * opened by a newer engine re-checks every build once to keep the list and the sheets agreed.
  */
 // 2: stored verdicts name the rule and source of the list's current (re-check fills them in).
-export const ENGINE_VERSION = 2;
+// 3: safe-side model: parallel shares by conductance, unloaded tip speed, run current, geared
+//    propellers, retired and repeated packs, incomplete above tight, plausibility bounds.
+export const ENGINE_VERSION = 3;

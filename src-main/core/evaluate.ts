@@ -4,17 +4,21 @@
 
 import { buildInputs, type BuildInputs } from './build-inputs';
 import { classFindings, classRulesFor } from './class-rules';
-import { PROP_TIP_MACH_LIMIT, SPEED_OF_SOUND_SEA_LEVEL } from './constants';
-import type { BuildContext, BuildVerdict, Figures, Finding, Status, Supply, SupplyVerdict } from './domain';
+import { FRESH_WATER_DENSITY, PROP_TIP_MACH_LIMIT, SEA_WATER_DENSITY, SPEED_OF_SOUND_SEA_LEVEL } from './constants';
+import type { BuildContext, BuildVerdict, Figures, Finding, PackShare, Status, Supply, SupplyVerdict } from './domain';
 import { rolloutMm, speedKmhAt } from './drivetrain';
 import { known, lacking, missingOf, type Known } from './known';
+import { messageNumber } from './message-number';
 import { torqueConstant } from './motor';
-import { operate } from './operating-model';
+import { NOT_APPLICABLE, operate } from './operating-model';
+import type { PackModel } from './pack';
+import { tipSpeed } from './propeller';
 import { checkLimit, type LimitCheck } from './rule-check';
-import { RULE_TEXT, SUPPLY_MATCH_RULE_ID, type BuiltInRuleId } from './rules';
+import { PACK_REPEATED_RULE_ID, PACK_RETIRED_RULE_ID, RULE_TEXT, SUPPLY_MATCH_RULE_ID, type BuiltInRuleId } from './rules';
 import { compareStatus } from './status';
 import { supplyModel, type SupplyModel } from './supply';
 import { tightThresholdFor } from './threshold';
+import { mpsToKmh } from './units';
 
 /** Stands in for a build without supplies, so its verdict still says what is missing. */
 const NO_SUPPLY: Supply = { id: '', arrangement: 'series', batteryIds: [] };
@@ -35,11 +39,24 @@ export function evaluateBuild(ctx: BuildContext, options?: EvaluateOptions): Bui
   const classRules = classRulesFor(ctx.classRules, ctx.vehicle?.className);
   const threshold = tightThresholdFor(ctx.build.tightThreshold, classRules, ctx.defaultTightThreshold);
   const supplies = ctx.build.supplies.length > 0 ? ctx.build.supplies : [NO_SUPPLY];
+  // One physical pack cannot be in two places at once: count every id across the build.
+  const uses = new Map<string, number>();
+  for (const supply of supplies) for (const id of supply.batteryIds) uses.set(id, (uses.get(id) ?? 0) + 1);
+  // Measured currents belong to the supply they were logged on; with one supply, that one.
+  const named = ctx.build.measuredSupplyId ?? null;
+  const measuredOn = named ?? (ctx.build.supplies.length === 1 ? (ctx.build.supplies[0]?.id ?? null) : null);
+  const measuredOnKnown = measuredOn !== null && ctx.build.supplies.some((s) => s.id === measuredOn);
   const verdicts: SupplyVerdict[] = [];
   for (const supply of supplies) {
     const model =
       supply === NO_SUPPLY ? lacking<SupplyModel>('build.supplies') : supplyModel(supply, ctx.batteries);
-    verdicts.push(evaluateSupply(inputs, supply, model, classRules, threshold, messages));
+    const site: SupplySite = {
+      repeated: supply.batteryIds.filter((id, i, all) => (uses.get(id) ?? 0) > 1 && all.indexOf(id) === i),
+      measuredHere: measuredOnKnown && supply.id === measuredOn,
+      measuredElsewhere: measuredOnKnown && supply.id !== measuredOn,
+      names: ctx.batteries,
+    };
+    verdicts.push(evaluateSupply(inputs, supply, model, classRules, threshold, messages, site));
   }
   let status: Status = 'clear';
   for (const v of verdicts) if (compareStatus(v.status, status) < 0) status = v.status;
@@ -58,6 +75,23 @@ function finite(k: Known): Known {
   return k.value === null || Number.isFinite(k.value) ? k : lacking();
 }
 
+/** What a supply's verdict needs to know about the rest of the build. */
+interface SupplySite {
+  /** Pack ids of this supply that the build names more than once. */
+  repeated: string[];
+  /** The measured currents were logged on this supply. */
+  measuredHere: boolean;
+  /** They were logged on another supply of the build. */
+  measuredElsewhere: boolean;
+  names: BuildContext['batteries'];
+}
+
+interface RuleOverride {
+  what?: string;
+  limitName?: string;
+  batteryId?: string;
+}
+
 interface RuleEnv {
   findings: Finding[];
   threshold: number;
@@ -67,16 +101,17 @@ interface RuleEnv {
   messages: boolean;
 }
 
-function pushRule(env: RuleEnv, id: BuiltInRuleId, value: Known, limit: Known, source?: 'model' | 'measured'): void {
+function pushRule(env: RuleEnv, id: BuiltInRuleId, value: Known, limit: Known, source?: 'model' | 'measured', over?: RuleOverride): void {
   const t = RULE_TEXT[id];
+  const what = over?.what ?? t.what;
   const check: LimitCheck = {
     rule: id,
     unit: t.unit,
     value: finite(value),
     limit: finite(limit),
     tightThreshold: t.ratedMaximum ? 0 : env.threshold,
-    what: env.several && t.perMotor ? `${t.what} per motor` : t.what,
-    limitName: t.limitName,
+    what: env.several && t.perMotor ? `${what} per motor` : what,
+    limitName: over?.limitName ?? t.limitName,
     risk: env.lithium && t.riskLithium ? t.riskLithium : t.risk,
     fix: t.fix,
     tightHint: t.tightHint,
@@ -84,7 +119,76 @@ function pushRule(env: RuleEnv, id: BuiltInRuleId, value: Known, limit: Known, s
   };
   if (source) check.source = source;
   if (source === 'model' && env.modelAssumed.length > 0) check.assumed = env.modelAssumed;
-  env.findings.push(checkLimit(check));
+  const finding = checkLimit(check);
+  if (over?.batteryId) finding.batteryId = over.batteryId;
+  env.findings.push(finding);
+}
+
+const pct = (x: number): string => `${Math.round(x * 100)} %`;
+
+/**
+ * A pack rule judged pack by pack: each pack's share of the supply current against its own
+ * rating. The finding reports the worst pack; a pack past its rating wins over one whose
+ * rating is missing, which wins over the smallest margin.
+ */
+function pushPackRule(
+  env: RuleEnv,
+  id: 'battery-continuous' | 'battery-burst',
+  totalA: Known,
+  s: SupplyModel | null,
+  noSupply: Known,
+  source: 'model' | 'measured',
+): void {
+  if (s === null) {
+    pushRule(env, id, totalA, noSupply, source);
+    return;
+  }
+  const limitOf = (p: PackModel): Known => (id === 'battery-continuous' ? p.continuousLimitA : p.burstLimitA);
+  const single = s.packs.length === 1;
+  let worst = -1;
+  let worstMargin = Infinity;
+  const lacks: Known[] = [];
+  s.packs.forEach((p, k) => {
+    const limit = limitOf(p).value;
+    if (limit === null) {
+      lacks.push(limitOf(p));
+      return;
+    }
+    if (totalA.value === null || !(limit > 0)) return;
+    const margin = (limit - totalA.value * (s.shares[k]?.share ?? 1)) / limit;
+    if (margin < worstMargin) {
+      worstMargin = margin;
+      worst = k;
+    }
+  });
+  const pack = s.packs[worst];
+  if (totalA.value === null || pack === undefined || (worstMargin >= 0 && lacks.length > 0)) {
+    pushRule(env, id, totalA, lacks.length > 0 ? lacking(...missingOf(...lacks)) : pack ? limitOf(pack) : lacking(...missingOf(...s.packs.map(limitOf))), source);
+    return;
+  }
+  const share = s.shares[worst] ?? { share: 1, bound: false };
+  const value = known(totalA.value * share.share);
+  if (single) {
+    pushRule(env, id, value, limitOf(pack), source, { batteryId: pack.id });
+    return;
+  }
+  const kind = id === 'battery-continuous' ? 'continuous' : 'burst';
+  let what = '';
+  if (env.messages) {
+    const label = id === 'battery-continuous' ? 'Continuous current' : 'Peak current';
+    const split =
+      s.arrangement === 'series'
+        ? 'packs in series each carry the whole current'
+        : share.bound
+          ? `up to ${pct(share.share)} of the supply's ${messageNumber(totalA.value)} A: not every pack's resistance is measured, so the most it could carry`
+          : `${pct(share.share)} of the supply's ${messageNumber(totalA.value)} A, split by conductance`;
+    what = `${label} through pack "${pack.name}" (${split})`;
+  }
+  pushRule(env, id, value, limitOf(pack), source, {
+    what,
+    limitName: `that pack's ${kind} rating (${kind === 'burst' ? 'burst ' : ''}C rating × capacity)`,
+    batteryId: pack.id,
+  });
 }
 
 function evaluateSupply(
@@ -94,6 +198,7 @@ function evaluateSupply(
   classRules: BuildContext['classRules'],
   threshold: number,
   messages: boolean,
+  site: SupplySite,
 ): SupplyVerdict {
   const s = model.value;
   const supplyLack = model.missing ?? [];
@@ -103,37 +208,71 @@ function evaluateSupply(
   const cutoffV = s ? known(s.cutoffV) : noSupply;
   const capacityMah = s ? known(s.capacityMah) : noSupply;
   const packR: Known = s ? (s.resistanceOhm === null ? lacking('battery.cellResistanceOhm') : known(s.resistanceOhm)) : noSupply;
+  const kind = inp.kind.value;
+  const ground = kind === 'car' || kind === 'truck';
+  const propellerBuild = kind !== null ? !ground : inp.hasPropeller;
+  const notApplicable = lacking(NOT_APPLICABLE);
+  const assumptions: string[] = [];
+  const say = (text: string): void => {
+    if (messages) assumptions.push(text);
+  };
 
   const kt = inp.kv.value !== null ? known(torqueConstant(inp.kv.value)) : inp.kv;
   const noLoadRpm = times(inp.kv, nominalV, product);
   const noLoadRpmFull = times(inp.kv, fullV, product);
-  const rollout = times(inp.tireDiameterMm, inp.finalDrive, rolloutMm);
-  const theoretical =
-    noLoadRpm.value !== null && inp.finalDrive.value !== null && inp.tireDiameterMm.value !== null
+  // A propeller build has no tyre: its speed figure is the pitch speed, through its gearbox.
+  const finalDrive = propellerBuild ? known(inp.propGearRatio) : inp.finalDrive;
+  const rollout = propellerBuild ? notApplicable : times(inp.tireDiameterMm, inp.finalDrive, rolloutMm);
+  const theoretical = propellerBuild
+    ? notApplicable
+    : noLoadRpm.value !== null && inp.finalDrive.value !== null && inp.tireDiameterMm.value !== null
       ? known(speedKmhAt(noLoadRpm.value, inp.finalDrive.value, inp.tireDiameterMm.value))
       : lacking(...missingOf(noLoadRpm, inp.finalDrive, inp.tireDiameterMm));
+  const pitchSpeed = !propellerBuild
+    ? notApplicable
+    : noLoadRpm.value !== null && inp.pitchMm.value !== null
+      ? known(mpsToKmh((inp.pitchMm.value / 1000) * (noLoadRpm.value / inp.propGearRatio / 60)))
+      : lacking(...missingOf(noLoadRpm, inp.pitchMm));
 
   const op = operate(inp, model);
   const n = inp.motorCount.value;
 
-  // Measured currents are for the whole supply; the model's are per motor.
-  const peakSource = inp.measuredPeakA ? 'measured' : 'model';
-  const contSource = inp.measuredAverageA ? 'measured' : 'model';
-  const peakA: Known = inp.measuredPeakA ?? times(op.peakMotorA, inp.motorCount, product);
-  const contA: Known = inp.measuredAverageA ?? times(op.continuousMotorA, inp.motorCount, product);
+  // Measured currents are for the whole supply they were logged on; the model's are per motor.
+  const measuredPeak = site.measuredHere ? inp.measuredPeakA : null;
+  const measuredAvg = site.measuredHere ? inp.measuredAverageA : null;
+  const modelPeakA = times(op.peakMotorA, inp.motorCount, product);
+  const modelContA = times(op.continuousMotorA, inp.motorCount, product);
+  // A measured peak below the model's continuous current is more likely a logging slip than a
+  // kinder truth: it does not replace the model.
+  const suspect =
+    measuredPeak !== null && measuredPeak.value !== null && modelContA.value !== null && measuredPeak.value < modelContA.value;
+  const usePeak = measuredPeak !== null && !suspect ? measuredPeak : null;
+  const peakSource = usePeak ? 'measured' : 'model';
+  const contSource = measuredAvg ? 'measured' : 'model';
+  const peakA: Known = usePeak ?? modelPeakA;
+  const contA: Known = measuredAvg ?? modelContA;
   const motorPeakA = times(peakA, inp.motorCount, quotient);
   const motorContA = times(contA, inp.motorCount, quotient);
 
   const rPackModel = s?.modelResistanceOhm ?? 0;
   const loadedV =
     peakA.value !== null && fullV.value !== null ? known(Math.max(0, fullV.value - peakA.value * rPackModel)) : lacking(...missingOf(peakA, fullV));
-  const peakPowerW = peakA.value !== null && loadedV.value !== null ? known(peakA.value * loadedV.value) : loadedV;
+  const peakPower = peakA.value !== null && loadedV.value !== null ? known(peakA.value * loadedV.value) : loadedV;
+  // Without a measured pack resistance there is no sag to take off: the figure is shown only
+  // under its own name, which says so.
+  const peakPowerW = packR.value === null ? lacking(...missingOf(peakPower, packR)) : peakPower;
+  const peakPowerNoSagW = packR.value === null ? peakPower : notApplicable;
   const loadedVoltageV = packR.value === null ? lacking(...missingOf(loadedV, packR)) : loadedV;
   // Power at the motor's own terminals: the pack drop of all motors and its controller's drop come off.
   const motorPeakPowerW =
     motorPeakA.value !== null && fullV.value !== null && n !== null
       ? known(motorPeakA.value * Math.max(0, fullV.value - motorPeakA.value * (n * rPackModel + inp.controllerResistanceOhm)))
       : lacking(...missingOf(motorPeakA, fullV, inp.motorCount));
+
+  // The tip speed limit: a fraction of the speed of sound, or the maker's rpm limit where stricter.
+  const machLimit = PROP_TIP_MACH_LIMIT * SPEED_OF_SOUND_SEA_LEVEL;
+  const makerLimit = inp.propMaxRpm !== null && inp.propDiameterM.value !== null ? tipSpeed(inp.propMaxRpm / 60, inp.propDiameterM.value) : null;
+  const tipLimit = makerLimit !== null && makerLimit < machLimit ? makerLimit : machLimit;
 
   const anyCurrent = peakA.value !== null || contA.value !== null;
   const entries: Record<string, Known> = {
@@ -145,16 +284,28 @@ function evaluateSupply(
     torqueConstantNmPerA: kt,
     noLoadRpm,
     noLoadRpmFull,
-    finalDriveRatio: inp.finalDrive,
+    finalDriveRatio: finalDrive,
     rolloutMm: rollout,
     theoreticalSpeedKmh: theoretical,
+    pitchSpeedKmh: pitchSpeed,
     loadedTopSpeedKmh: op.loadedTopSpeedKmh,
     peakCurrentA: peakA,
     continuousCurrentA: contA,
+    steadyCurrentA: times(op.steadyMotorA, inp.motorCount, product),
+    runRmsCurrentA: times(op.runRmsMotorA, inp.motorCount, product),
+    runAverageCurrentA: times(op.runAverageMotorA, inp.motorCount, product),
+    runLengthS: ground ? known(inp.runLengthS) : notApplicable,
     peakPowerW,
+    peakPowerNoSagW,
     loadedVoltageV,
     thrustN: op.thrustN,
     tipSpeedMps: op.tipSpeedMps,
+    tipSpeedStaticMps: op.tipSpeedStaticMps,
+    tipSpeedLimitMps: propellerBuild && inp.propDiameterM.value !== null ? known(tipLimit) : notApplicable,
+    propellerRpmStatic: op.propRpmStatic,
+    propellerRpmUnloaded: op.propRpmUnloaded,
+    drivenWeightShare: ground ? known(inp.drivenShare) : notApplicable,
+    fluidDensityKgM3: propellerBuild ? known(inp.fluidDensity) : notApplicable,
     loadedRpm: op.loadedRpm,
     loadedRpmFull: op.loadedRpmFull,
     motorPeakCurrentA: motorPeakA,
@@ -180,7 +331,25 @@ function evaluateSupply(
     loadedVoltageV: null,
     thrustN: null,
     tipSpeedMps: null,
-    currentSource: anyCurrent ? (inp.measuredPeakA || inp.measuredAverageA ? 'measured' : 'model') : null,
+    // Every key up front: one object shape for every supply, which keeps the hot path fast.
+    pitchSpeedKmh: null,
+    steadyCurrentA: null,
+    runRmsCurrentA: null,
+    runAverageCurrentA: null,
+    runLengthS: null,
+    peakPowerNoSagW: null,
+    tipSpeedStaticMps: null,
+    tipSpeedLimitMps: null,
+    propellerRpmStatic: null,
+    propellerRpmUnloaded: null,
+    drivenWeightShare: null,
+    fluidDensityKgM3: null,
+    loadedRpm: null,
+    loadedRpmFull: null,
+    motorPeakCurrentA: null,
+    motorContinuousCurrentA: null,
+    motorPeakPowerW: null,
+    currentSource: anyCurrent ? (usePeak || measuredAvg ? 'measured' : 'model') : null,
     peakCurrentSource: peakA.value !== null ? peakSource : null,
     continuousCurrentSource: contA.value !== null ? contSource : null,
   };
@@ -195,6 +364,11 @@ function evaluateSupply(
 
   const findings: Finding[] = [];
   if (s?.mismatch) findings.push(mismatchFinding(s));
+  for (const id of site.repeated) findings.push(packFinding(PACK_REPEATED_RULE_ID, id, site.names.get(id)?.name ?? id, messages));
+  for (const id of new Set(supply.batteryIds)) {
+    const b = site.names.get(id);
+    if (b?.retired) findings.push(packFinding(PACK_RETIRED_RULE_ID, id, b.name, messages));
+  }
 
   const modelAssumed: string[] = [];
   if (s && s.resistanceOhm === null) modelAssumed.push('battery.cellResistanceOhm');
@@ -203,17 +377,91 @@ function evaluateSupply(
   pushRule(env, 'controller-voltage', fullV, inp.controllerMaxVoltageV);
   pushRule(env, 'motor-voltage', fullV, inp.motorMaxVoltageV);
   pushRule(env, 'motor-speed', noLoadRpmFull, inp.motorMaxRpm);
-  pushRule(env, 'battery-continuous', contA, s ? s.continuousLimitA : noSupply, contSource);
-  pushRule(env, 'battery-burst', peakA, s ? s.burstLimitA : noSupply, peakSource);
+  pushPackRule(env, 'battery-continuous', contA, s, noSupply, contSource);
+  pushPackRule(env, 'battery-burst', peakA, s, noSupply, peakSource);
   pushRule(env, 'controller-continuous', motorContA, inp.controllerContinuousA, contSource);
   pushRule(env, 'controller-burst', motorPeakA, inp.controllerBurstA, peakSource);
   pushRule(env, 'motor-current', motorPeakA, inp.motorMaxCurrentA, peakSource);
   pushRule(env, 'motor-power', motorPeakPowerW, inp.motorMaxPowerW, peakSource);
-  const kind = inp.kind.value;
   if ((kind !== null && AIR_KINDS.includes(kind)) || (kind === null && inp.hasPropeller)) {
-    pushRule(env, 'prop-tip-speed', op.tipSpeedMps, known(PROP_TIP_MACH_LIMIT * SPEED_OF_SOUND_SEA_LEVEL));
+    const byMaker = makerLimit !== null && makerLimit < machLimit;
+    pushRule(env, 'prop-tip-speed', op.tipSpeedMps, known(tipLimit), undefined, byMaker
+      ? { limitName: `the propeller maker's limit of ${messageNumber(inp.propMaxRpm ?? 0)} rpm` }
+      : undefined);
   }
   for (const f of classFindings(classRules, figures, figureMissing, threshold)) findings.push(f);
+
+  const packShares: PackShare[] = [];
+  if (s) {
+    s.packs.forEach((p, k) => {
+      const share = s.shares[k] ?? { share: 1, bound: false };
+      packShares.push({
+        batteryId: p.id,
+        name: p.name,
+        share: share.share,
+        bound: share.bound,
+        continuousA: contA.value === null ? null : contA.value * share.share,
+        peakA: peakA.value === null ? null : peakA.value * share.share,
+        continuousLimitA: p.continuousLimitA.value,
+        burstLimitA: p.burstLimitA.value,
+      });
+    });
+  }
+
+  if (messages) {
+    if (s && s.arrangement === 'parallel' && s.packs.length > 1) {
+      const bound = s.shares.some((x) => x.bound);
+      say(
+        bound
+          ? 'Parallel packs: not every pack\u2019s resistance is measured, so the split of the current is not known. Each unmeasured pack is judged as if it carried the whole current, and each measured pack on its share among the measured ones only: the most pessimistic split the data allows.'
+          : 'Parallel packs share the current by conductance (1 \u00f7 resistance): each carries I \u00b7 G\u2096 \u00f7 \u03a3G and is judged against its own rating.',
+      );
+    }
+    if (s && s.resistanceOhm === null) say('Pack resistance not measured: taken as zero, which reads every current on the high side; peak power is shown assuming no sag.');
+    if (inp.controllerResistanceAssumed) say('Controller resistance not known: taken as zero, which reads every current on the high side.');
+    if (ground && op.runRmsMotorA.value !== null) {
+      say(
+        `Continuous current: the larger of the RMS current over a ${messageNumber(inp.runLengthS)} s full-throttle run from standstill (${inp.runLengthDefault ? 'the default run length; set one on the build' : 'as set on the build'}) and the steady current at top speed. The run ignores the inertia of wheels, gears and rotor.`,
+      );
+      if (inp.tractionCoefficient.value === null) say('Traction coefficient not recorded: the run takes no wheelspin limit, which reads the current on the high side.');
+    }
+    if (ground) {
+      const src =
+        inp.drivenShareSource === 'recorded'
+          ? 'as recorded for the vehicle'
+          : inp.drivenShareSource === '2wd'
+            ? '2WD default; record the measured share for a closer figure'
+            : inp.drivenShareSource === '4wd'
+              ? '4WD: all of the weight'
+              : 'drive layout not recorded: all of the weight, the high-current side';
+      say(`Weight on the driven wheels: ${pct(inp.drivenShare)} (${src}).`);
+    }
+    if (propellerBuild) {
+      say('Propeller: the static full-throttle current stands for both peak and continuous current. Tip speed is judged at the highest rpm the propeller can reach, Kv \u00d7 (full-charge voltage \u2212 no-load current \u00d7 resistance), which it approaches as it unloads on the move.');
+      if (inp.propGeared) say(`Gearbox: the propeller turns at motor rpm \u00f7 ${messageNumber(inp.propGearRatio)}, with the drivetrain efficiency taken off.`);
+      if (kind === 'boat') {
+        say(
+          inp.waterAssumed
+            ? `Water type not recorded: sea water taken (${SEA_WATER_DENSITY} kg/m\u00b3), the denser and so the higher current.`
+            : inp.fluidDensity === SEA_WATER_DENSITY
+              ? `Sea water, ${SEA_WATER_DENSITY} kg/m\u00b3.`
+              : `Fresh water, ${FRESH_WATER_DENSITY} kg/m\u00b3.`,
+        );
+      }
+    }
+    if (suspect && measuredPeak?.value != null && modelContA.value !== null) {
+      say(
+        `The measured peak of ${messageNumber(measuredPeak.value)} A is below the model's continuous current of ${messageNumber(modelContA.value)} A: it looks suspect (a logger set to average, or logged on another pack), so the model's peak is judged instead.`,
+      );
+    }
+    if ((inp.measuredPeakA || inp.measuredAverageA) && !site.measuredHere) {
+      say(
+        site.measuredElsewhere
+          ? 'The measured currents were logged on another supply of this build; this supply is judged on the model.'
+          : 'The measured currents are not tied to a supply of this build (name the supply they were logged on); every supply is judged on the model.',
+      );
+    }
+  }
 
   return {
     supplyId: supply.id,
@@ -221,7 +469,21 @@ function evaluateSupply(
     status: worstFindingStatus(findings),
     figures,
     findings,
+    packShares,
+    assumptions,
   };
+}
+
+/** A pack that must not be in the build as it is (retired, or named twice): over, naming it. */
+function packFinding(rule: string, batteryId: string, name: string, messages: boolean): Finding {
+  let message = '';
+  if (messages) {
+    message =
+      rule === PACK_RETIRED_RULE_ID
+        ? `Pack retired: "${name}" is marked retired and must not be used. Retired lithium packs can fail under load; take it out of the build and dispose of it as the pack maker and local rules say.`
+        : `Pack listed twice: "${name}" appears more than once in this build, but one physical pack can only be in one place. Pick a second pack or remove the repeat.`;
+  }
+  return { rule, status: 'over', value: null, limit: null, unit: '', margin: null, message, batteryId };
 }
 
 function worstFindingStatus(findings: readonly Finding[]): Status {

@@ -1,5 +1,6 @@
 // Plain words for the inputs a finding can lack, so an incomplete verdict tells a technician
-// what to fill in. The field name itself follows in brackets for searching the records.
+// what to fill in. Messages carry the words only; the field paths stay in a finding's
+// `missing` list, which the screens turn into links to the field itself.
 
 const LABELS: Readonly<Record<string, string>> = {
   'build.vehicleId': 'a vehicle for the build',
@@ -40,6 +41,7 @@ const LABELS: Readonly<Record<string, string>> = {
   'gearing.tireDiameterMm': 'the tyre diameter',
   'gearing.drivetrainEfficiency': 'the drivetrain efficiency (above 0, at most 1)',
   'propeller.diameterMm': 'the propeller diameter',
+  'propeller.pitchMm': 'the propeller pitch',
   'propeller.powerCoefficient': 'the propeller power coefficient (C_P)',
   'propeller.thrustCoefficient': 'the propeller thrust coefficient (C_T)',
   'classRule.limit': 'a class limit above zero',
@@ -51,9 +53,9 @@ export function fieldLabel(field: string): string {
   return LABELS[field] ?? field;
 }
 
-/** "the motor Kv (motor.kv) and the pack capacity (battery.capacityMah)". */
+/** "the motor Kv and the pack capacity"; a path without words is named as "an input Rigbook needs". */
 export function describeMissing(fields: readonly string[]): string {
-  const parts = fields.map((f) => (LABELS[f] ? `${LABELS[f]} (${f})` : f));
+  const parts = [...new Set(fields.map((f) => LABELS[f] ?? 'an input Rigbook needs'))];
   if (parts.length <= 1) return parts[0] ?? 'inputs that are out of range';
   return `${parts.slice(0, -1).join(', ')} and ${parts[parts.length - 1]}`;
 }

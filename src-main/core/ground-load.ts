@@ -15,12 +15,13 @@ export interface Driveline {
 }
 
 /**
- * Per-motor launch current: the smaller of the current that spins the tyres (μ·m·g at the
- * tyre, back through the gearing and its losses, through Kt, plus I0) and the stall current.
+ * Per-motor launch current: the smaller of the current that spins the tyres (μ·m·g on the
+ * driven wheels at the tyre, back through the gearing and its losses, through Kt, plus I0) and
+ * the stall current. `drivenShare` is the share of the weight on the driven wheels (1 for 4WD).
  */
-export function launchCurrent(m: MotorParams, voltageV: number, d: Driveline, tractionCoefficient: number, massKg: number): number {
+export function launchCurrent(m: MotorParams, voltageV: number, d: Driveline, tractionCoefficient: number, massKg: number, drivenShare = 1): number {
   const radiusM = d.tireDiameterMm / 2000;
-  const motorTorque = (tractionLimit(tractionCoefficient, massKg) * radiusM) / d.finalDrive / d.efficiency / d.motorCount;
+  const motorTorque = (tractionLimit(tractionCoefficient, massKg) * drivenShare * radiusM) / d.finalDrive / d.efficiency / d.motorCount;
   // Kt = 1/Kv in SI, so I = Q·Kv + I0.
   const tractionCurrent = motorTorque * m.kvRad + m.noLoadCurrentA;
   return Math.min(tractionCurrent, stallCurrent(m, voltageV));

@@ -1,4 +1,5 @@
-import type { Battery } from './domain';
+import type { Battery, Chemistry } from './domain';
+import { isPlausible } from './plausibility';
 import { cellVoltages, isLithium, type CellVoltages } from './chemistry';
 import { count, known, lacking, missingOf, positive, type Known } from './known';
 
@@ -7,6 +8,8 @@ export interface PackModel {
   readonly id: string;
   readonly name: string;
   readonly lithium: boolean;
+  readonly chemistry: Chemistry;
+  readonly retired: boolean;
   readonly cellsSeries: number;
   readonly nominalV: number;
   readonly fullV: number;
@@ -44,7 +47,9 @@ export function packModel(battery: Battery): Known<PackModel> {
   if (series.value === null || parallel.value === null || capacity.value === null || chemistry.value === null) {
     return lacking(...missingOf(chemistry, series, parallel, capacity));
   }
+  // Zero or an implausible figure counts as never measured: the model then takes the safe side.
   const cellR = positive(battery.cellResistanceOhm, 'battery.cellResistanceOhm');
+  const cellOhm = cellR.value !== null && isPlausible('battery.cellResistanceOhm', cellR.value) ? cellR.value : null;
   const cCont = positive(battery.cRatingContinuous, 'battery.cRatingContinuous');
   const cBurst = positive(battery.cRatingBurst, 'battery.cRatingBurst');
   const s = series.value;
@@ -52,11 +57,13 @@ export function packModel(battery: Battery): Known<PackModel> {
     id: battery.id,
     name: battery.name,
     lithium: isLithium(battery.chemistry),
+    chemistry: battery.chemistry,
+    retired: battery.retired === true,
     cellsSeries: s,
     nominalV: s * chemistry.value.nominalV,
     fullV: s * chemistry.value.fullV,
     cutoffV: s * chemistry.value.cutoffV,
-    resistanceOhm: cellR.value === null ? null : packResistance(cellR.value, s, parallel.value),
+    resistanceOhm: cellOhm === null ? null : packResistance(cellOhm, s, parallel.value),
     capacityMah: capacity.value,
     continuousLimitA: cCont.value === null ? cCont : known(cRatingCurrent(cCont.value, capacity.value)),
     burstLimitA: cBurst.value === null ? cBurst : known(cRatingCurrent(cBurst.value, capacity.value)),

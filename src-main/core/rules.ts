@@ -20,7 +20,13 @@ export type BuiltInRuleId = (typeof BUILT_IN_RULE_IDS)[number];
  */
 export const SUPPLY_MATCH_RULE_ID = 'supply-match';
 
-export const RESERVED_RULE_IDS: readonly string[] = [...BUILT_IN_RULE_IDS, SUPPLY_MATCH_RULE_ID];
+/** A pack marked retired is in the build: over, whatever the figures say. */
+export const PACK_RETIRED_RULE_ID = 'pack-retired';
+
+/** One physical pack named twice in one build (in one supply or in two): over. */
+export const PACK_REPEATED_RULE_ID = 'pack-repeated';
+
+export const RESERVED_RULE_IDS: readonly string[] = [...BUILT_IN_RULE_IDS, SUPPLY_MATCH_RULE_ID, PACK_RETIRED_RULE_ID, PACK_REPEATED_RULE_ID];
 
 export interface RuleText {
   readonly unit: string;
@@ -137,13 +143,13 @@ export const RULE_TEXT: Readonly<Record<BuiltInRuleId, RuleText>> = {
   },
   'prop-tip-speed': {
     unit: 'm/s',
-    what: 'Propeller tip speed',
-    limitName: '85 % of the speed of sound',
+    what: 'Propeller tip speed at the highest rpm it can reach (unloaded, full charge)',
+    limitName: '85 % of the speed of sound (340.294 m/s at 15 °C, ISA)',
     risk:
       'Near the speed of sound the propeller loses thrust, gets very loud and is stressed beyond its design; ' +
       'a propeller that breaks at speed throws pieces that injure. Keep clear of turning propellers.',
     fix: 'Use a smaller propeller, a lower-Kv motor or fewer cells.',
-    tightHint: 'A larger propeller or more cells would pass it.',
+    tightHint: 'Little headroom: do not fit a larger propeller, more cells or a higher-Kv motor without checking again.',
     perMotor: true,
   },
 };

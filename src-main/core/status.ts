@@ -1,13 +1,14 @@
 import type { Status } from './domain';
 
-const RANK: Readonly<Record<Status, number>> = { over: 0, tight: 1, incomplete: 2, clear: 3 };
+// A check that cannot be made is worse news than a known small margin.
+const RANK: Readonly<Record<Status, number>> = { over: 0, incomplete: 1, tight: 2, clear: 3 };
 
 /** Negative when `a` is worse than `b`: sorts worst first. */
 export function compareStatus(a: Status, b: Status): number {
   return RANK[a] - RANK[b];
 }
 
-/** The worst of several verdicts: over, then tight, then incomplete, then clear. Nothing to judge reads clear. */
+/** The worst of several verdicts: over, then incomplete, then tight, then clear. Nothing to judge reads clear. */
 export function worstStatus(statuses: Iterable<Status>): Status {
   let worst: Status = 'clear';
   for (const s of statuses) if (RANK[s] < RANK[worst]) worst = s;

@@ -2,9 +2,20 @@ import type { Battery, Supply } from './domain';
 import { known, lacking, missingOf, type Known } from './known';
 import { packModel, type PackModel } from './pack';
 
+/** One pack's share of its supply's current. */
+export interface ShareOfCurrent {
+  /** Fraction of the supply current, 0 to 1. */
+  readonly share: number;
+  /** True where it is the pessimistic bound because some resistance in the supply is not measured. */
+  readonly bound: boolean;
+}
+
 /** A supply (packs in series or in parallel) as one source, SI. */
 export interface SupplyModel {
+  readonly arrangement: 'series' | 'parallel';
   readonly packs: readonly PackModel[];
+  /** Per pack, in order: the share of the supply current it is judged on. */
+  readonly shares: readonly ShareOfCurrent[];
   readonly seriesCells: number;
   readonly nominalV: number;
   readonly fullV: number;
@@ -17,8 +28,6 @@ export interface SupplyModel {
    */
   readonly modelResistanceOhm: number;
   readonly capacityMah: number;
-  readonly continuousLimitA: Known;
-  readonly burstLimitA: Known;
   readonly lithium: boolean;
   /** Plain-language reason the packs must not be combined this way; null when they may. */
   readonly mismatch: string | null;
@@ -42,7 +51,9 @@ export function supplyModel(supply: Supply, batteries: ReadonlyMap<string, Batte
   return known(supply.arrangement === 'parallel' ? combineParallel(packs) : combineSeries(packs));
 }
 
-/** Packs in series: voltages and resistances add; capacity and current limits are the smallest pack's. */
+const WHOLE: ShareOfCurrent = { share: 1, bound: false };
+
+/** Packs in series: voltages and resistances add; every pack carries the whole current. */
 export function combineSeries(packs: readonly PackModel[]): SupplyModel {
   let seriesCells = 0;
   let nominalV = 0;
@@ -61,7 +72,9 @@ export function combineSeries(packs: readonly PackModel[]): SupplyModel {
     capacityMah = Math.min(capacityMah, p.capacityMah);
   }
   return {
+    arrangement: 'series',
     packs,
+    shares: packs.map(() => WHOLE),
     seriesCells,
     nominalV,
     fullV,
@@ -69,17 +82,34 @@ export function combineSeries(packs: readonly PackModel[]): SupplyModel {
     resistanceOhm: rKnown ? r : null,
     modelResistanceOhm: r,
     capacityMah,
-    // Every pack in series carries the whole current, so the weakest sets the limit.
-    continuousLimitA: smallestLimit(packs.map((p) => p.continuousLimitA)),
-    burstLimitA: smallestLimit(packs.map((p) => p.burstLimitA)),
     lithium: packs.some((p) => p.lithium),
     mismatch: null,
   };
 }
 
 /**
+ * How parallel packs share a current. Packs in parallel see the same voltage, so each carries
+ * I·G_k/ΣG with G = 1/R (current division). Where a resistance is not measured, the split is
+ * not known, so each pack is judged on the most it could carry: an unmeasured pack could be
+ * the stiffest and take (nearly) all of it; a measured pack carries at most its share among
+ * the measured packs (the unmeasured ones taking nothing).
+ */
+export function parallelShares(resistancesOhm: readonly (number | null)[]): ShareOfCurrent[] {
+  let known = 0;
+  let anyUnknown = false;
+  for (const r of resistancesOhm) {
+    if (r === null || !(r > 0)) anyUnknown = true;
+    else known += 1 / r;
+  }
+  return resistancesOhm.map((r) => {
+    if (r === null || !(r > 0)) return { share: 1, bound: true };
+    return { share: 1 / r / known, bound: anyUnknown };
+  });
+}
+
+/**
  * Packs in parallel: capacities add, resistances combine in parallel. Packs must have the same
- * cell count and chemistry, or the fuller pack drives current into the other; a mismatch is
+ * chemistry and cell count, or the fuller pack drives current into the other; a mismatch is
  * reported, and the figures then take the highest pack voltage (the safe side for voltage
  * limits).
  */
@@ -89,23 +119,24 @@ export function combineParallel(packs: readonly PackModel[]): SupplyModel {
   let cutoffV = 0;
   let conductance = 0;
   let rKnown = true;
-  let anyZero = false;
   let capacityMah = 0;
   for (const p of packs) {
     nominalV = Math.max(nominalV, p.nominalV);
     fullV = Math.max(fullV, p.fullV);
     cutoffV = Math.max(cutoffV, p.cutoffV);
-    if (p.resistanceOhm === null) rKnown = false;
-    else if (p.resistanceOhm === 0) anyZero = true;
+    if (p.resistanceOhm === null || !(p.resistanceOhm > 0)) rKnown = false;
     else conductance += 1 / p.resistanceOhm;
     capacityMah += p.capacityMah;
   }
-  const r = !rKnown || anyZero || conductance === 0 ? 0 : 1 / conductance;
+  const r = !rKnown || conductance === 0 ? 0 : 1 / conductance;
   const first = packs[0];
   const mismatched =
-    first !== undefined && packs.some((p) => p.cellsSeries !== first.cellsSeries || p.fullV !== first.fullV);
+    first !== undefined &&
+    packs.some((p) => p.cellsSeries !== first.cellsSeries || p.chemistry !== first.chemistry || p.fullV !== first.fullV);
   return {
+    arrangement: 'parallel',
     packs,
+    shares: parallelShares(packs.map((p) => p.resistanceOhm)),
     seriesCells: first?.cellsSeries ?? 0,
     nominalV,
     fullV,
@@ -113,36 +144,12 @@ export function combineParallel(packs: readonly PackModel[]): SupplyModel {
     resistanceOhm: rKnown ? r : null,
     modelResistanceOhm: r,
     capacityMah,
-    continuousLimitA: sharedLimit(packs, (p) => p.continuousLimitA, capacityMah),
-    burstLimitA: sharedLimit(packs, (p) => p.burstLimitA, capacityMah),
     lithium: packs.some((p) => p.lithium),
     mismatch: mismatched
-      ? 'Packs in parallel must have the same cell count and chemistry. Connected like this, the ' +
+      ? 'Packs in parallel must have the same chemistry and cell count. Connected like this, the ' +
         'fuller pack pushes a large current into the other one at once: wires, connectors and ' +
-        'lithium packs can overheat and catch fire. Use matched packs at the same charge level.'
+        'lithium packs can overheat and catch fire. Use matched packs, and connect them only when ' +
+        'their voltages are within 0.1 V per cell of each other (measure first).'
       : null,
   };
-}
-
-function smallestLimit(limits: readonly Known[]): Known {
-  let min = Infinity;
-  for (const l of limits) {
-    if (l.value === null) return lacking(...missingOf(...limits));
-    min = Math.min(min, l.value);
-  }
-  return known(min);
-}
-
-/**
- * Parallel packs share current roughly by capacity, so the pack with the lowest C rating
- * reaches its rating first: the supply limit is total capacity × the lowest C rating.
- */
-function sharedLimit(packs: readonly PackModel[], pick: (p: PackModel) => Known, totalMah: number): Known {
-  let lowestC = Infinity;
-  for (const p of packs) {
-    const l = pick(p);
-    if (l.value === null) return lacking(...missingOf(...packs.map(pick)));
-    lowestC = Math.min(lowestC, l.value / (p.capacityMah / 1000));
-  }
-  return known((lowestC * totalMah) / 1000);
 }

@@ -8,6 +8,8 @@ export const METRE_PER_INCH = 0.0254;
 export const METRE_PER_FOOT = 0.3048;
 export const METRE_PER_MILE = 1609.344;
 export const KILOGRAM_PER_POUND = 0.45359237;
+/** The avoirdupois ounce is a sixteenth of the pound, so exact too. */
+export const KILOGRAM_PER_OUNCE = KILOGRAM_PER_POUND / 16;
 /** Pound-force is the pound mass under standard gravity, so this is exact too. */
 export const NEWTON_PER_POUND_FORCE = KILOGRAM_PER_POUND * STANDARD_GRAVITY;
 
@@ -29,6 +31,15 @@ export const mpsToFps = (mps: number): number => mps / METRE_PER_FOOT;
 export const fpsToMps = (fps: number): number => fps * METRE_PER_FOOT;
 export const newtonToLbf = (n: number): number => n / NEWTON_PER_POUND_FORCE;
 export const lbfToNewton = (lbf: number): number => lbf * NEWTON_PER_POUND_FORCE;
+export const kgToOz = (kg: number): number => kg / KILOGRAM_PER_OUNCE;
+export const ozToKg = (oz: number): number => oz * KILOGRAM_PER_OUNCE;
+/** Ounce-force inch: the ounce under standard gravity times an inch. */
+export const NEWTON_METRE_PER_OUNCE_INCH = KILOGRAM_PER_OUNCE * STANDARD_GRAVITY * METRE_PER_INCH;
+export const nmToOzIn = (nm: number): number => nm / NEWTON_METRE_PER_OUNCE_INCH;
+export const ozInToNm = (ozIn: number): number => ozIn * NEWTON_METRE_PER_OUNCE_INCH;
+/** A force as the mass it holds up under standard gravity: thrust in grams or ounces. */
+export const newtonToGramForce = (n: number): number => (n / STANDARD_GRAVITY) * 1000;
+export const newtonToOunceForce = (n: number): number => n / STANDARD_GRAVITY / KILOGRAM_PER_OUNCE;
 export const m2ToFt2 = (m2: number): number => m2 / (METRE_PER_FOOT * METRE_PER_FOOT);
 export const ft2ToM2 = (ft2: number): number => ft2 * METRE_PER_FOOT * METRE_PER_FOOT;
 export const rpmToRadPerS = (rpm: number): number => rpm * RAD_PER_S_PER_RPM;
@@ -42,7 +53,7 @@ export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
  * `speedKmh`, `lengthMm`, ...). Volts, amps, watts, rpm and Kv read the same in both systems
  * and are not listed.
  */
-export const DISPLAY_QUANTITIES = ['speedKmh', 'speedMps', 'lengthMm', 'massKg', 'forceN', 'areaM2'] as const;
+export const DISPLAY_QUANTITIES = ['speedKmh', 'speedMps', 'lengthMm', 'massKg', 'massSmallKg', 'forceN', 'areaM2', 'torqueNm'] as const;
 export type DisplayQuantity = (typeof DISPLAY_QUANTITIES)[number];
 
 interface DisplayUnit {
@@ -70,6 +81,16 @@ const DISPLAY_UNITS: Record<DisplayQuantity, Record<UnitSystem, DisplayUnit>> = 
     metric: { symbol: 'kg', fromStored: same, toStored: same },
     imperial: { symbol: 'lb', fromStored: kgToLb, toStored: lbToKg },
   },
+  // Small parts (packs, motors, controllers) are weighed in grams or ounces, as the trade does;
+  // the value is still stored in kilograms.
+  massSmallKg: {
+    metric: { symbol: 'g', fromStored: (kg) => kg * 1000, toStored: (g) => g / 1000 },
+    imperial: { symbol: 'oz', fromStored: kgToOz, toStored: ozToKg },
+  },
+  torqueNm: {
+    metric: { symbol: 'N·m', fromStored: same, toStored: same },
+    imperial: { symbol: 'oz·in', fromStored: nmToOzIn, toStored: ozInToNm },
+  },
   forceN: {
     metric: { symbol: 'N', fromStored: same, toStored: same },
     imperial: { symbol: 'lbf', fromStored: newtonToLbf, toStored: lbfToNewton },
@@ -92,4 +113,26 @@ export function fromDisplay(value: number, quantity: DisplayQuantity, system: Un
 
 export function displayUnit(quantity: DisplayQuantity, system: UnitSystem): string {
   return DISPLAY_UNITS[quantity][system].symbol;
+}
+
+/** The quantity a unit symbol in a finding stands for ("km/h" → speedKmh); null for units that read the same everywhere. */
+export function quantityOfUnit(symbol: string): DisplayQuantity | null {
+  switch (symbol) {
+    case 'km/h':
+      return 'speedKmh';
+    case 'm/s':
+      return 'speedMps';
+    case 'mm':
+      return 'lengthMm';
+    case 'kg':
+      return 'massKg';
+    case 'N':
+      return 'forceN';
+    case 'm²':
+      return 'areaM2';
+    case 'N·m':
+      return 'torqueNm';
+    default:
+      return null;
+  }
 }

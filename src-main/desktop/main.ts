@@ -16,6 +16,8 @@ import { PRINT_TO_PDF, printToPdf, type ShellCallContext } from './print-to-pdf'
 import { isTrustedSender } from './sender-check';
 import { APP_ENTRY_URL, isAppUrl } from './url-policy';
 import { secureWebPreferences } from './web-preferences';
+import { pageCallRefusal } from '../service/page-call-policy';
+import { describeStorageError } from '../store/storage-errors';
 
 // The bundle sits in dist-main/, next to preload.cjs, with dist-renderer/ beside dist-main/
 // both in the checkout and inside the packaged app.asar.
@@ -103,7 +105,9 @@ function run(dbPath: string): void {
       });
     })
     .catch((error: unknown) => {
-      dialog.showErrorBox('Rigbook could not start', error instanceof Error ? error.message : String(error));
+      const storage = describeStorageError(error, dbPath);
+      console.error('Rigbook could not start:', error);
+      dialog.showErrorBox('Rigbook could not start', storage ? storage.message : error instanceof Error ? error.message : String(error));
       app.exit(1);
     });
 }
@@ -114,7 +118,9 @@ function wireIpc(host: ServiceHost): void {
   );
   ipcMain.handle(CALL_CHANNEL, (event, name: unknown, args: unknown) => {
     if (!isTrustedSender(event.senderFrame)) throw new Error('Refused: the call did not come from the Rigbook page.');
-    return relay({ sender: event.sender }, name, args);
+    const refused = typeof name === 'string' ? pageCallRefusal('desktop', host.dbPath, name, args) : null;
+    if (refused) return { ok: false, error: refused };
+    return relay({ sender: event.sender, storePath: host.dbPath }, name, args);
   });
   host.subscribe((serviceEvent) => {
     for (const win of BrowserWindow.getAllWindows()) {

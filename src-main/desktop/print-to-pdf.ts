@@ -4,6 +4,7 @@ import { app, BrowserWindow, dialog, type WebContents } from 'electron';
 import * as v from 'valibot';
 import type { CallResult } from '../service/contract';
 import { pdfFileName } from './pdf-file-name';
+import { storeFileClash } from '../store/file-identity';
 
 export const PRINT_TO_PDF = 'desktop.printToPdf';
 
@@ -16,6 +17,8 @@ const PrintArgs = v.optional(
 
 export interface ShellCallContext {
   sender: WebContents;
+  /** The open store, which no file the shell writes may replace. */
+  storePath: string;
 }
 
 /** `desktop.printToPdf`: asks where to save, then writes the current page as a PDF. */
@@ -36,6 +39,8 @@ export async function printToPdf(context: ShellCallContext, args: unknown): Prom
   const choice = owner ? await dialog.showSaveDialog(owner, dialogOptions) : await dialog.showSaveDialog(dialogOptions);
   if (choice.canceled || !choice.filePath) return { ok: true, value: { saved: false } };
 
+  const clash = storeFileClash(choice.filePath, context.storePath);
+  if (clash) return { ok: false, error: { kind: 'invalid', message: `${choice.filePath} ${clash}; the build sheet was not saved. Choose another file.` } };
   const pdf = await context.sender.printToPDF({ printBackground: true, pageSize: 'A4', landscape: options.landscape ?? false });
   await writeFile(choice.filePath, pdf);
   return { ok: true, value: { saved: true, path: choice.filePath } };

@@ -5,6 +5,7 @@ import type { ServiceHost } from '../service/contract';
 import { CONTENT_SECURITY_POLICY } from './content-security-policy';
 import { hostAllowed, originAllowed, tokenMatches } from './request-guard';
 import { readStatic } from './static-files';
+import { pageCallRefusal } from '../service/page-call-policy';
 
 export const TOKEN_HEADER = 'x-rigbook-token';
 /** Large enough for a shop's whole fleet file; anything bigger is refused before parsing. */
@@ -109,7 +110,8 @@ export async function startLocalServer(options: LocalServerOptions): Promise<Loc
         return refuse(res, tooLarge ? 413 : 400, tooLarge ? "Request too large" : "Body is not valid JSON");
       }
       const name = decodeURIComponent(url.pathname.slice('/api/'.length));
-      const result = await options.host.call(name, args);
+      const refused = pageCallRefusal('loopback', options.host.dbPath, name, args);
+      const result = refused ? { ok: false as const, error: refused } : await options.host.call(name, args);
       return sendJson(res, 200, result);
     }
 

@@ -5,6 +5,7 @@ import { AUTO_BACKUP_AFTER_START_MS, AUTO_BACKUPS_KEPT, openServiceHost } from '
 import { startLocalServer } from './local-server';
 import { LOCAL_HELP, parseLocalArgs } from './command-line';
 import { EXIT } from '../cli/exit-codes';
+import { describeStorageError } from '../store/storage-errors';
 
 // Entry of the loopback shell: `node dist-main/local-main.cjs [--db PATH] [--port N]` (--help lists the options).
 
@@ -39,6 +40,8 @@ async function main(): Promise<void> {
 }
 
 main().catch((error: unknown) => {
-  process.stderr.write(`Rigbook could not start: ${error instanceof Error ? error.message : String(error)}\n`);
+  const storage = describeStorageError(error);
+  const cause = error instanceof Error ? error.message : String(error);
+  process.stderr.write(storage ? `Rigbook could not start. ${storage.message}\n  (${storage.code}: ${cause})\n` : `Rigbook could not start: ${cause}\n`);
   process.exit(1);
 });

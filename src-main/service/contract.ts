@@ -2,7 +2,12 @@
 // call by handler name, a result that is either a value or a plain error, and a stream of
 // change events. The typed view of each handler lives in handlers.ts.
 
-export const ERROR_KINDS = ['invalid', 'not-found', 'conflict', 'unknown-handler', 'internal'] as const;
+/**
+ * `disk-full`, `read-only` and `store-changed` are about the store file, not the input: the disk
+ * is full, the file or its folder cannot be written, or the file was deleted or replaced while
+ * the shell ran. Nothing was saved in each case, and the message says what to do.
+ */
+export const ERROR_KINDS = ['invalid', 'not-found', 'conflict', 'unknown-handler', 'internal', 'disk-full', 'read-only', 'store-changed'] as const;
 export type ErrorKind = (typeof ERROR_KINDS)[number];
 
 /** An error as the UI sees it: never a stack trace. `field` names the offending input. */

@@ -3,6 +3,7 @@ import { ServiceError, type ApiError, type CallResult } from './contract';
 import type { ServiceContext } from './service-context';
 import type { AnyHandler } from './define-handler';
 import { validate } from './validate';
+import { describeStorageError } from '../store/storage-errors';
 
 export function isHandlerName(name: string): name is HandlerName {
   // Own keys only: "constructor" or "__proto__" must not reach a prototype's function.
@@ -17,6 +18,12 @@ export function toApiError(error: unknown, log: (message: string) => void = (m) 
   // process committed fails with SQLITE_BUSY_SNAPSHOT, which is the same story for the user.
   if (typeof code === 'string' && (code.startsWith('SQLITE_BUSY') || code.startsWith('SQLITE_LOCKED'))) {
     return { kind: 'conflict', message: 'The store is busy with another write. Nothing was saved; try again.' };
+  }
+  const storage = describeStorageError(error);
+  if (storage) {
+    // The person gets what to do; the log keeps what the disk or SQLite said.
+    log(`store file: ${storage.code}: ${error instanceof Error ? error.message : String(error)}`);
+    return { kind: storage.problem === 'in-use' ? 'conflict' : storage.problem, message: storage.message };
   }
   if (typeof code === 'string' && code.startsWith('SQLITE_CONSTRAINT')) {
     log(`constraint: ${String((error as Error).message)}`);

@@ -7,6 +7,7 @@ import type { EventListener, ServiceHost } from './contract';
 import { dispatch } from './dispatch';
 import { recheckIfEngineChanged } from './engine-upgrade';
 import type { ServiceContext } from './service-context';
+import { StoreFileWatch } from '../store/file-identity';
 
 export interface HostOptions {
   dbPath: string;
@@ -48,7 +49,16 @@ export async function openServiceHost(
 ): Promise<ServiceHost & { ctx: ServiceContext; autoBackupPath: string | null; autoBackupDone: Promise<string | null> }> {
   // A store created just now holds nothing worth a copy.
   const existed = options.dbPath !== ':memory:' && existsSync(options.dbPath);
+  // The file's identity is taken before SQLite opens it: a restore that swaps the file in the
+  // meantime must not leave this host writing into the file it replaced.
+  const watchBefore = existed ? new StoreFileWatch(options.dbPath) : null;
   const store = await openStore(options.dbPath);
+  const storeFile = watchBefore ?? (options.dbPath === ':memory:' ? undefined : new StoreFileWatch(options.dbPath));
+  const changed = storeFile?.problem('opening') ?? null;
+  if (changed) {
+    await store.db.destroy();
+    throw new Error(changed);
+  }
   let autoBackupPath: string | null = null;
   const backUpAtStart = async (plan: NonNullable<HostOptions['autoBackup']>): Promise<string | null> => {
     try {
@@ -92,6 +102,7 @@ export async function openServiceHost(
     now: options.now ?? (() => new Date()),
     newId: options.newId ?? randomId,
     raw: store.raw,
+    ...(storeFile ? { storeFile } : {}),
     emit: (event) => {
       for (const listener of listeners) {
         try {

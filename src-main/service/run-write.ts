@@ -6,6 +6,7 @@ import { recheckBuilds } from './recheck';
 import { byIds, type BuildSelector } from '../store/build-selector';
 import type { BuildVerdict } from '../core/domain';
 import type { ServiceContext } from './service-context';
+import { ServiceError } from './contract';
 
 /** What a write did, as the work function reports it. */
 export interface WritePlan<R> {
@@ -50,6 +51,9 @@ export async function runWrite<R>(
   work: (trx: Transaction<Db>, at: string) => Promise<WritePlan<R>>,
   options: { preview?: boolean; messages?: boolean } = {},
 ): Promise<WriteOutcome<R>> {
+  // A write into a file that was deleted or replaced underneath would be lost without a word.
+  const moved = options.preview ? null : (ctx.storeFile?.problem() ?? null);
+  if (moved) throw new ServiceError('store-changed', moved);
   const at = ctx.now().toISOString();
   let changed: WritePlan<R>['changed'] = { kind: '', ids: [] };
   let outcome: WriteOutcome<R>;

@@ -2,6 +2,7 @@ import type BetterSqlite3 from 'better-sqlite3';
 import type { Kysely } from 'kysely';
 import type { Db } from '../store/schema';
 import type { ServiceEvent } from './contract';
+import type { StoreFileWatch } from '../store/file-identity';
 
 export interface ServiceContext {
   db: Kysely<Db>;
@@ -13,4 +14,6 @@ export interface ServiceContext {
   newId: (prefix: string) => string;
   /** The SQLite handle under `db`, for the online backup API only; absent where the store is not a SQLite file. */
   raw?: BetterSqlite3.Database;
+  /** The store file as it was when opened: every write first checks it is still the file at its path. */
+  storeFile?: StoreFileWatch;
 }

@@ -3,7 +3,8 @@
 // it may replace the store.
 
 import Database from 'better-sqlite3';
-import { closeSync, existsSync, mkdirSync, openSync, readdirSync, readSync, renameSync, rmSync, statSync } from 'node:fs';
+import { closeSync, existsSync, fsyncSync, mkdirSync, openSync, readdirSync, readSync, renameSync, rmSync, statSync } from 'node:fs';
+import { storeFileClash } from './file-identity';
 import { basename, dirname, join } from 'node:path';
 import { MIGRATIONS } from './migration-provider';
 import { timestampForFile } from './open-database';
@@ -13,7 +14,7 @@ export const RIGBOOK_TABLES = ['batteries', 'motors', 'controllers', 'propellers
 const MIGRATION_TABLE = 'kysely_migration';
 const SQLITE_HEADER = 'SQLite format 3\u0000';
 
-function removeQuietly(path: string): void {
+export function removeQuietly(path: string): void {
   for (const p of [path, `${path}-wal`, `${path}-shm`, `${path}-journal`]) rmSync(p, { force: true });
 }
 
@@ -22,7 +23,7 @@ function removeQuietly(path: string): void {
  * and would grow -wal and -shm files beside it whenever it is opened) and checks it.
  * Returns SQLite's integrity verdict: 'ok' or what is wrong.
  */
-function settleCopy(path: string): string {
+export function settleCopy(path: string): string {
   const db = new Database(path, { fileMustExist: true });
   try {
     db.pragma('journal_mode = DELETE');
@@ -40,6 +41,7 @@ function settleCopy(path: string): string {
  * older backup of the same name.
  */
 export async function backUpStore(raw: Database.Database, destination: string, onProgress?: (done: number, total: number) => void): Promise<{ path: string; bytes: number }> {
+  refuseStoreFile(destination, raw.name);
   mkdirSync(dirname(destination), { recursive: true });
   const partial = join(dirname(destination), `.${basename(destination)}.partial-${process.pid}`);
   removeQuietly(partial);
@@ -53,7 +55,11 @@ export async function backUpStore(raw: Database.Database, destination: string, o
     });
     const integrity = settleCopy(partial);
     if (integrity !== 'ok') throw new Error(`the copy failed its integrity check (${integrity})`);
+    syncFile(partial);
+    // Checked again at the last moment: a link made while the copy ran must not send it over the store.
+    refuseStoreFile(destination, raw.name);
     renameSync(partial, destination);
+    syncFolder(dirname(destination));
   } catch (error) {
     removeQuietly(partial);
     throw error;
@@ -63,6 +69,44 @@ export async function backUpStore(raw: Database.Database, destination: string, o
 
 /** `unreadable`: missing or not a SQLite file at all; otherwise a SQLite file refused for what it holds. */
 export type StoreFileCheck = { ok: true; migrations: string[] } | { ok: false; reason: string; unreadable: boolean };
+
+/** Thrown when a file would be written over the live store or a file SQLite keeps beside it. */
+export class StoreFileClash extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'StoreFileClash';
+  }
+}
+
+/** Refuses a destination that is, under any spelling, the store at `storePath` or one of its side files. */
+export function refuseStoreFile(destination: string, storePath: string): void {
+  if (storePath === '' || storePath === ':memory:') return;
+  const clash = storeFileClash(destination, storePath);
+  if (clash) throw new StoreFileClash(`${destination} ${clash}; choose another file`);
+}
+
+/** Flushes a file's bytes to the disk, so a rename that follows cannot outlive them. */
+export function syncFile(path: string): void {
+  const fd = openSync(path, 'r+');
+  try {
+    fsyncSync(fd);
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/** Makes a rename in `folder` durable; some systems cannot open a folder for this, which costs only durability. */
+export function syncFolder(folder: string): void {
+  let fd: number | undefined;
+  try {
+    fd = openSync(folder, 'r');
+    fsyncSync(fd);
+  } catch {
+    // Windows cannot open a folder as a file; its renames are journaled by NTFS.
+  } finally {
+    if (fd !== undefined) closeSync(fd);
+  }
+}
 
 function hasSqliteHeader(path: string): boolean {
   const fd = openSync(path, 'r');
@@ -97,11 +141,16 @@ export function checkStoreFile(path: string): StoreFileCheck {
       return { ok: false, reason: `it is a SQLite file but not a Rigbook store (missing: ${[...(tables.has(MIGRATION_TABLE) ? [] : ['the schema version table']), ...lacking].join(', ')})`, unreadable: false };
     }
     const migrations = (db.prepare(`select name from ${MIGRATION_TABLE} order by name`).all() as { name: string }[]).map((r) => r.name);
-    const unknown = migrations.filter((m) => !(m in MIGRATIONS));
+    // Own keys only: a name such as "toString" or "constructor" is found on every object's prototype.
+    const unknown = migrations.filter((m) => !Object.hasOwn(MIGRATIONS, m));
     if (unknown.length > 0) {
       return { ok: false, reason: `it was written by a newer Rigbook (schema ${unknown.at(-1)}); this one knows up to ${Object.keys(MIGRATIONS).sort().at(-1)}. Update Rigbook to restore it.`, unreadable: false };
     }
     if (migrations.length === 0) return { ok: false, reason: 'it has no schema version recorded; it is not a Rigbook store', unreadable: false };
+    const known = Object.keys(MIGRATIONS).sort();
+    if (migrations.some((m, i) => known[i] !== m)) {
+      return { ok: false, reason: `its schema history (${migrations.join(', ')}) is not one Rigbook's migrations make: they run in order, and ${known.find((k, i) => migrations[i] !== k) ?? 'one'} is missing`, unreadable: false };
+    }
     return { ok: true, migrations };
   } catch (error) {
     const code = (error as { code?: string }).code;
@@ -109,90 +158,6 @@ export function checkStoreFile(path: string): StoreFileCheck {
     return { ok: false, reason: `it cannot be read: ${(error as Error).message}`, unreadable: false };
   } finally {
     db?.close();
-  }
-}
-
-/**
- * True when another program (a Rigbook window, another command) has the store open: an
- * exclusive lock cannot be had. Replacing a file under an open store would lose its writes.
- */
-export function storeInUse(path: string): boolean {
-  if (!existsSync(path)) return false;
-  let db: Database.Database | undefined;
-  try {
-    db = new Database(path, { fileMustExist: true, timeout: 0 });
-    db.pragma('locking_mode = EXCLUSIVE');
-    db.exec('BEGIN EXCLUSIVE');
-    db.exec('COMMIT');
-    // Fold any write-ahead log into the file, so the file kept aside is complete on its own.
-    db.pragma('wal_checkpoint(TRUNCATE)');
-    return false;
-  } catch (error) {
-    const code = (error as { code?: string }).code;
-    if (code === 'SQLITE_BUSY' || code === 'SQLITE_LOCKED') return true;
-    // A damaged store is exactly what a restore is for; it is not "in use".
-    return false;
-  } finally {
-    db?.close();
-  }
-}
-
-export interface RestoreResult {
-  /** Where the replaced store was kept; null when there was none. */
-  keptAs: string | null;
-  migrations: string[];
-}
-
-/**
- * Replaces the store file with a checked copy of `candidate`. The store must be closed. The
- * replaced file is kept beside it, renamed with the time, and the candidate itself is left
- * untouched (a backup stays a backup).
- */
-export async function restoreStore(candidate: string, target: string, now = new Date()): Promise<RestoreResult> {
-  const check = checkStoreFile(candidate);
-  if (!check.ok) throw new RestoreRefused(`The file was not restored: ${check.reason}. Nothing was replaced.`, check.unreadable ? 'unreadable' : 'invalid');
-  if (storeInUse(target)) throw new RestoreRefused('The store is open in Rigbook or another command. Close it and run the restore again. Nothing was replaced.', 'in-use');
-  mkdirSync(dirname(target), { recursive: true });
-  const staged = join(dirname(target), `.${basename(target)}.restoring-${process.pid}`);
-  removeQuietly(staged);
-  const source = new Database(candidate, { readonly: true, fileMustExist: true });
-  try {
-    await source.backup(staged);
-  } catch (error) {
-    removeQuietly(staged);
-    throw error;
-  } finally {
-    source.close();
-  }
-  const stagedIntegrity = settleCopy(staged);
-  if (stagedIntegrity !== 'ok') {
-    removeQuietly(staged);
-    throw new RestoreRefused(`The copy of the file failed its integrity check (${stagedIntegrity}). Nothing was replaced.`);
-  }
-  let keptAs: string | null = null;
-  if (existsSync(target)) {
-    const stem = basename(target).replace(/\.sqlite$/i, '');
-    keptAs = join(dirname(target), `${stem}.replaced-${timestampForFile(now)}.sqlite`);
-    renameSync(target, keptAs);
-    for (const suffix of ['-wal', '-shm']) if (existsSync(target + suffix)) renameSync(target + suffix, keptAs + suffix);
-  }
-  try {
-    renameSync(staged, target);
-  } catch (error) {
-    if (keptAs) renameSync(keptAs, target);
-    removeQuietly(staged);
-    throw error;
-  }
-  return { keptAs, migrations: check.migrations };
-}
-
-export class RestoreRefused extends Error {
-  constructor(
-    message: string,
-    readonly reason: 'unreadable' | 'invalid' | 'in-use' = 'invalid',
-  ) {
-    super(message);
-    this.name = 'RestoreRefused';
   }
 }
 

@@ -1,5 +1,5 @@
 import { homedir } from 'node:os';
-import { join } from 'node:path';
+import { isAbsolute, join } from 'node:path';
 
 export const APP_FOLDER_NAME = 'Rigbook';
 export const DB_FILE_NAME = 'rigbook.sqlite';
@@ -11,7 +11,9 @@ export const DB_FILE_NAME = 'rigbook.sqlite';
 export function defaultDataDir(env: NodeJS.ProcessEnv = process.env, platform: NodeJS.Platform = process.platform): string {
   if (platform === 'win32') return join(env.APPDATA ?? join(homedir(), 'AppData', 'Roaming'), APP_FOLDER_NAME);
   if (platform === 'darwin') return join(homedir(), 'Library', 'Application Support', APP_FOLDER_NAME);
-  return join(env.XDG_CONFIG_HOME ?? join(homedir(), '.config'), APP_FOLDER_NAME);
+  // The XDG base directory spec: unset or empty means the default, and only an absolute path counts.
+  const xdg = env.XDG_CONFIG_HOME;
+  return join(xdg !== undefined && isAbsolute(xdg) ? xdg : join(homedir(), '.config'), APP_FOLDER_NAME);
 }
 
 /** `--db PATH` wins, then RIGBOOK_DB, then the user's data folder. */

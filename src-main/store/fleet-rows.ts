@@ -91,6 +91,8 @@ function buildColumns(b: Build): Record<string, unknown> {
     drivetrainEfficiency: b.gearing.drivetrainEfficiency,
     measuredPeakCurrentA: b.measuredPeakCurrentA,
     measuredAverageCurrentA: b.measuredAverageCurrentA,
+    measuredSupplyId: b.measuredSupplyId ?? null,
+    runLengthS: b.runLengthS ?? null,
     tightThreshold: b.tightThreshold,
   };
 }

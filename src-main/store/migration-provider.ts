@@ -1,5 +1,6 @@
 import type { Migration, MigrationProvider } from 'kysely';
 import * as initial from '../../migrations/20261202-0001-initial';
+import * as safeSideInputs from '../../migrations/20261202-0002-safe-side-inputs';
 import * as verdictCurrentRule from '../../migrations/20261202-0004-verdict-current-rule';
 import * as historySelectors from '../../migrations/20261202-0005-history-selectors';
 
@@ -7,6 +8,7 @@ import * as historySelectors from '../../migrations/20261202-0005-history-select
 // packaged app carries every migration. Add each new migration here, in name order.
 export const MIGRATIONS: Record<string, Migration> = {
   '20261202-0001-initial': initial,
+  '20261202-0002-safe-side-inputs': safeSideInputs,
   '20261202-0004-verdict-current-rule': verdictCurrentRule,
   '20261202-0005-history-selectors': historySelectors,
 };

@@ -1,5 +1,5 @@
 import type { Generated, Insertable, Selectable, Updateable } from 'kysely';
-import type { Battery, ClassRule, Controller, Motor, Propeller, RecordMeta, Vehicle } from '../core/domain';
+import type { Battery, ClassRule, Controller, DriveLayout, Motor, Propeller, RecordMeta, Vehicle, WaterType } from '../core/domain';
 
 // Column names are camelCase, the same as the rigbook-fleet fields, so rows map to records
 // without a renaming layer; Kysely quotes every identifier, which keeps this portable to
@@ -24,9 +24,15 @@ export interface MotorTable extends Motor, Stamps {}
 
 export interface ControllerTable extends Controller, Stamps {}
 
-export interface PropellerTable extends Propeller, Stamps {}
+export interface PropellerTable extends Omit<Propeller, 'maxRpm'>, Stamps {
+  maxRpm: number | null;
+}
 
-export interface VehicleTable extends Vehicle, Stamps {}
+export interface VehicleTable extends Omit<Vehicle, 'driveLayout' | 'drivenWeightShare' | 'water'>, Stamps {
+  driveLayout: DriveLayout | null;
+  drivenWeightShare: number | null;
+  water: WaterType | null;
+}
 
 export interface ClassRuleTable extends Omit<ClassRule, 'tightThreshold'>, Stamps {
   tightThreshold: number | null;
@@ -46,6 +52,8 @@ export interface BuildTable extends Meta {
   drivetrainEfficiency: number;
   measuredPeakCurrentA: number | null;
   measuredAverageCurrentA: number | null;
+  measuredSupplyId: string | null;
+  runLengthS: number | null;
   tightThreshold: number | null;
 }
 

@@ -2,21 +2,20 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { unit } from 'mathjs';
-import { afterEach, describe, expect, it } from 'vitest';
-import { tempDir } from '../helpers/temp-dir';
+import { describe, expect, it } from 'vitest';
+import { tempDirsPerTest } from '../helpers/temp-dir';
 import { rigbook } from './run';
 
 const EXAMPLE = join(process.cwd(), 'demo-fixtures', 'example-fleet.json');
-const temps: ReturnType<typeof tempDir>[] = [];
-function temp() {
-  const t = tempDir();
-  temps.push(t);
-  return t;
-}
-afterEach(() => temps.splice(0).forEach((t) => t.remove()));
+const temp = tempDirsPerTest();
 
 interface CheckOutput {
-  builds: { id: string; status: string; supplies: { batteryIds: string[]; status: string; figures: Record<string, number | string | null>; findings: Record<string, unknown>[] }[] }[];
+  builds: {
+    id: string;
+    name: string;
+    status: string;
+    supplies: { id: string; name: string; batteryIds: string[]; status: string; figures: Record<string, number | string | null>; findings: Record<string, unknown>[]; packShares: Record<string, unknown>[]; assumptions: string[] }[];
+  }[];
 }
 
 describe('rigbook check', () => {
@@ -31,44 +30,66 @@ describe('rigbook check', () => {
       ['truck-on-6s', 'over'],
     ]);
     for (const b of out.builds) {
-      expect(Object.keys(b)).toEqual(['id', 'status', 'supplies']);
+      expect(Object.keys(b)).toEqual(['id', 'name', 'status', 'supplies']);
       for (const s of b.supplies) {
-        expect(Object.keys(s)).toEqual(['batteryIds', 'status', 'figures', 'findings']);
+        expect(Object.keys(s)).toEqual(['id', 'name', 'batteryIds', 'status', 'figures', 'findings', 'packShares', 'assumptions']);
         expect(Object.keys(s.figures)).toEqual(
           expect.arrayContaining(['packVoltageNominalV', 'packVoltageFullV', 'torqueConstantNmPerA', 'noLoadRpm', 'finalDriveRatio', 'theoreticalSpeedKmh', 'peakCurrentA', 'continuousCurrentA']),
         );
         for (const finding of s.findings) expect(Object.keys(finding)).toEqual(['rule', 'status', 'value', 'limit', 'unit', 'margin', 'message']);
       }
     }
+    // Build and supply names and ids, as the file has them (the supply id derived as <build id>.s1).
+    expect(out.builds[1]).toMatchObject({ id: 'truck-on-6s', name: 'Truck on 6S (4S controller)' });
+    expect(out.builds[1]!.supplies[0]).toMatchObject({ id: 'truck-on-6s.s1', name: '6S 5000 basher', batteryIds: ['pack-6s-5000'] });
     // Pure: no store was opened or created.
     expect(existsSync(t.file('never.sqlite'))).toBe(false);
   });
+
+  it('--json rounds figures to 6 significant digits: no float noise', async () => {
+    const out = JSON.parse((await rigbook(['check', EXAMPLE, '--json'])).out) as CheckOutput;
+    const f = out.builds[0]!.supplies[0]!.figures;
+    // 3 × 3.7 in binary floating point is 11.100000000000001; six significant digits give 11.1.
+    expect(3 * 3.7).not.toBe(11.1);
+    expect(f.packVoltageNominalV).toBe(11.1);
+    for (const b of out.builds)
+      for (const s of b.supplies) {
+        for (const value of Object.values(s.figures)) if (typeof value === 'number') expect(value).toBe(Number(value.toPrecision(6)));
+        for (const finding of s.findings) for (const key of ['value', 'limit', 'margin']) {
+          const value = finding[key];
+          if (typeof value === 'number') expect(value).toBe(Number(value.toPrecision(6)));
+        }
+      }
+  });
+
+  /** Equal to six significant digits, the precision `check --json` promises. */
+  const close6 = (actual: unknown, expected: number) => expect(Math.abs((actual as number) - expected)).toBeLessThanOrEqual(Math.abs(expected) * 5e-6);
 
   it('the figures agree with values worked out independently', async () => {
     const run = await rigbook(['check', EXAMPLE, '--json']);
     const out = JSON.parse(run.out) as CheckOutput;
     const f = out.builds[0]!.supplies[0]!.figures;
     // 3 cells × 3.7 V nominal, × 4.20 V full (LiPo, cell makers' specification sheets).
-    expect(f.packVoltageNominalV).toBeCloseTo(11.1, 9);
-    expect(f.packVoltageFullV).toBeCloseTo(12.6, 9);
+    close6(f.packVoltageNominalV, 11.1);
+    close6(f.packVoltageFullV, 12.6);
     // Kt = 1 / Kv in SI units (N·m/A = V·s/rad); Kv converted with mathjs: 3200 rev/min per volt.
     const kvRad = unit(3200, 'cycle/minute').toNumber('rad/s');
-    expect(f.torqueConstantNmPerA).toBeCloseTo(1 / kvRad, 12);
+    close6(f.torqueConstantNmPerA, 1 / kvRad);
     // The trade's no-load figure: Kv × nominal voltage.
-    expect(f.noLoadRpm).toBeCloseTo(3200 * 11.1, 6);
+    close6(f.noLoadRpm, 3200 * 11.1);
     // Final drive = spur / pinion × internal ratio: 46 / 14 × 2.85.
-    expect(f.finalDriveRatio).toBeCloseTo((46 / 14) * 2.85, 12);
+    close6(f.finalDriveRatio, (46 / 14) * 2.85);
     // Wheel rpm × circumference (110 mm tyre), converted to km/h with mathjs.
     const wheelRevPerMin = (3200 * 11.1) / ((46 / 14) * 2.85);
     const expectedKmh = unit(wheelRevPerMin * Math.PI * unit(110, 'mm').toNumber('m'), 'm/minute').toNumber('km/h');
-    expect(f.theoreticalSpeedKmh).toBeCloseTo(expectedKmh, 9);
+    close6(f.theoreticalSpeedKmh, expectedKmh);
 
     const over = out.builds[1]!.supplies[0]!.findings.find((x) => x.rule === 'controller-voltage')!;
     // 6 × 4.20 V against a controller rated for 4 cells (4 × 4.2 V).
     expect(over).toMatchObject({ status: 'over', unit: 'V' });
-    expect(over.value as number).toBeCloseTo(25.2, 9);
-    expect(over.limit as number).toBeCloseTo(16.8, 9);
-    expect(over.margin as number).toBeCloseTo((16.8 - 25.2) / 16.8, 9);
+    close6(over.value, 25.2);
+    close6(over.limit, 16.8);
+    close6(over.margin, (16.8 - 25.2) / 16.8);
   });
 
   it('prints a readable table per build and supply', async () => {
@@ -77,8 +98,66 @@ describe('rigbook check', () => {
     expect(run.out).toContain('OVER  Truck on 6S (4S controller)  [truck-on-6s]');
     expect(run.out).toContain('supply 1 of 1: 6S 5000 basher  →  OVER');
     expect(run.out).toMatch(/OVER\s+controller-voltage\s+25\.2 V\s+16\.8 V\s+-50\.0 %/);
-    expect(run.out).toContain('2 builds checked: 1 over, 0 tight, 0 incomplete, 1 clear.');
+    expect(run.out).toContain('2 builds checked: 1 over, 0 incomplete, 0 tight, 1 clear.');
     expect(run.out).toContain("follow the part maker's ratings");
+  });
+
+  it('--json carries the safe-side verdicts: conductance share, retired pack, unloaded tip speed, ranking', async () => {
+    const t = temp();
+    const fleet = JSON.parse(readFileSync(EXAMPLE, 'utf8')) as Record<string, Record<string, unknown>[]>;
+    fleet.batteries!.push(
+      { id: 'small', name: 'Small 3S 2200', chemistry: 'lipo', cellsSeries: 3, capacityMah: 2200, cRatingContinuous: 25, cRatingBurst: 50, cellResistanceOhm: 0.002 },
+      { id: 'big', name: 'Big 3S 8000', chemistry: 'lipo', cellsSeries: 3, capacityMah: 8000, cRatingContinuous: 25, cRatingBurst: 50, cellResistanceOhm: 0.01 },
+      { id: 'tired', name: 'Tired 3S', chemistry: 'lipo', cellsSeries: 3, capacityMah: 5000, cRatingContinuous: 50, cRatingBurst: 100, cellResistanceOhm: 0.003, retired: true },
+    );
+    fleet.propellers = [{ id: 'prop-5', name: '5 inch', diameterMm: 127, pitchMm: 109, blades: 3, thrustCoefficient: 0.11, powerCoefficient: 0.05 }];
+    fleet.vehicles!.push({ id: 'quad', name: 'Quad', kind: 'multirotor', massKg: 0.7 });
+    const truck = fleet.builds![0]!;
+    fleet.builds!.push(
+      { ...truck, id: 'pair', name: 'Mixed pair', supplies: [{ arrangement: 'parallel', batteryIds: ['small', 'big'] }], measuredPeakCurrentA: 106, measuredAverageCurrentA: 106 },
+      { ...truck, id: 'tired-build', name: 'On a retired pack', supplies: [{ batteryIds: ['tired'] }] },
+      { ...truck, id: 'quad-build', name: 'Quad', vehicleId: 'quad', propellerId: 'prop-5', motorCount: 4, gearing: { internalRatio: 1 }, supplies: [{ batteryIds: ['pack-6s-5000'] }] },
+    );
+    writeFileSync(t.file('safe.json'), JSON.stringify(fleet));
+    const run = await rigbook(['check', t.file('safe.json'), '--json']);
+    expect(run.err).toBe('');
+    const out = JSON.parse(run.out) as CheckOutput;
+    const byId = new Map(out.builds.map((b) => [b.id, b]));
+
+    const pair = byId.get('pair')!.supplies[0]!;
+    const cont = pair.findings.find((x) => x.rule === 'battery-continuous')!;
+    // Current division (Alexander & Sadiku, "Fundamentals of Electric Circuits", ch. 2): 106 × 30 ÷ 36 A.
+    // The check output rounds to 6 significant digits (DEVELOPERS.md, check output).
+    expect(cont.value as number).toBeCloseTo((106 * 30) / 36, 3);
+    expect(cont.limit as number).toBeCloseTo(55, 9);
+    expect(cont.status).toBe('over');
+    expect(cont.message).toMatch(/pack "Small 3S 2200"/);
+    expect(pair.packShares.map((p) => p.batteryId)).toEqual(['small', 'big']);
+
+    expect(byId.get('tired-build')!.status).toBe('over');
+    expect(byId.get('tired-build')!.supplies[0]!.findings.map((x) => x.rule)).toContain('pack-retired');
+
+    const quad = byId.get('quad-build')!.supplies[0]!;
+    // A propeller build: pitch speed, never a tyre speed; tip speed judged unloaded, above the static one.
+    expect(quad.figures.theoreticalSpeedKmh).toBeNull();
+    expect(quad.figures.pitchSpeedKmh).toBeGreaterThan(0);
+    expect(quad.figures.tipSpeedMps as number).toBeGreaterThan(quad.figures.tipSpeedStaticMps as number);
+    expect(quad.findings.find((x) => x.rule === 'prop-tip-speed')!.value).toBe(quad.figures.tipSpeedMps);
+
+    // The cars and trucks carry their run: the continuous current judged is at least the steady one.
+    const steady = byId.get('truck-on-3s')!.supplies[0]!.figures;
+    expect(steady.continuousCurrentA as number).toBeGreaterThanOrEqual(steady.steadyCurrentA as number);
+    expect(steady.runLengthS).toBe(4);
+  });
+
+  it('refuses a file that lists one pack twice in a build, naming it', async () => {
+    const t = temp();
+    const fleet = JSON.parse(readFileSync(EXAMPLE, 'utf8')) as { builds: { supplies: { batteryIds: string[] }[] }[] };
+    fleet.builds[0]!.supplies = [{ batteryIds: ['pack-3s-5000', 'pack-3s-5000'] }];
+    writeFileSync(t.file('twice.json'), JSON.stringify(fleet));
+    const run = await rigbook(['check', t.file('twice.json'), '--json']);
+    expect(run.code).toBe(3);
+    expect(run.err).toContain('builds[0].supplies[0].batteryIds[1]: pack "3S 5000 hard case" is already in this build');
   });
 
   it('exits 0 when nothing is over', async () => {

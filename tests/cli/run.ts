@@ -8,7 +8,7 @@ export interface CliRun {
 }
 
 /** Runs `rigbook ARGS` in-process with captured output, the way the real entry does. */
-export async function rigbook(args: string[], options: { cwd?: string; env?: NodeJS.ProcessEnv; tty?: boolean; now?: Date } = {}): Promise<CliRun> {
+export async function rigbook(args: string[], options: { cwd?: string; env?: NodeJS.ProcessEnv; tty?: boolean; now?: Date; stdin?: string | Uint8Array } = {}): Promise<CliRun> {
   let out = '';
   let err = '';
   const io: CliIo = {
@@ -23,6 +23,7 @@ export async function rigbook(args: string[], options: { cwd?: string; env?: Nod
     cwd: options.cwd ?? process.cwd(),
     errIsTty: options.tty ?? false,
     now: () => options.now ?? new Date('2026-12-01T09:30:00Z'),
+    readStdin: async () => (typeof options.stdin === 'string' ? new TextEncoder().encode(options.stdin) : (options.stdin ?? new Uint8Array())),
   };
   const code = await runCli(args, io);
   return { code, out, err };

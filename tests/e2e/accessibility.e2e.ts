@@ -100,6 +100,8 @@ test.describe('on the invented fleet', () => {
     await expect(form.getByRole('alert').first()).toBeVisible();
     await expect(form.locator('[aria-invalid="true"]').first()).toBeVisible();
     await expectNoAxeViolations(page, 'new build form, with errors');
+    // Leaving a form with unsaved edits asks first; this test means to leave.
+    page.once('dialog', (d) => void d.accept());
     await go(page, `#/builds/${fleet.builds.monster8s}/edit`);
     const edit = page.getByRole('form', { name: 'Edit build' });
     await expect(edit.getByLabel('Pinion (teeth)')).toHaveValue('13');
@@ -111,7 +113,7 @@ test.describe('on the invented fleet', () => {
     await expect(page.getByRole('heading', { name: 'Swap preview' })).toBeVisible();
     await expect(page.getByLabel('Part to replace')).toBeVisible();
     await expectNoAxeViolations(page, 'swap preview, replace a part');
-    await page.getByLabel('Part to replace').selectOption({ label: 'Motor: Tork 2050 4-pole 2200Kv' });
+    await page.getByLabel('Part to replace').selectOption({ label: 'Motor: Shop 2050 4-pole 2200Kv' });
     await page.getByLabel('Replacement').selectOption({ label: 'Stadium 3660 3300Kv' });
     await page.getByRole('button', { name: 'Preview' }).click();
     await expect(page.getByTestId('preview-result')).toBeVisible();
@@ -120,11 +122,11 @@ test.describe('on the invented fleet', () => {
     await page.getByRole('tab', { name: 'Change gearing' }).click();
     await page.locator('input[name="gearing.pinionTeeth"]').fill('not a number');
     await page.getByRole('button', { name: 'Preview' }).click();
-    await expect(page.getByRole('alert')).toBeVisible();
+    await expect(page.getByRole('alert').filter({ hasText: 'Pinion' }).first()).toBeVisible();
     await expectNoAxeViolations(page, 'swap preview, gearing refused');
 
     await page.getByRole('tab', { name: "Edit a shared part's ratings" }).click();
-    await page.getByLabel('Part record').selectOption({ label: 'motor: Tork 2050 4-pole 2200Kv' });
+    await page.getByLabel('Part record').selectOption({ label: 'motor: Shop 2050 4-pole 2200Kv' });
     await page.getByLabel('Field').selectOption({ label: 'Rated power (W)' });
     await page.getByLabel('New value').fill('2000');
     await page.getByRole('button', { name: 'Preview' }).click();
@@ -134,7 +136,7 @@ test.describe('on the invented fleet', () => {
 
   const PART_KINDS = [
     { slug: 'packs', one: 'pack', pick: (f: SeededFleet) => f.packs.shop4s1, name: 'Shop 4S 5000 #1' },
-    { slug: 'motors', one: 'motor', pick: (f: SeededFleet) => f.motors.tork, name: 'Tork 2050 4-pole 2200Kv' },
+    { slug: 'motors', one: 'motor', pick: (f: SeededFleet) => f.motors.shop2050, name: 'Shop 2050 4-pole 2200Kv' },
     { slug: 'controllers', one: 'speed controller', pick: (f: SeededFleet) => f.controllers.shop150, name: 'Shop 150A 2-6S' },
     { slug: 'propellers', one: 'propeller', pick: (f: SeededFleet) => f.propellers.quad, name: '5.1 × 4.5 tri-blade' },
   ] as const;

@@ -62,8 +62,8 @@ test('imperial units show in the list, the sheet and the form labels, and conver
 
   await page.evaluate((id) => (window.location.hash = `#/vehicles/${id}`), car.id);
   const form = page.getByRole('form', { name: 'Edit vehicle' });
-  // 3.2 kg ÷ 0.45359237 = 7.05479 lb (NIST SP 811: pound = 0.45359237 kg exactly).
-  await expect(form.getByLabel('Mass (lb)')).toHaveValue('7.05479');
+  // 3.2 kg ÷ 0.45359237 = 7.05479 lb (NIST SP 811: pound = 0.45359237 kg exactly), shown rounded for people.
+  await expect(form.getByLabel('Mass (lb)')).toHaveValue('7.05');
   await form.getByLabel('Mass (lb)').fill('10');
   await form.getByRole('button', { name: 'Save changes' }).click();
   await expect(form.getByRole('status')).toContainText('Saved');
@@ -78,7 +78,7 @@ test('imperial units show in the list, the sheet and the form labels, and conver
   expect((await shell.api<{ tightThreshold: number }>('settings.get', {})).tightThreshold).toBeCloseTo(0.3, 12);
   await page.getByLabel('Tight below (% headroom)').fill('95');
   await page.getByRole('button', { name: 'Save' }).click();
-  await expect(page.locator('#threshold-error')).toContainText('0.9');
+  await expect(page.locator('#threshold-error')).toHaveText('must be 90 % or less');
   expect((await shell.api<{ tightThreshold: number }>('settings.get', {})).tightThreshold).toBeCloseTo(0.3, 12);
 });
 

@@ -253,7 +253,8 @@ test('a swap from OVER to Incomplete says the new part lacks data; saving into O
   await expect(page.getByTestId('form-notice')).toContainText('Not saved');
   expect((await shell.api<SheetValue & { build: { controllerId: string } }>('builds.get', { id: build.id })).build.controllerId).toBe(esc.id);
 
-  // A part edit that turns the build over asks as well.
+  // A part edit that turns the build over asks as well. (Leaving the unsaved build form asks first; accept.)
+  page.once('dialog', (d) => void d.accept());
   await page.evaluate((id) => (window.location.hash = `#/parts/controllers/${id}`), esc.id);
   const partForm = page.getByRole('form', { name: /Edit/ });
   // 5 A continuous: far below what the truck draws at its loaded top speed.

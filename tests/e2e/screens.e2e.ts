@@ -47,7 +47,8 @@ test('screens of the fleet: list, greyscale badges, sheet, parts, vehicles, hist
   await page.evaluate((id) => (window.location.hash = `#/builds/${id}`), fleet.builds.monster6s!);
   const sheet = page.getByTestId('build-sheet');
   await expect(sheet.getByRole('heading', { name: 'Monster 6S' })).toBeVisible();
-  await expect(sheet.locator('canvas')).toHaveCount(3);
+  // Motor curves (two), the full-throttle run and the currents against their limits.
+  await expect(sheet.locator('canvas')).toHaveCount(4);
   await expect(sheet).toContainText('rpm per volt at no load');
   await expect(sheet.locator('[data-rule="motor-power"]')).toContainText("Follow the part maker's ratings");
   await shot(page, 'build-sheet', true);
@@ -111,7 +112,8 @@ test('swap preview of a gearing change, side by side', async ({ page, shell }) =
 test('the printable build sheet: no navigation, black on white, cautions and the printed date', async ({ page, shell }) => {
   const fleet = await seedFleet((name, args) => shell.api(name, args));
   await openApp(page, shell, `#/builds/${fleet.builds.monster8s}`);
-  await expect(page.getByTestId('build-sheet').locator('canvas')).toHaveCount(3);
+  // Motor current and power, torque and efficiency, the full-throttle run, currents against limits.
+  await expect(page.getByTestId('build-sheet').locator('canvas')).toHaveCount(4);
   await page.emulateMedia({ media: 'print' });
   await expect(page.getByRole('navigation', { name: 'Screens' })).toBeHidden();
   await expect(page.getByRole('button', { name: 'Print' })).toBeHidden();

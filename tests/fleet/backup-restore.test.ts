@@ -3,7 +3,9 @@ import { existsSync, readdirSync, readFileSync, writeFileSync, copyFileSync } fr
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import { openServiceHost } from '../../src-main/service/open-service-host';
-import { backUpStore, checkStoreFile, restoreStore, rollingBackup, storeInUse, RestoreRefused } from '../../src-main/store/backup';
+import { backUpStore, checkStoreFile, rollingBackup } from '../../src-main/store/backup';
+import { lockStore, RestoreRefused } from '../../src-main/store/restore-file';
+import { restoreStore } from '../../src-main/service/restore-store';
 import { openStore } from '../../src-main/store/open-database';
 import { serviceFixture, type ServiceFixture } from '../helpers/service-fixture';
 import { tempDir } from '../helpers/temp-dir';
@@ -97,7 +99,7 @@ describe('restore', () => {
     await host.call('batteries.create', { name: 'Only in the old store', chemistry: 'lipo', cellsSeries: 2, capacityMah: 3000 });
     await host.close();
 
-    const result = await restoreStore(backup, target, new Date('2026-12-01T10:00:00Z'));
+    const result = await restoreStore(backup, target, { now: new Date('2026-12-01T10:00:00Z') });
     expect(result.keptAs).toBe(join(t.dir, 'rigbook.replaced-2026-12-01T10-00-00-000Z.sqlite'));
     expect(count(result.keptAs!, 'batteries')).toBe(1);
     expect(count(target, 'batteries')).toBe(24);
@@ -160,7 +162,7 @@ describe('restore', () => {
     const backup = t.file('backup.sqlite');
     await storeWithRecords(backup);
     const f = await fixture();
-    expect(storeInUse(f.dbPath)).toBe(true);
+    expect(() => lockStore(f.dbPath)).toThrow(RestoreRefused);
     const before = await dumpStore(f.db);
     await expect(restoreStore(backup, f.dbPath)).rejects.toMatchObject({ reason: 'in-use' });
     expect(await dumpStore(f.db)).toEqual(before);

@@ -119,3 +119,13 @@ describe('CSV export and import per part kind', () => {
     expect(report).toMatchObject({ ok: false, unreadable: true });
   });
 });
+
+describe('CSV files written before the safe-side fields', () => {
+  it('a vehicles file without drive, driven share and water columns still imports, the fields not known', async () => {
+    const { readCsvRecords } = await import('../../src-main/service/fleet/fleet-csv');
+    const text = 'id,name,kind,massKg,dragAreaM2,rollingCoefficient,tractionCoefficient,owner,className,notes,version,archivedAt\r\nv1,Old buggy,car,1.6,0.03,0.03,1,,,,1,\r\n';
+    const read = readCsvRecords('vehicles', text);
+    expect(read.ok ? [] : read.problems).toEqual([]);
+    expect(read.ok && read.records[0]).toMatchObject({ id: 'v1', driveLayout: null, drivenWeightShare: null, water: null });
+  });
+});

@@ -13,31 +13,31 @@ afterEach(async () => f.close());
 /** Each demo build's verdict and the rules that give it, with the story behind each. */
 const EXPECTED: Record<string, { status: Status; rules: string[] }> = {
   // Club gearing: every figure inside its rating.
-  'demo-b-kestrel2-24': { status: 'clear', rules: [] },
-  'demo-b-kestrel2-23-old': { status: 'clear', rules: [] },
+  'demo-b-buggy2-24': { status: 'clear', rules: [] },
+  'demo-b-buggy2-23-old': { status: 'clear', rules: [] },
   // A 30T pinion passes the club's 50 km/h theoretical-speed cap.
-  'demo-b-kestrel2-30': { status: 'over', rules: ['class-speed'] },
-  'demo-b-kestrel4': { status: 'clear', rules: [] },
+  'demo-b-buggy2-30': { status: 'over', rules: ['class-speed'] },
+  'demo-b-buggy4': { status: 'clear', rules: [] },
   // High-grip tyres: launch current close to the 50 A motor rating.
-  'demo-b-flatline': { status: 'tight', rules: ['motor-current'] },
-  'demo-b-sidewinder': { status: 'clear', rules: [] },
+  'demo-b-touring': { status: 'tight', rules: ['motor-current'] },
+  'demo-b-drift': { status: 'clear', rules: [] },
   // A pinion too big for the motor's current.
-  'demo-b-dustrunner-big': { status: 'over', rules: ['motor-current'] },
-  'demo-b-dustrunner-ok': { status: 'clear', rules: [] },
+  'demo-b-shortcourse-big': { status: 'over', rules: ['motor-current'] },
+  'demo-b-shortcourse-ok': { status: 'clear', rules: [] },
   // A 6S pack on a controller rated for 4S.
-  'demo-b-boulderback': { status: 'over', rules: ['controller-voltage'] },
-  'demo-b-boulderback-8s': { status: 'clear', rules: [] },
+  'demo-b-monster': { status: 'over', rules: ['controller-voltage'] },
+  'demo-b-monster-8s': { status: 'clear', rules: [] },
   // The NiMH stick has no C rating entered.
-  'demo-b-goatpath': { status: 'incomplete', rules: ['battery-burst', 'battery-continuous'] },
+  'demo-b-crawler': { status: 'incomplete', rules: ['battery-burst', 'battery-continuous'] },
   // Logged currents above what the old 20C pack and the motor are rated for.
-  'demo-b-gravelking': { status: 'over', rules: ['battery-burst', 'motor-current'] },
+  'demo-b-stadium': { status: 'over', rules: ['battery-burst', 'motor-current'] },
   // A LiHV and a LiPo pack in parallel.
-  'demo-b-heron': { status: 'over', rules: ['supply-match'] },
-  // Little headroom on 6S: pack, motor current and tip speed all close.
-  'demo-b-moth': { status: 'tight', rules: ['battery-continuous', 'motor-current', 'prop-tip-speed'] },
+  'demo-b-deepvee': { status: 'over', rules: ['supply-match'] },
+  // In flight the five-inch props unload toward the motors' no-load speed: tips past 85 % of Mach.
+  'demo-b-quad': { status: 'over', rules: ['prop-tip-speed'] },
   // Li-ion cells cannot give the current the trainer's motor draws.
-  'demo-b-skylark': { status: 'over', rules: ['battery-continuous'] },
-  'demo-b-mudlark': { status: 'clear', rules: [] },
+  'demo-b-trainer': { status: 'over', rules: ['battery-continuous'] },
+  'demo-b-rally': { status: 'clear', rules: [] },
 };
 
 describe('the demo fleet', () => {
@@ -63,7 +63,7 @@ describe('the demo fleet', () => {
 
   it('the reasons hold in the figures', async () => {
     await f.call('demo.load', {});
-    const monster = (await f.call('builds.get', { id: 'demo-b-boulderback' })).verdict!;
+    const monster = (await f.call('builds.get', { id: 'demo-b-monster' })).verdict!;
     for (const supply of monster.supplies) {
       const finding = supply.findings.find((x) => x.rule === 'controller-voltage')!;
       // 6 cells × 4.20 V (LiPo full charge, cell makers' specification sheets) against a
@@ -74,7 +74,7 @@ describe('the demo fleet', () => {
     // Both 6S supplies read over: the single 6S pack and two 3S packs in series.
     expect(monster.supplies.map((s) => s.status)).toEqual(['over', 'over']);
 
-    const boat = (await f.call('builds.get', { id: 'demo-b-heron' })).verdict!;
+    const boat = (await f.call('builds.get', { id: 'demo-b-deepvee' })).verdict!;
     // The mixed pair is over; the matched pair the shop sold is only tight.
     expect(boat.supplies.map((s) => s.status)).toEqual(['over', 'tight']);
     const match = boat.supplies[0]!.findings.find((x) => x.rule === 'supply-match')!;
@@ -82,16 +82,26 @@ describe('the demo fleet', () => {
     expect(match.value).toBeCloseTo(13.05, 9);
     expect(match.limit).toBeCloseTo(12.6, 9);
 
-    const plane = (await f.call('builds.get', { id: 'demo-b-skylark' })).verdict!;
+    const plane = (await f.call('builds.get', { id: 'demo-b-trainer' })).verdict!;
     expect(plane.supplies.map((s) => s.status)).toEqual(['clear', 'over']);
     // 3 C × 7000 mAh = 21 A continuous for the Li-ion pack.
     expect(plane.supplies[1]!.findings.find((x) => x.rule === 'battery-continuous')!.limit).toBeCloseTo(21, 9);
 
-    const crawler = (await f.call('builds.get', { id: 'demo-b-goatpath' })).verdict!;
+    const quad = (await f.call('builds.get', { id: 'demo-b-quad' })).verdict!;
+    const tip = quad.supplies[0]!.findings.find((x) => x.rule === 'prop-tip-speed')!;
+    // 0.85 (common practice) × 340.294 m/s, the speed of sound at 15 °C (ISO 2533 / ICAO Doc 7488).
+    expect(tip.limit).toBeCloseTo(0.85 * 340.294, 9);
+    // Judged at the unloaded rpm; the static figure alone stays under the limit.
+    expect(quad.supplies[0]!.figures.tipSpeedStaticMps as number).toBeLessThan(tip.limit!);
+    expect(tip.value as number).toBeGreaterThan(tip.limit!);
+    // The rest of the quad is still only close to its ratings.
+    expect(quad.supplies[0]!.findings.filter((x) => x.status === 'tight').map((x) => x.rule).sort()).toEqual(['battery-continuous', 'motor-current']);
+
+    const crawler = (await f.call('builds.get', { id: 'demo-b-crawler' })).verdict!;
     const missing = crawler.supplies[0]!.findings.filter((x) => x.status === 'incomplete').flatMap((x) => x.missing ?? []);
     expect(missing.sort()).toEqual(['battery.cRatingBurst', 'battery.cRatingContinuous']);
 
-    const truck = (await f.call('builds.get', { id: 'demo-b-gravelking' })).verdict!;
+    const truck = (await f.call('builds.get', { id: 'demo-b-stadium' })).verdict!;
     expect(truck.supplies[0]!.findings.find((x) => x.rule === 'battery-burst')).toMatchObject({ source: 'measured', value: 96, limit: 88 });
   });
 

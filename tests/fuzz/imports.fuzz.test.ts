@@ -6,6 +6,7 @@ import { callAndCheck, newTally, storedRecordProblems } from './support/call-che
 import { createTemplate, fuzzDir, openFuzzStore, type FuzzStore } from './support/fuzz-store';
 import { mutate, pick } from './support/payloads';
 import type { SchemaNode } from './support/schema-walk';
+import { readJsonText, scanJson } from '../../src-main/service/fleet/read-fleet-text';
 
 // Damaged fleet files and CSV files: cut off at a random point, bytes flipped, fields bent.
 // A refused import leaves every table exactly as it was (and so does any dry run); an
@@ -161,3 +162,34 @@ describe('damaged import files change nothing', () => {
   });
 });
 
+
+describe('the JSON scan agrees with JSON.parse', () => {
+  // JSON.parse is the reference: for any text, the scan finds a fault exactly when JSON.parse
+  // throws; on text JSON.parse reads, it reports only a field named twice in one object.
+  const hasDuplicateKeys = (text: string): boolean => {
+    const stop = scanJson(text);
+    return stop !== null && stop.kind === 'duplicate';
+  };
+  const text = fc.oneof(
+    fc.json({ maxDepth: 6 }),
+    fc.json({ maxDepth: 6 }).chain((t) => fc.tuple(fc.constant(t), fc.nat({ max: Math.max(0, t.length) }), fc.string({ maxLength: 3 })).map(([s, at, junk]) => s.slice(0, at) + junk + s.slice(at + 1))),
+  );
+  it('finds a fault exactly when JSON.parse throws, and says where', () => {
+    fc.assert(
+      fc.property(text, (t) => {
+        let parses = true;
+        try {
+          JSON.parse(t);
+        } catch {
+          parses = false;
+        }
+        const stop = scanJson(t);
+        if (parses) expect(stop === null || stop.kind === 'duplicate').toBe(true);
+        else expect(stop === null || stop.kind === 'duplicate').toBe(false);
+        if (!parses) expect(readJsonText(t)).toMatchObject({ ok: false });
+        if (parses && !hasDuplicateKeys(t) && t.trim() !== '') expect(readJsonText(t)).toEqual({ ok: true, value: JSON.parse(t) });
+      }),
+      { numRuns: Math.max(2000, FILES * 4), seed: SEED },
+    );
+  });
+});

@@ -50,8 +50,8 @@ describe('part form state', () => {
     form.draft.capacityMah = '-5';
     expect(await form.save()).toBeNull();
     expect(Object.keys(form.errors)).toEqual(['capacityMah']);
-    expect(form.errors.capacityMah).toBe('must be greater than 0');
-    expect(form.formError?.message).toBe('Capacity (mAh): must be greater than 0');
+    expect(form.errors.capacityMah).toBe('must be greater than 0 mAh');
+    expect(form.formError?.message).toBe('Capacity (mAh): must be greater than 0 mAh');
     expect(form.draft.name).toBe('Typo pack');
     expect(form.draft.capacityMah).toBe('-5');
     expect(await f.call('batteries.list', {})).toEqual([]);

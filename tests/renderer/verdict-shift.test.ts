@@ -6,7 +6,7 @@ const f = (rule: string, status: Status, value: number | null, limit: number | n
   rule, status, value, limit, unit: 'V', margin: value !== null && limit !== null ? (limit - value) / limit : null, message: `${rule} ${status}`, ...(missing ? { missing } : {}),
 });
 const verdict = (buildId: string, status: Status, findings: Finding[]): BuildVerdict =>
-  ({ buildId, status, supplies: [{ supplyId: `${buildId}.s1`, batteryIds: ['p'], status, figures: {} as BuildVerdict['supplies'][number]['figures'], findings }] });
+  ({ buildId, status, supplies: [{ supplyId: `${buildId}.s1`, batteryIds: ['p'], status, figures: {} as BuildVerdict['supplies'][number]['figures'], findings, packShares: [], assumptions: [] }] });
 
 describe('what a change does to verdicts', () => {
   it('names the builds a change makes OVER, with the checks that pass their limits', () => {

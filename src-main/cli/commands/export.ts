@@ -6,6 +6,8 @@ import { textValue, type Command } from '../command';
 import { EXIT } from '../exit-codes';
 import { callOrFail, withStore } from '../open-store';
 import { writeOutputFile } from '../write-output-file';
+import { countOf } from '../import-report-text';
+import { parseCsv } from '../../service/fleet/csv';
 
 const KINDS = CSV_KIND_NAMES.join(', ');
 
@@ -20,7 +22,9 @@ Two exports of the same records are the same bytes. Verdicts are not written: th
 follow from the records.
 
   --csv KIND   one part kind as CSV instead (${KINDS}); text cells that a
-               spreadsheet would run as a formula (= + - @) get a leading apostrophe`,
+               spreadsheet would run as a formula (= + - @, full-width forms, and
+               a leading space, tab, line break or invisible character) get a
+               leading apostrophe`,
   options: { csv: { type: 'string' } },
   positionals: { min: 0, max: 1 },
   async run({ positionals, values, io, dbPath }) {
@@ -30,17 +34,20 @@ follow from the records.
     const { text, summary } = await withStore(io, dbPath, { mustExist: true }, async (host) => {
       if (csv !== undefined) {
         const out = (await callOrFail(host, 'fleet.exportCsv', { kind: csv })) as { kind: string; text: string };
-        const rows = out.text.split('\r\n').length - 2;
-        return { text: out.text, summary: `${rows} ${out.kind}` };
+        // Counted by record, not by line: a note may hold a line break inside its quoted cell.
+        const parsed = parseCsv(out.text);
+        const records = parsed.ok ? parsed.rows.length - 1 : 0;
+        return { text: out.text, summary: countOf(records, out.kind) };
       }
       const fleet = (await callOrFail(host, 'fleet.export', {})) as FleetFile;
-      return { text: fleetText(fleet), summary: `${fleet.builds.length} builds, ${fleet.batteries.length} packs, ${fleet.motors.length} motors, ${fleet.controllers.length} controllers, ${fleet.propellers.length} propellers, ${fleet.vehicles.length} vehicles` };
+      const kinds = ['builds', 'batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classRules'] as const;
+      return { text: fleetText(fleet), summary: kinds.map((k) => countOf(fleet[k].length, k)).join(', ') };
     });
     if (file === undefined || file === '-') {
       io.out(text);
       return EXIT.ok;
     }
-    const path = writeOutputFile(io, file, text);
+    const path = writeOutputFile(io, file, text, dbPath);
     io.err(`Wrote ${summary} to ${path}\n`);
     return EXIT.ok;
   },

@@ -1,7 +1,7 @@
 import type { ImportReport } from '../../service/fleet/import-fleet';
 import { CSV_KIND_ALIASES, CSV_KIND_NAMES, type CsvKindName } from '../../service/fleet/csv-columns';
 import { CliFailure } from '../cli-io';
-import { flagValue, textValue, type Command } from '../command';
+import { encodingOption, ENCODING_HELP, flagValue, textValue, type Command } from '../command';
 import { EXIT } from '../exit-codes';
 import { importReportText, problemsText } from '../import-report-text';
 import { AUTO_BACKUPS_KEPT, callOrFail, withStore } from '../open-store';
@@ -16,19 +16,26 @@ const KINDS = CSV_KIND_NAMES.join(', ');
 export const importCommand: Command = {
   name: 'import',
   summary: 'import a rigbook-fleet file (or a CSV of one part kind) into the store',
-  help: `Usage: rigbook import FILE [--mode merge|replace] [--dry-run] [--csv KIND] [--reason TEXT] [--json]
+  help: `Usage: rigbook import FILE [--mode merge|replace] [--dry-run] [--csv KIND] [--accept-changes]
+                    [--reason TEXT] [--encoding E] [--json]
 
-Checks the whole file first and lists every problem with its place; then writes all of it
-or nothing, re-checks every build it touched and adds one history entry.
+Checks the whole file (- reads standard input) first and lists every problem with its
+place; then writes all of it or nothing, re-checks every build it touched and adds one
+history entry.
 
   --mode merge     (default) records whose id is stored are updated (their version goes
                    up), identical ones are left alone, new ones are added; nothing is removed
   --mode replace   every part and build in the store is removed first (history stays);
                    (before any import writes, a copy of the store goes to backups/ beside it)
-  --dry-run        do everything, report it, and write nothing
+  --dry-run        do everything, report it (every stored record and field that would
+                   change, before → after), and write nothing
+  --accept-changes confirm changes that look like a spreadsheet's damage: a number
+                   that grows or shrinks by a factor of 100 or more, or leaves the
+                   range such a part plausibly has; without it they refuse the import
   --csv KIND       FILE is a CSV of one part kind (${KINDS}); always merged
   --reason TEXT    said in the history entry
   --json           print the import report as JSON
+${ENCODING_HELP}
 
 Exits 0 when imported, 2 when the file cannot be read, 3 when it is refused (problems
 listed), 4 when the store cannot be opened or written.`,
@@ -37,10 +44,11 @@ listed), 4 when the store cannot be opened or written.`,
     'dry-run': { type: 'boolean' },
     csv: { type: 'string' },
     reason: { type: 'string' },
+    'accept-changes': { type: 'boolean' },
+    encoding: { type: 'string' },
   },
   positionals: { min: 1, max: 1 },
   async run({ positionals, values, io, dbPath }) {
-    const file = positionals[0]!;
     const mode = textValue(values, 'mode') ?? 'merge';
     if (mode !== 'merge' && mode !== 'replace') throw new CliFailure(EXIT.usage, `--mode must be merge or replace (not "${mode}").`);
     const csv = textValue(values, 'csv');
@@ -48,11 +56,12 @@ listed), 4 when the store cannot be opened or written.`,
     if (csv !== undefined && mode === 'replace') throw new CliFailure(EXIT.usage, '--csv imports always merge: a CSV holds one kind of part, and replacing would drop every other record.');
     const dryRun = flagValue(values, 'dry-run');
     const reason = textValue(values, 'reason') ?? '';
-    const { text } = readInputFile(io, file);
+    const acceptChanges = flagValue(values, 'accept-changes');
+    const { label: file, text } = await readInputFile(io, positionals[0]!, encodingOption(values));
     const report = (await withStore(io, dbPath, {}, async (host, existed) => {
       // The rolling copy is taken only for a file that looks writable, so refused files do not push older copies out.
       if (!dryRun && existed && host.ctx.raw && looksImportable(text, csv)) await rollingBackup(host.ctx.raw, backupFolderFor(dbPath), AUTO_BACKUPS_KEPT, io.now());
-      return csv !== undefined ? callOrFail(host, 'fleet.importCsv', { kind: csv, text, dryRun, reason }) : callOrFail(host, 'fleet.import', { text, mode, dryRun, reason });
+      return csv !== undefined ? callOrFail(host, 'fleet.importCsv', { kind: csv, text, dryRun, acceptChanges, reason }) : callOrFail(host, 'fleet.import', { text, mode, dryRun, acceptChanges, reason });
     })) as ImportReport;
     if (flagValue(values, 'json')) io.out(`${JSON.stringify(report, null, 2)}\n`);
     if (!report.ok) {

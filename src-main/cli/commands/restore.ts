@@ -1,6 +1,7 @@
 import { resolve } from 'node:path';
-import { openStore } from '../../store/open-database';
-import { restoreStore, RestoreRefused } from '../../store/backup';
+import { RestoredButUnsound, restoreStore } from '../../service/restore-store';
+import { RestoreRefused } from '../../store/restore-file';
+import { describeStorageError } from '../../store/storage-errors';
 import { CliFailure } from '../cli-io';
 import { flagValue, type Command } from '../command';
 import { EXIT } from '../exit-codes';
@@ -10,36 +11,43 @@ export const restoreCommand: Command = {
   summary: 'replace the store with a backup file (Rigbook must be closed)',
   help: `Usage: rigbook restore FILE [--json]
 
-Checks FILE first: it must be a SQLite file that passes SQLite's integrity check, holds
-Rigbook's tables, and has a schema version this Rigbook knows. The store must not be open
-in Rigbook or another command. The replaced store is kept beside it, renamed with the time
-(rigbook.replaced-<time>.sqlite); FILE itself is left as it is. A backup from an older
-Rigbook is brought up to date (after its own pre-migration copy).
+Checks FILE first: it must be a SQLite file that passes SQLite's integrity check, and its
+schema must be exactly what Rigbook's own migrations make for the schema version it records
+(a table, column, index, trigger or view changed or added outside Rigbook is refused). The
+store must not be open in Rigbook or another command.
+
+FILE is copied beside the store, brought up to date, and every build in it is re-checked by
+this Rigbook (the verdicts stored in a backup are never trusted), with a history entry. The
+copy then replaces the store in one step; journal files left beside the store (-wal, -shm,
+-journal) are moved aside first, so they cannot be replayed into the restored records. The
+replaced store is kept beside it, renamed with the time (rigbook.replaced-<time>.sqlite);
+FILE itself is left as it is.
 
 Exits 0 when restored, 2 when FILE cannot be read or is not a SQLite file, 3 when it is
-damaged or not a Rigbook store (nothing is replaced), 4 when the store is in use.`,
+damaged or its schema is not Rigbook's (nothing is replaced), 4 when the store is in use,
+the disk is full or the folder cannot be written.`,
   options: {},
   positionals: { min: 1, max: 1 },
   async run({ positionals, values, io, dbPath }) {
     const candidate = resolve(io.cwd, positionals[0]!);
     let result;
     try {
-      result = await restoreStore(candidate, dbPath, io.now());
+      result = await restoreStore(candidate, dbPath, { now: io.now() });
     } catch (error) {
       if (error instanceof RestoreRefused) {
         throw new CliFailure(error.reason === 'unreadable' ? EXIT.unreadable : error.reason === 'invalid' ? EXIT.invalid : EXIT.store, error.message);
       }
-      throw new CliFailure(EXIT.store, `The store was not replaced: ${(error as Error).message}`);
+      if (error instanceof RestoredButUnsound) throw new CliFailure(EXIT.store, `Restored, but ${error.message}`);
+      const storage = describeStorageError(error, dbPath);
+      throw new CliFailure(EXIT.store, `The store was not replaced: ${storage ? storage.message : (error as Error).message}`);
     }
-    // Opening brings an older backup's schema up to date and proves the store opens.
-    try {
-      const store = await openStore(dbPath);
-      await store.db.destroy();
-    } catch (error) {
-      throw new CliFailure(EXIT.store, `Restored, but the store does not open: ${(error as Error).message}. The replaced store is at ${result.keptAs ?? '(none)'}.`);
+    if (flagValue(values, 'json')) io.out(`${JSON.stringify({ restored: candidate, store: dbPath, keptAs: result.keptAs, setAside: result.setAside, rechecked: result.rechecked, verdictChanges: result.verdictChanges }, null, 2)}\n`);
+    else {
+      io.out(`Restored ${candidate}\n    into ${dbPath}\n`);
+      io.out(`Every build re-checked: ${result.rechecked} build${result.rechecked === 1 ? '' : 's'}, ${result.verdictChanges} verdict${result.verdictChanges === 1 ? '' : 's'} corrected from what the file held.\n`);
+      if (result.keptAs) io.out(`The replaced store was kept as ${result.keptAs}\n`);
+      for (const aside of result.setAside) io.out(`A journal file left beside the store was moved aside to ${aside}\n`);
     }
-    if (flagValue(values, 'json')) io.out(`${JSON.stringify({ restored: candidate, store: dbPath, keptAs: result.keptAs }, null, 2)}\n`);
-    else io.out(`Restored ${candidate}\n    into ${dbPath}\n${result.keptAs ? `The replaced store was kept as ${result.keptAs}\n` : ''}`);
     return EXIT.ok;
   },
 };

@@ -3,8 +3,9 @@
 // Number policy: numeric fields are written as plain numbers (JavaScript's shortest form that
 // reads back to the same value) and never escaped: a spreadsheet reads a plain number as a
 // number, not a formula, and a minus sign there is data. Text fields (names, notes, owner,
-// class) that start with = + - @, a tab or a CR are written with a leading apostrophe so a
-// spreadsheet shows them as text instead of running them; reading strips that one apostrophe.
+// class) that start with a formula character or anything a spreadsheet strips before one
+// (see LEAD) are written with a leading apostrophe so a spreadsheet shows them as text
+// instead of running them; reading strips that one apostrophe.
 // An empty cell is "not known" (null) for a field that may be unknown, and the form's default
 // for a field that has one.
 
@@ -55,17 +56,35 @@ export function csvColumns(kind: CsvKind): CsvColumn[] {
   return FIELD_ORDER[kind].map((name) => ({ name, ...cellKindOf(entries[name] as unknown as SchemaLike) }));
 }
 
-const FORMULA_START = /^'*[=+\-@\t\r]/;
-const ESCAPED_FORMULA = /^''*[=+\-@\t\r]/;
+/**
+ * What a spreadsheet may run as a formula, or strip before one: the formula starters
+ * = + - @ (and their full-width, small and typographic forms, which some spreadsheets fold to
+ * the ASCII ones, or which autocorrect may have put in place of a hyphen), and every control,
+ * space and invisible character that may be trimmed off the front of a cell (NUL, tab, CR,
+ * LF, NBSP, zero-width space, byte-order mark, ideographic space).
+ */
+const LEAD = /[=+\-@\uFF1D\uFF0B\uFF0D\uFF20\uFE66\uFE62\uFE63\u2212\u2010-\u2015\u0000-\u0020\u007F-\u00A0\u00AD\u1680\u180E\u2000-\u200F\u2028-\u202F\u205F-\u2064\u3000\uFEFF]/u.source;
+const FORMULA_START = new RegExp(`^'*${LEAD}`, 'u');
+const ESCAPED_FORMULA = new RegExp(`^''*${LEAD}`, 'u');
 const NUMBER = /^[-+]?(\d+(\.\d*)?|\.\d+)([eE][-+]?\d+)?$/;
 
-/** Text a spreadsheet would run as a formula gets a leading apostrophe (and so does text that already looks escaped, so reading is exact). */
+/**
+ * Text a spreadsheet could run as a formula gets a leading apostrophe (and so does text that
+ * already looks escaped, so reading is exact). Reading strips one apostrophe before any
+ * character of the same set, so the escape is still recognised when a spreadsheet trimmed or
+ * swapped the character after it (a zero-width space dropped, a hyphen turned into a dash).
+ */
 export function escapeFormula(text: string): string {
   return FORMULA_START.test(text) ? `'${text}` : text;
 }
 
 export function unescapeFormula(text: string): string {
   return ESCAPED_FORMULA.test(text) ? text.slice(1) : text;
+}
+
+/** Whether a cell read as a number: for telling an id a spreadsheet rewrote (`001` → `1`). */
+export function looksNumeric(text: string): boolean {
+  return NUMBER.test(text.trim());
 }
 
 export function toCell(column: CsvColumn, value: unknown): string {

@@ -2,7 +2,7 @@ import type { DbHandle } from '../../store/db-handle';
 import { loadBuilds } from '../../store/repositories/builds';
 import { listParts } from '../../store/repositories/parts';
 import { canonicalRecord } from './canonical-record';
-import { FLEET_FORMAT, FLEET_PART_KINDS, FLEET_VERSION, type FleetFile, type FleetRecords } from './fleet-format';
+import { FLEET_FORMAT, FLEET_PART_KINDS, FLEET_SCHEMA_ID, FLEET_VERSION, type FleetFile, type FleetRecords } from './fleet-format';
 import { progressCounter, type OnProgress } from './progress';
 
 /**
@@ -24,6 +24,7 @@ export async function exportFleet(db: DbHandle, onProgress?: OnProgress): Promis
   tick(0);
   builds.sort((a, b) => compareText(a.name, b.name) || compareText(a.id, b.id));
   const out: FleetFile = {
+    $schema: FLEET_SCHEMA_ID,
     format: FLEET_FORMAT,
     version: FLEET_VERSION,
     ...parts,

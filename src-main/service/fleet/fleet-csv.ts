@@ -5,6 +5,10 @@ import type { ServiceContext } from '../service-context';
 import { canonicalRecord } from './canonical-record';
 import { csvText, parseCsv } from './csv';
 import { csvColumns, fromCell, toCell, type CsvKind } from './csv-columns';
+import { numericTwin } from './numeric-twin';
+import { lossyDecodingReason } from './decode-file-bytes';
+
+export { numericTwin };
 import { FLEET_FORMAT, FLEET_VERSION, KIND_WORDS } from './fleet-format';
 import { fleetRecordSchemas } from './fleet-schemas';
 import type { FleetProblem } from './fleet-problems';
@@ -31,16 +35,59 @@ function cellPlace(row: number, column?: string): string {
   return column === undefined ? `row ${row}` : `row ${row}, column "${column}"`;
 }
 
-export type CsvRecords = { ok: true; records: unknown[] } | { ok: false; unreadable: boolean; problems: FleetProblem[] };
+export type CsvRecords = { ok: true; records: unknown[]; skippedRows: number } | { ok: false; unreadable: boolean; problems: FleetProblem[] };
 
-/** Reads and checks a CSV of one kind: header, every row, every cell; every problem named by row and column. */
-export function readCsvRecords(kind: CsvKind, text: string, onProgress?: OnProgress): CsvRecords {
+/**
+ * Columns added after the first files were written: a file from before them may leave them
+ * out, and the fields then take their defaults (not known).
+ */
+const LATER_COLUMNS: ReadonlySet<string> = new Set(['maxRpm', 'driveLayout', 'drivenWeightShare', 'water']);
+
+/** A row of nothing but separators (and spaces): spreadsheets write them for formatted empty rows. */
+function isBlankRow(cells: readonly string[]): boolean {
+  return cells.every((c) => c.trim() === '');
+}
+
+/** A header that is one cell holding the column names split by another character: the file is not comma-separated. */
+function otherSeparator(header: readonly string[], known: ReadonlySet<string>): string | null {
+  if (header.length !== 1) return null;
+  const only = header[0] ?? '';
+  for (const [sep, word] of [
+    [';', 'semicolons'],
+    ['\t', 'tabs'],
+  ] as const) {
+    const names = only.split(sep).map((n) => n.trim());
+    if (names.length > 1 && names.some((n) => known.has(n))) return word;
+  }
+  return null;
+}
+
+/** Reads and checks a CSV of one kind: header, every row, every cell; every problem named by row and column. `storedIds`, when given, are the ids of that kind already in the store. */
+export function readCsvRecords(kind: CsvKind, text: string, onProgress?: OnProgress, storedIds?: ReadonlySet<string>): CsvRecords {
+  const lossy = lossyDecodingReason(text);
+  if (lossy !== null) return { ok: false, unreadable: true, problems: [{ place: '', message: `Cannot read the file: ${lossy}` }] };
   const parsed = parseCsv(text);
   if (!parsed.ok) return { ok: false, unreadable: true, problems: [{ place: '', message: `The file is not readable CSV: ${parsed.reason}.` }] };
-  const [header, ...body] = parsed.rows;
+  const blank = parsed.rows.map(isBlankRow);
+  const firstRow = blank.indexOf(false);
+  const header = firstRow < 0 ? undefined : parsed.rows[firstRow];
   if (!header) return { ok: false, unreadable: true, problems: [{ place: '', message: 'The file is empty: it needs a header row naming the columns.' }] };
+  const body = parsed.rows.slice(firstRow + 1);
   const columns = csvColumns(kind);
   const byName = new Map(columns.map((c) => [c.name, c]));
+  const separator = otherSeparator(header, new Set(byName.keys()));
+  if (separator !== null) {
+    return {
+      ok: false,
+      unreadable: true,
+      problems: [
+        {
+          place: '',
+          message: `The file's columns are separated by ${separator}, not commas (spreadsheets do this where the comma is the decimal mark). Save it again as CSV with commas between columns and points in numbers (a spreadsheet set to a locale that writes 0.008, not 0,008), then import it.`,
+        },
+      ],
+    };
+  }
   const problems: FleetProblem[] = [];
   const seenColumns = new Set<string>();
   header.forEach((raw, i) => {
@@ -52,16 +99,24 @@ export function readCsvRecords(kind: CsvKind, text: string, onProgress?: OnProgr
     }
     seenColumns.add(name);
   });
-  for (const c of columns) if (!seenColumns.has(c.name)) problems.push({ place: cellPlace(1, c.name), message: 'this column is missing from the header' });
+  for (const c of columns) {
+    if (!seenColumns.has(c.name) && !LATER_COLUMNS.has(c.name)) problems.push({ place: cellPlace(1, c.name), message: 'this column is missing from the header' });
+  }
   if (problems.length > 0) return { ok: false, unreadable: false, problems };
 
   const schema = fleetRecordSchemas[kind];
   const names = header.map((h) => h.trim());
   const records: unknown[] = [];
-  const firstRow = new Map<string, number>();
+  const seenAt = new Map<string, number>();
+  let skippedRows = 0;
   const tick = progressCounter(onProgress, 'check', body.length);
   body.forEach((cells, index) => {
-    const row = index + 2;
+    // Rows count as a spreadsheet shows them: the header's own row number, plus one per row after it.
+    const row = firstRow + index + 2;
+    if (isBlankRow(cells)) {
+      skippedRows++;
+      return;
+    }
     if (cells.length !== names.length) {
       problems.push({ place: cellPlace(row), message: `has ${cells.length} cells; the header has ${names.length}` });
       return;
@@ -72,15 +127,24 @@ export function readCsvRecords(kind: CsvKind, text: string, onProgress?: OnProgr
       if (cell !== undefined) value[name] = cell;
     });
     const id = typeof value.id === 'string' ? value.id : '';
-    const seen = firstRow.get(id);
+    const seen = seenAt.get(id);
     if (id !== '' && seen !== undefined) problems.push({ place: cellPlace(row, 'id'), message: `"${id}" is used twice in this file (also row ${seen})` });
-    else if (id !== '') firstRow.set(id, row);
+    else if (id !== '') seenAt.set(id, row);
+    const twin = storedIds ? numericTwin(id, storedIds) : null;
+    if (twin !== null) {
+      problems.push({
+        place: cellPlace(row, 'id'),
+        message: `"${id}" matches no ${KIND_WORDS[kind].one} in the store, but "${twin}" is the same number written differently: a spreadsheet probably rewrote the id. Nothing was added; put the id back as "${twin}" (format the id column as text before editing).`,
+      });
+    }
     const result = v.safeParse(schema, value, { abortPipeEarly: true });
     if (result.success) records.push(result.output);
     else {
       for (const issue of result.issues) {
         const key = issue.path?.[0]?.key;
         const column = typeof key === 'string' ? key : undefined;
+        // The near-miss above already says what is wrong with this id.
+        if (twin !== null && column === 'id') continue;
         const missing = issue.received === 'undefined' && column !== undefined;
         problems.push({ place: cellPlace(row, column), message: missing ? 'is required (the cell is empty)' : issue.message });
       }
@@ -88,7 +152,7 @@ export function readCsvRecords(kind: CsvKind, text: string, onProgress?: OnProgr
     tick(index + 1);
   });
   if (problems.length > 0) return { ok: false, unreadable: false, problems };
-  return { ok: true, records };
+  return { ok: true, records, skippedRows };
 }
 
 /** A CSV merged into the store: new ids added, stored ones updated, builds using them re-checked. */
@@ -96,14 +160,17 @@ export async function importCsv(
   ctx: ServiceContext,
   kind: CsvKind,
   text: string,
-  options: { dryRun?: boolean; reason?: string; onProgress?: OnProgress },
+  options: { dryRun?: boolean; acceptChanges?: boolean; reason?: string; onProgress?: OnProgress },
 ): Promise<ImportReport> {
-  const read = readCsvRecords(kind, text, options.onProgress);
-  const base = { mode: 'merge' as const, source: 'csv', dryRun: options.dryRun ?? false, reason: options.reason ?? '', onProgress: options.onProgress };
+  // Read outside the import's transaction: only for the hint about rewritten ids; the import re-reads inside it.
+  const stored = new Set((await ctx.db.selectFrom(kind).select('id').execute()).map((r) => r.id));
+  const read = readCsvRecords(kind, text, options.onProgress, stored);
+  const base = { mode: 'merge' as const, source: 'csv', dryRun: options.dryRun ?? false, acceptChanges: options.acceptChanges ?? false, reason: options.reason ?? '', onProgress: options.onProgress };
   if (!read.ok) {
     // The same refusal shape as a fleet file's, with the CSV's own places.
     return refusedReport(base, read.problems, read.unreadable);
   }
-  return importFleet(ctx, { format: FLEET_FORMAT, version: FLEET_VERSION, [kind]: read.records }, base);
+  const report = await importFleet(ctx, { format: FLEET_FORMAT, version: FLEET_VERSION, [kind]: read.records }, base);
+  return { ...report, skippedRows: read.skippedRows };
 }
 

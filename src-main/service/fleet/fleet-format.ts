@@ -5,6 +5,11 @@ import type { Battery, Build, ClassRule, Controller, Motor, Propeller, Vehicle }
 
 export const FLEET_FORMAT = 'rigbook-fleet';
 export const FLEET_VERSION = 1;
+/**
+ * What exported files carry as `$schema`, and the `$id` of schema/rigbook-fleet.schema.json:
+ * a name for the schema, not an address to fetch (point an editor at the shipped file).
+ */
+export const FLEET_SCHEMA_ID = 'urn:rigbook:schema:rigbook-fleet:1';
 
 /** Part kinds in the order a file lists them (and the order they are written: builds refer to them). */
 export const FLEET_PART_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classRules'] as const;
@@ -24,6 +29,8 @@ export interface FleetRecords {
 
 /** A whole file. `classRules` is optional on reading; an export always writes it. */
 export interface FleetFile extends FleetRecords {
+  /** Always written by an export; a file may leave it out. */
+  $schema?: typeof FLEET_SCHEMA_ID;
   format: typeof FLEET_FORMAT;
   version: typeof FLEET_VERSION;
 }

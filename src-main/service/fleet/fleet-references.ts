@@ -38,8 +38,22 @@ export function referenceProblems(
     if (id === null || fileIds[kind].has(id) || stored[kind].has(id)) return;
     problems.push({ place, message: `no ${KIND_WORDS[kind].one} with id "${id}" ${where}` });
   };
+  const packNames = new Map(fleet.batteries.map((p) => [p.id, p.name]));
   fleet.builds.forEach((build, b) => {
     const at = placeOf('builds', buildPlaces[b] ?? 0);
+    // One physical pack can be in one place only in a build.
+    const placed = new Set<string>();
+    build.supplies.forEach((supply, j) =>
+      supply.batteryIds.forEach((packId, k) => {
+        if (placed.has(packId)) {
+          problems.push({ place: placeOf(at, 'supplies', j, 'batteryIds', k), message: `pack "${packNames.get(packId) ?? packId}" is already in this build; one physical pack can be in one place only` });
+        }
+        placed.add(packId);
+      }),
+    );
+    if (build.measuredSupplyId && !build.supplies.some((s) => s.id === build.measuredSupplyId)) {
+      problems.push({ place: placeOf(at, 'measuredSupplyId'), message: `the measured currents must name a supply of this build; there is no supply "${build.measuredSupplyId}"` });
+    }
     check(placeOf(at, 'vehicleId'), 'vehicles', build.vehicleId);
     check(placeOf(at, 'motorId'), 'motors', build.motorId);
     check(placeOf(at, 'controllerId'), 'controllers', build.controllerId);

@@ -5,9 +5,9 @@
 
 import * as v from 'valibot';
 import { buildCreateSchema } from '../schemas/build-schemas';
-import { count, id, nullable, record } from '../schemas/field-builders';
+import { count, newId, nullable, record } from '../schemas/field-builders';
 import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from '../schemas/part-schemas';
-import type { FleetKind } from './fleet-format';
+import { FLEET_FORMAT, FLEET_VERSION, type FleetKind } from './fleet-format';
 
 const MAX_VERSION = 1_000_000_000;
 
@@ -19,7 +19,7 @@ const bookkeeping = {
 
 function fileRecord<const E extends v.ObjectEntries & { id: unknown }>(entries: E) {
   const { id: _optionalId, ...rest } = entries;
-  return record({ id: id(), ...(rest as Omit<E, 'id'>), ...bookkeeping });
+  return record({ id: newId(), ...(rest as Omit<E, 'id'>), ...bookkeeping });
 }
 
 export const fleetRecordSchemas = {
@@ -45,3 +45,21 @@ export const FIELD_ORDER: Readonly<Record<FleetKind, readonly string[]>> = {
 
 export const GEARING_ORDER: readonly string[] = ['pinionTeeth', 'spurTeeth', 'internalRatio', 'tireDiameterMm', 'drivetrainEfficiency'];
 export const SUPPLY_ORDER: readonly string[] = ['id', 'arrangement', 'batteryIds'];
+
+/**
+ * The whole file, for the published JSON Schema. The importer checks the envelope itself (to
+ * word a newer version's refusal) and every record with `fleetRecordSchemas` above, the same
+ * schemas this one lists; the top-level keys it accepts are this schema's.
+ */
+export const fleetFileSchema = v.strictObject({
+  $schema: v.optional(v.string('must be text')),
+  format: v.literal(FLEET_FORMAT),
+  version: v.literal(FLEET_VERSION),
+  batteries: v.optional(v.array(fleetRecordSchemas.batteries)),
+  motors: v.optional(v.array(fleetRecordSchemas.motors)),
+  controllers: v.optional(v.array(fleetRecordSchemas.controllers)),
+  propellers: v.optional(v.array(fleetRecordSchemas.propellers)),
+  vehicles: v.optional(v.array(fleetRecordSchemas.vehicles)),
+  classRules: v.optional(v.array(fleetRecordSchemas.classRules)),
+  builds: v.optional(v.array(fleetRecordSchemas.builds)),
+});

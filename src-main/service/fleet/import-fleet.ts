@@ -35,10 +35,13 @@ import type { ServiceContext } from '../service-context';
 import { sameFields } from './canonical-record';
 import { FLEET_KINDS, FLEET_PART_KINDS, KIND_WORDS, type FleetKind, type FleetPartKind, type FleetRecords } from './fleet-format';
 import { sortProblems, type FleetProblem } from './fleet-problems';
-import { NO_STORED_IDS, referenceProblems } from './fleet-references';
+import { NO_STORED_IDS, referenceProblems, type StoredIds } from './fleet-references';
+import { numericTwin } from './numeric-twin';
 import { progressCounter, type OnProgress } from './progress';
+import { recordChange, suspectMessage, type RecordChange } from './fleet-changes';
 import { validateFleet } from './validate-fleet';
 import { readJsonText } from './read-fleet-text';
+import { lossyDecodingReason } from './decode-file-bytes';
 
 export const IMPORT_MODES = ['merge', 'replace'] as const;
 export type ImportMode = (typeof IMPORT_MODES)[number];
@@ -53,6 +56,8 @@ export interface ImportOptions {
   source?: string;
   /** Refuse (as a conflict, nothing written) when the store already holds any part or build. */
   requireEmptyStore?: boolean;
+  /** Confirms changes that look like a spreadsheet's damage (a number scaled by 100 or more, or out of its plausible range); without it they refuse the import. */
+  acceptChanges?: boolean;
   onProgress?: OnProgress;
 }
 
@@ -64,6 +69,8 @@ export interface KindCounts {
 
 /** The most build-level verdict changes a report lists; the count says how many there were. */
 export const MAX_LISTED_CHANGES = 500;
+/** The most changed records a report lists field by field; `changedRecordCount` says how many there were. Changes that need confirming are always listed. */
+export const MAX_LISTED_RECORD_CHANGES = 1000;
 
 export interface ImportReport {
   /** False when the file was refused: `problems` says why, and nothing was written. */
@@ -84,6 +91,15 @@ export interface ImportReport {
   verdictChanges: VerdictChange[];
   verdictChangeCount: number;
   historyId: number | null;
+  /** Stored records the import changes (or would change), field by field, before → after. */
+  recordChanges: RecordChange[];
+  changedRecordCount: number;
+  /** How many field changes need confirming (`acceptChanges`); when not confirmed the import is refused and each is a problem. */
+  suspectChangeCount: number;
+  /** Refused only because changes need confirming: importing again with `acceptChanges` would go through. */
+  needsConfirmation: boolean;
+  /** CSV rows holding nothing but separators, skipped. */
+  skippedRows: number;
 }
 
 function zeroCounts(): Record<FleetKind, KindCounts> {
@@ -98,7 +114,7 @@ function zeroStatuses(): Record<Status, number> {
   return out;
 }
 
-export function refusedReport(options: ImportOptions, problems: FleetProblem[], unreadable = false): ImportReport {
+export function refusedReport(options: ImportOptions, problems: FleetProblem[], unreadable = false, changes: RecordChange[] = [], needsConfirmation = false): ImportReport {
   return {
     ok: false,
     unreadable,
@@ -113,12 +129,28 @@ export function refusedReport(options: ImportOptions, problems: FleetProblem[], 
     verdictChanges: [],
     verdictChangeCount: 0,
     historyId: null,
+    ...listedChanges(changes),
+    needsConfirmation,
+    skippedRows: 0,
+  };
+}
+
+function listedChanges(changes: readonly RecordChange[]): Pick<ImportReport, 'recordChanges' | 'changedRecordCount' | 'suspectChangeCount'> {
+  const suspect = changes.filter((c) => c.fields.some((f) => f.suspect !== null));
+  const rest = changes.filter((c) => !c.fields.some((f) => f.suspect !== null));
+  return {
+    recordChanges: [...suspect, ...rest.slice(0, Math.max(0, MAX_LISTED_RECORD_CHANGES - suspect.length))],
+    changedRecordCount: changes.length,
+    suspectChangeCount: suspect.reduce((n, c) => n + c.fields.filter((f) => f.suspect !== null).length, 0),
   };
 }
 
 /** Thrown inside the transaction to leave it with nothing written. */
 class ImportRefused extends Error {
-  constructor(readonly problems: FleetProblem[]) {
+  constructor(
+    readonly problems: FleetProblem[],
+    readonly changes: RecordChange[] = [],
+  ) {
     super('import refused');
   }
 }
@@ -147,6 +179,7 @@ interface Written {
   removed: ClearedCounts | null;
   recheck: readonly string[] | BuildSelector;
   changedIds: Partial<Record<FleetKind, string[]>>;
+  changes: RecordChange[];
 }
 
 async function writeParts<K extends FleetPartKind>(
@@ -165,8 +198,10 @@ async function writeParts<K extends FleetPartKind>(
   for (const record of records) {
     const stored = before.get(record.id);
     if (!stored) added.push(record);
-    else if (!sameFields(kind, record, stored)) changed.push(record);
-    else written.counts[kind].unchanged++;
+    else if (!sameFields(kind, record, stored)) {
+      changed.push(record);
+      written.changes.push(recordChange(kind, stored, record));
+    } else written.counts[kind].unchanged++;
   }
   await insertPartRows(trx, kind, added, at);
   for (const record of changed) {
@@ -185,7 +220,7 @@ async function writeParts<K extends FleetPartKind>(
 
 async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, at: string, onProgress?: OnProgress): Promise<Written> {
   const merging = mode === 'merge';
-  const written: Written = { counts: zeroCounts(), removed: null, recheck: [], changedIds: {} };
+  const written: Written = { counts: zeroCounts(), removed: null, recheck: [], changedIds: {}, changes: [] };
   if (!merging) written.removed = await clearFleetTables(trx);
   const total = FLEET_KINDS.reduce((n, k) => n + fleet[k].length, 0);
   const progress = progressCounter(onProgress, 'write', total);
@@ -215,6 +250,7 @@ async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, 
     const stored = storedBuilds.get(b.id);
     return stored !== undefined && !sameFields('builds', b, stored);
   });
+  for (const b of changedBuilds) written.changes.push(recordChange('builds', storedBuilds.get(b.id)!, b));
   written.counts.builds = { added: addedBuilds.length, updated: changedBuilds.length, unchanged: fleet.builds.length - addedBuilds.length - changedBuilds.length };
   written.changedIds.builds = [...addedBuilds, ...changedBuilds].map((b) => b.id);
   // Supplies of every rewritten build go first, so one may move a supply id to another.
@@ -266,6 +302,21 @@ async function refuseUnlessEmpty(db: DbHandle): Promise<void> {
   }
 }
 
+const ID_PLACE = /^(batteries|motors|controllers|propellers|vehicles)\[(\d+)\]\.id$/;
+
+/** An id refused for starting with a digit that equals a stored id as a number (`1` for `001`): say so, as the CSV import does. */
+function hintRewrittenIds(input: unknown, problems: readonly FleetProblem[], stored: StoredIds): FleetProblem[] {
+  return problems.map((p) => {
+    const m = ID_PLACE.exec(p.place);
+    if (!m) return p;
+    const kind = m[1] as keyof Pick<StoredIds, 'batteries' | 'motors' | 'controllers' | 'propellers' | 'vehicles'>;
+    const raw = ((input as Record<string, unknown[]>)[kind]?.[Number(m[2])] as { id?: unknown } | undefined)?.id;
+    const twin = typeof raw === 'string' ? numericTwin(raw, stored[kind]) : null;
+    if (twin === null) return p;
+    return { place: p.place, message: `"${String(raw)}" matches no ${KIND_WORDS[kind].one} in the store, but "${twin}" is the same number written differently: a spreadsheet or script probably rewrote the id. Nothing was added; put the id back as "${twin}".` };
+  });
+}
+
 function tally(verdicts: readonly BuildVerdict[]): Record<Status, number> {
   const out = zeroStatuses();
   for (const v of verdicts) out[v.status]++;
@@ -284,9 +335,13 @@ export async function importFleet(ctx: ServiceContext, input: unknown, options: 
         // Checked inside the transaction, so no other writer can change what the references resolve to.
         const stored = options.mode === 'merge' ? await readFleetIds(trx) : NO_STORED_IDS;
         if (options.requireEmptyStore) await refuseUnlessEmpty(trx);
-        const problems = [...validation.problems, ...referenceProblems(validation.fleet, validation.fileIds, stored, validation.buildPlaces)];
+        const problems = [...hintRewrittenIds(input, validation.problems, stored), ...referenceProblems(validation.fleet, validation.fileIds, stored, validation.buildPlaces)];
         if (problems.length > 0) throw new ImportRefused(sortProblems(problems, FLEET_KINDS));
         written = await writeFleet(trx, validation.fleet, options.mode, at, options.onProgress);
+        if (!options.acceptChanges) {
+          const suspect = written.changes.flatMap((record) => record.fields.filter((f) => f.suspect !== null).map((f) => ({ place: '', message: suspectMessage(record, f) })));
+          if (suspect.length > 0) throw new ImportRefused(suspect, written.changes);
+        }
         const what = source === 'demo' ? 'the demo fleet' : source === 'csv' ? 'a CSV file' : 'a fleet file';
         return {
           result: null,
@@ -328,16 +383,21 @@ export async function importFleet(ctx: ServiceContext, input: unknown, options: 
       verdictChanges: buildChanges.slice(0, MAX_LISTED_CHANGES),
       verdictChangeCount: buildChanges.length,
       historyId: options.dryRun ? null : outcome.historyId,
+      ...listedChanges(done.changes),
+      needsConfirmation: false,
+      skippedRows: 0,
     };
   } catch (error) {
-    if (error instanceof ImportRefused) return refusedReport(options, error.problems);
+    if (error instanceof ImportRefused) return refusedReport(options, error.problems, false, error.changes, error.changes.length > 0);
     throw error;
   }
 }
 
 /** Import of a file's text: not JSON at all is refused as unreadable, with where reading stopped. */
 export async function importFleetText(ctx: ServiceContext, text: string, options: ImportOptions): Promise<ImportReport> {
+  const lossy = lossyDecodingReason(text);
+  if (lossy !== null) return refusedReport(options, [{ place: '', message: `Cannot read the file: ${lossy}` }], true);
   const read = readJsonText(text);
-  if (!read.ok) return refusedReport(options, [{ place: '', message: read.reason }], true);
+  if (!read.ok) return refusedReport(options, [{ place: read.place, message: read.reason }], read.unreadable);
   return importFleet(ctx, read.value, options);
 }

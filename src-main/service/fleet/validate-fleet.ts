@@ -3,7 +3,7 @@
 // stored) is checked by fleet-references.ts with the ids this returns.
 
 import { FLEET_FORMAT, FLEET_KINDS, FLEET_VERSION, KIND_WORDS, type FleetKind, type FleetRecords } from './fleet-format';
-import { fleetRecordSchemas } from './fleet-schemas';
+import { fleetFileSchema, fleetRecordSchemas } from './fleet-schemas';
 import { placeOf, schemaProblems, type FleetProblem } from './fleet-problems';
 import { progressCounter, type OnProgress } from './progress';
 
@@ -64,10 +64,11 @@ export function validateFleet(input: unknown, onProgress?: OnProgress): FleetVal
   if (early) return { fleet, fileIds, buildPlaces: [], problems: early, envelopeOk: false };
   const file = input as Record<string, unknown>;
   const problems: FleetProblem[] = [];
-  const known = new Set<string>(['format', 'version', ...FLEET_KINDS]);
+  const known = new Set<string>(Object.keys(fleetFileSchema.entries));
   for (const key of Object.keys(file)) {
     if (!known.has(key)) problems.push({ place: key, message: `is not part of a ${FLEET_FORMAT} file (it holds: ${FLEET_KINDS.join(', ')})` });
   }
+  if (file.$schema !== undefined && typeof file.$schema !== 'string') problems.push({ place: '$schema', message: 'must be text (the name of the schema the file follows)' });
 
   const lists: Partial<Record<FleetKind, unknown[]>> = {};
   let total = 0;

@@ -36,12 +36,26 @@ async function checkReferences(db: DbHandle, buildId: string, fields: Partial<Bu
     if (value === undefined || value === null) continue;
     if (!(await getPart(db, table, value))) throw new ServiceError('invalid', `${field}: no ${label} with id "${value}"`, field);
   }
+  if (fields.measuredSupplyId !== undefined && fields.measuredSupplyId !== null) {
+    const supplyIds = fields.supplies?.map((s) => s.id) ?? (await getBuild(db, buildId))?.supplies.map((s) => s.id) ?? [];
+    if (!supplyIds.includes(fields.measuredSupplyId)) {
+      throw new ServiceError('invalid', `measuredSupplyId: the measured currents must name a supply of this build; there is no supply "${fields.measuredSupplyId}"`, 'measuredSupplyId');
+    }
+  }
   if (!fields.supplies) return;
   const packIds = fields.supplies.flatMap((s) => s.batteryIds);
-  const known = new Set((await getParts(db, 'batteries', packIds)).map((b) => b.id));
+  const packs = new Map((await getParts(db, 'batteries', packIds)).map((b) => [b.id, b]));
+  // One physical pack can be in one place only: twice in a supply or in two supplies is refused.
+  const placed = new Set<string>();
   fields.supplies.forEach((s, i) =>
     s.batteryIds.forEach((packId, j) => {
-      if (!known.has(packId)) throw new ServiceError('invalid', `supplies.${i}.batteryIds.${j}: no pack with id "${packId}"`, `supplies.${i}.batteryIds.${j}`);
+      const field = `supplies.${i}.batteryIds.${j}`;
+      const pack = packs.get(packId);
+      if (!pack) throw new ServiceError('invalid', `${field}: no pack with id "${packId}"`, field);
+      if (placed.has(packId)) {
+        throw new ServiceError('invalid', `${field}: pack "${pack.name}" is already in this build; one physical pack can be in one place only`, field);
+      }
+      placed.add(packId);
     }),
   );
   const supplyIds = fields.supplies.map((s) => s.id);

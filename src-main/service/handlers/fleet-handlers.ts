@@ -26,7 +26,10 @@ export const exportFleetHandler = defineHandler(v.optional(record({}), {}), asyn
 
 /**
  * Imports a rigbook-fleet file, given as its text or as the parsed object. The answer is a
- * report: `ok: false` with every problem and its place means nothing was written.
+ * report: `ok: false` with every problem and its place means nothing was written. The report
+ * lists every stored record the import changes, field by field (a dry run is the window's
+ * preview); a change that looks like a spreadsheet's damage refuses the import
+ * (`needsConfirmation`) until it is called again with `acceptChanges: true`.
  */
 export const importFleetHandler = defineHandler(
   record({
@@ -34,10 +37,11 @@ export const importFleetHandler = defineHandler(
     fleet: v.optional(v.unknown()),
     mode: v.optional(oneOf(IMPORT_MODES), 'merge'),
     dryRun: v.optional(flag(), false),
+    acceptChanges: v.optional(flag(), false),
     reason: reason(),
   }),
   async (ctx, input) => {
-    const options = { mode: input.mode, dryRun: input.dryRun, reason: input.reason, source: 'file', onProgress: progressEvents(ctx, 'fleet') };
+    const options = { mode: input.mode, dryRun: input.dryRun, acceptChanges: input.acceptChanges, reason: input.reason, source: 'file', onProgress: progressEvents(ctx, 'fleet') };
     if (input.text !== undefined && input.fleet === undefined) return importFleetText(ctx, input.text, options);
     if (input.fleet !== undefined && input.text === undefined) return importFleet(ctx, input.fleet, options);
     throw new ServiceError('invalid', 'text: give either the file text or a fleet object, not both and not neither', 'text');
@@ -52,6 +56,7 @@ export const exportCsvHandler = defineHandler(record({ kind: csvKind() }), async
 
 /** Merges a CSV of one part kind; the report names each problem by row and column. */
 export const importCsvHandler = defineHandler(
-  record({ kind: csvKind(), text: fileText(), dryRun: v.optional(flag(), false), reason: reason() }),
-  async (ctx, input) => importCsv(ctx, CSV_KIND_ALIASES[input.kind], input.text, { dryRun: input.dryRun, reason: input.reason, onProgress: progressEvents(ctx, 'fleet') }),
+  record({ kind: csvKind(), text: fileText(), dryRun: v.optional(flag(), false), acceptChanges: v.optional(flag(), false), reason: reason() }),
+  async (ctx, input) =>
+    importCsv(ctx, CSV_KIND_ALIASES[input.kind], input.text, { dryRun: input.dryRun, acceptChanges: input.acceptChanges, reason: input.reason, onProgress: progressEvents(ctx, 'fleet') }),
 );

@@ -3,12 +3,14 @@ import { readSettings, writeSettings, type Settings } from '../../store/reposito
 import { defineHandler } from '../define-handler';
 import { runWrite } from '../run-write';
 import { flag, number, oneOf, record } from '../schemas/field-builders';
+import { NUMBER_LOCALE_TAGS } from '../../core/number-text';
 
 export const getSettings = defineHandler(v.optional(record({}), {}), async (ctx) => readSettings(ctx.db));
 
 export const updateSettings = defineHandler(
   record({
     units: v.optional(oneOf(['metric', 'imperial'] as const)),
+    numberLocale: v.optional(oneOf(NUMBER_LOCALE_TAGS)),
     tightThreshold: v.optional(number({ min: 0, max: 0.9 })),
     demoOffered: v.optional(flag()),
   }),

@@ -1,13 +1,13 @@
 import * as v from 'valibot';
 import { ARRANGEMENTS } from '../../core/domain';
-import { count, id, name, notes, nullable, number, oneOf, positive, record } from './field-builders';
+import { count, id, name, newId, notes, nullable, number, oneOf, plausible, positive, record } from './field-builders';
 
 export const gearingSchema = record({
   pinionTeeth: v.optional(nullable(count(5, 200)), null),
   spurTeeth: v.optional(nullable(count(5, 500)), null),
   internalRatio: v.optional(positive(1000), 1),
   tireDiameterMm: v.optional(nullable(positive(5000)), null),
-  drivetrainEfficiency: v.optional(number({ above: 0, max: 1 }), 0.9),
+  drivetrainEfficiency: v.optional(plausible('gearing.drivetrainEfficiency'), 0.9),
 });
 
 export const supplySchema = record({
@@ -29,12 +29,14 @@ const buildEntries = {
   supplies: supplies(),
   measuredPeakCurrentA: nullable(positive(20_000)),
   measuredAverageCurrentA: nullable(positive(20_000)),
+  measuredSupplyId: nullable(id()),
+  runLengthS: nullable(plausible('build.runLengthS')),
   tightThreshold: nullable(number({ min: 0, max: 0.9 })),
   notes: notes(),
 };
 
 export const buildCreateSchema = record({
-  id: v.optional(id()),
+  id: v.optional(newId()),
   name: buildEntries.name,
   vehicleId: buildEntries.vehicleId,
   motorId: v.optional(buildEntries.motorId, null),
@@ -45,6 +47,8 @@ export const buildCreateSchema = record({
   supplies: v.optional(buildEntries.supplies, []),
   measuredPeakCurrentA: v.optional(buildEntries.measuredPeakCurrentA, null),
   measuredAverageCurrentA: v.optional(buildEntries.measuredAverageCurrentA, null),
+  measuredSupplyId: v.optional(buildEntries.measuredSupplyId, null),
+  runLengthS: v.optional(buildEntries.runLengthS, null),
   tightThreshold: v.optional(buildEntries.tightThreshold, null),
   notes: v.optional(buildEntries.notes, ''),
 });

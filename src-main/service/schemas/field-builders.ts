@@ -1,4 +1,5 @@
 import * as v from 'valibot';
+import { PLAUSIBLE, plausibleMessage, type PlausibleField, type PlausibleRange } from '../../core/plausibility';
 
 // Small builders so that every field's message reads the same way. The field's name is
 // added in front of the message where the issue is turned into an ApiError.
@@ -20,6 +21,22 @@ export const id = () =>
     v.minLength(1, 'is required'),
     v.maxLength(64, 'must be at most 64 characters'),
     v.regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'may hold only letters, digits, dot, dash and underscore'),
+  );
+
+/**
+ * The id of a record being created (by a form or an import). It starts with a letter:
+ * spreadsheets rewrite anything that looks like a number (001 → 1, 1.50 → 1.5,
+ * 1e5 → 1.00E+05), and a rewritten id would silently become another record. References to
+ * records already stored still take any `id()`.
+ */
+export const newId = () =>
+  v.pipe(
+    id(),
+    v.regex(
+      /^[A-Za-z]/,
+      (issue) =>
+        `must start with a letter (${JSON.stringify(issue.input)} does not): spreadsheets rewrite ids that look like numbers (001 becomes 1, 1e5 becomes 1.00E+05), so Rigbook's ids start with a letter`,
+    ),
   );
 
 export const name = () =>
@@ -51,4 +68,20 @@ export const flag = () => v.boolean('must be true or false');
 /** Required on create unless a default is given; optional in a patch. */
 export function nullable<S extends v.GenericSchema>(schema: S) {
   return v.nullable(schema);
+}
+
+/**
+ * A number inside the core's plausible range for the field, refused with one message that
+ * says what was expected (the same bounds the engine applies to stored values).
+ */
+export function plausible(field: PlausibleField) {
+  const message = plausibleMessage(field);
+  const r: PlausibleRange = PLAUSIBLE[field];
+  // Bounds as value actions (not a free-form check), so the published JSON Schema carries them too;
+  // they are exactly the core's isPlausible (finite, above, min, max).
+  const checks: v.PipeItem<number, number, v.BaseIssue<unknown>>[] = [v.finite(message)];
+  if (r.above !== undefined) checks.push(v.gtValue(r.above, message));
+  if (r.min !== undefined) checks.push(v.minValue(r.min, message));
+  checks.push(v.maxValue(r.max, message));
+  return v.pipe(v.number('must be a number'), ...checks);
 }

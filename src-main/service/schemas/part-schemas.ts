@@ -1,6 +1,6 @@
 import * as v from 'valibot';
-import { CHEMISTRIES, VEHICLE_KINDS } from '../../core/domain';
-import { count, flag, id, name, notes, nullable, number, oneOf, positive, record, text } from './field-builders';
+import { CHEMISTRIES, DRIVE_LAYOUTS, VEHICLE_KINDS, WATER_TYPES } from '../../core/domain';
+import { count, flag, id, name, newId, notes, nullable, number, oneOf, plausible, positive, record, text } from './field-builders';
 
 // Each part kind lists its fields once; the create schema fills defaults and the patch
 // schema makes every field optional. Limits are generous bounds against typing slips, not
@@ -10,7 +10,7 @@ function schemasFor<const E extends v.ObjectEntries, const D extends { [K in key
   const createEntries = Object.fromEntries(
     Object.entries(entries).map(([key, schema]) => [key, key in defaults ? v.optional(schema, defaults[key as keyof D] as never) : schema]),
   ) as { [K in keyof E]: K extends keyof D ? v.OptionalSchema<E[K], never> : E[K] };
-  const create = record({ id: v.optional(id()), ...createEntries });
+  const create = record({ id: v.optional(newId()), ...createEntries });
   const patch = v.partial(record(entries));
   return { create, patch };
 }
@@ -24,7 +24,7 @@ export const batterySchemas = schemasFor(
     capacityMah: positive(1_000_000),
     cRatingContinuous: nullable(positive(1000)),
     cRatingBurst: nullable(positive(2000)),
-    cellResistanceOhm: nullable(number({ min: 0, max: 10 })),
+    cellResistanceOhm: nullable(plausible('battery.cellResistanceOhm')),
     massKg: nullable(positive(1000)),
     cycleCount: count(0, 100_000),
     retired: flag(),
@@ -36,8 +36,8 @@ export const batterySchemas = schemasFor(
 export const motorSchemas = schemasFor(
   {
     name: name(),
-    kv: positive(100_000),
-    resistanceOhm: nullable(positive(100)),
+    kv: plausible('motor.kv'),
+    resistanceOhm: nullable(plausible('motor.resistanceOhm')),
     noLoadCurrentA: nullable(number({ min: 0, max: 1000 })),
     maxCurrentA: nullable(positive(10_000)),
     maxPowerW: nullable(positive(1_000_000)),
@@ -72,9 +72,10 @@ export const propellerSchemas = schemasFor(
     blades: count(1, 12),
     thrustCoefficient: nullable(positive(10)),
     powerCoefficient: nullable(positive(10)),
+    maxRpm: nullable(plausible('propeller.maxRpm')),
     notes: notes(),
   },
-  { pitchMm: null, blades: 2, thrustCoefficient: null, powerCoefficient: null, notes: '' },
+  { pitchMm: null, blades: 2, thrustCoefficient: null, powerCoefficient: null, maxRpm: null, notes: '' },
 );
 
 export const vehicleSchemas = schemasFor(
@@ -85,11 +86,25 @@ export const vehicleSchemas = schemasFor(
     dragAreaM2: nullable(positive(100)),
     rollingCoefficient: nullable(number({ min: 0, max: 1 })),
     tractionCoefficient: nullable(positive(5)),
+    driveLayout: nullable(oneOf(DRIVE_LAYOUTS)),
+    drivenWeightShare: nullable(plausible('vehicle.drivenWeightShare')),
+    water: nullable(oneOf(WATER_TYPES)),
     owner: text(120),
     className: text(80),
     notes: notes(),
   },
-  { massKg: null, dragAreaM2: null, rollingCoefficient: null, tractionCoefficient: null, owner: '', className: '', notes: '' },
+  {
+    massKg: null,
+    dragAreaM2: null,
+    rollingCoefficient: null,
+    tractionCoefficient: null,
+    driveLayout: null,
+    drivenWeightShare: null,
+    water: null,
+    owner: '',
+    className: '',
+    notes: '',
+  },
 );
 
 export const classRuleSchemas = schemasFor(

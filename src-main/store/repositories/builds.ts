@@ -20,6 +20,8 @@ const EVALUATION_COLUMNS = [
   'builds.drivetrainEfficiency',
   'builds.measuredPeakCurrentA',
   'builds.measuredAverageCurrentA',
+  'builds.measuredSupplyId',
+  'builds.runLengthS',
   'builds.tightThreshold',
 ] as const;
 
@@ -52,6 +54,8 @@ function rowToBuild(row: EvaluationRow, supplies: Supply[], meta: BuildMeta): Bu
     supplies,
     measuredPeakCurrentA: row.measuredPeakCurrentA,
     measuredAverageCurrentA: row.measuredAverageCurrentA,
+    measuredSupplyId: row.measuredSupplyId,
+    runLengthS: row.runLengthS,
     tightThreshold: row.tightThreshold,
   };
 }

@@ -2,6 +2,8 @@ import type { DbHandle } from '../db-handle';
 
 export interface Settings {
   units: 'metric' | 'imperial';
+  /** Locale whose marks numbers are shown and typed with ("de-DE"); '' follows the system. */
+  numberLocale: string;
   /** Margin under which a finding reads `tight`, when neither build nor class sets one. */
   tightThreshold: number;
   /** Whether the first-start offer of the demo fleet was answered. */
@@ -10,7 +12,7 @@ export interface Settings {
   engineVersion: number;
 }
 
-export const DEFAULT_SETTINGS: Settings = { units: 'metric', tightThreshold: 0.15, demoOffered: false, engineVersion: 0 };
+export const DEFAULT_SETTINGS: Settings = { units: 'metric', numberLocale: '', tightThreshold: 0.15, demoOffered: false, engineVersion: 0 };
 
 export async function readSettings(db: DbHandle): Promise<Settings> {
   const rows = await db.selectFrom('settings').select(['key', 'value']).execute();

@@ -1,5 +1,7 @@
 import { Chart, type ChartConfiguration } from 'chart.js';
 import type { Finding } from '../../../src-main/core/domain';
+import type { RunTrace } from '../../../src-main/core/run-trace';
+import { displayUnit, toDisplay, type UnitSystem } from '../../../src-main/core/units';
 import type { MotorChartData } from './motor-chart-data';
 import { ruleName } from '../verdict/rule-names';
 
@@ -88,7 +90,10 @@ export function currentPowerConfig(d: MotorChartData): ChartConfiguration<'line'
   };
 }
 
-export function torqueEfficiencyConfig(d: MotorChartData): ChartConfiguration<'line' | 'scatter'> {
+/** Torque in the user's units: N·m, or oz·in in imperial. */
+export function torqueEfficiencyConfig(d: MotorChartData, system: UnitSystem = 'metric'): ChartConfiguration<'line' | 'scatter'> {
+  const torqueUnit = displayUnit('torqueNm', system);
+  const torque = d.curve.torqueNm.map((t) => toDisplay(t, 'torqueNm', system));
   const effAt = (rpm: number): number => {
     const { rpm: xs, efficiency } = d.curve;
     for (let k = 1; k < xs.length; k++) {
@@ -103,7 +108,7 @@ export function torqueEfficiencyConfig(d: MotorChartData): ChartConfiguration<'l
     type: 'line',
     data: {
       datasets: [
-        { type: 'line', label: 'Torque (N·m)', data: xy(d.curve.rpm, d.curve.torqueNm), borderColor: SERIES.torque.color, borderDash: SERIES.torque.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y' },
+        { type: 'line', label: `Torque (${torqueUnit})`, data: xy(d.curve.rpm, torque), borderColor: SERIES.torque.color, borderDash: SERIES.torque.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y' },
         {
           type: 'line',
           label: 'Efficiency (%)',
@@ -117,7 +122,7 @@ export function torqueEfficiencyConfig(d: MotorChartData): ChartConfiguration<'l
         operatingPoints(d, d.marks.map((m) => effAt(m.rpm)), 'y1'),
       ],
     },
-    options: motorCurveOptions(d, (y) => `${y.toFixed(0)} %`, (i) => (i === 0 ? 3 : 0), { title: 'Torque (N·m)' }, { title: 'Efficiency (%)', max: 100 }),
+    options: motorCurveOptions(d, (y) => `${y.toFixed(0)} %`, (i) => (i === 0 ? (system === 'metric' ? 3 : 1) : 0), { title: `Torque (${torqueUnit})` }, { title: 'Efficiency (%)', max: 100 }),
   };
 }
 
@@ -165,6 +170,44 @@ export function currentLimitsConfig(findings: readonly Finding[]): ChartConfigur
       scales: {
         x: { min: 0, title: { display: true, text: 'Current (A); controller and motor rows are per motor' }, grid: { color: '#ebe9e3' } },
         y: { grid: { display: false } },
+      },
+    },
+  };
+}
+
+/** The full-throttle run of a car or truck: supply current and road speed against time. */
+export function runConfig(run: RunTrace, units: UnitSystem): ChartConfiguration<'line'> {
+  const speedUnit = displayUnit('speedKmh', units);
+  return {
+    type: 'line',
+    data: {
+      datasets: [
+        { label: 'Supply current (A)', data: xy(run.timeS, run.currentA), borderColor: SERIES.current.color, borderDash: SERIES.current.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y' },
+        {
+          label: `Speed (${speedUnit})`,
+          data: xy(run.timeS, run.speedKmh.map((v) => toDisplay(v, 'speedKmh', units))),
+          borderColor: SERIES.power.color,
+          borderDash: SERIES.power.dash,
+          borderWidth: 2,
+          pointRadius: 0,
+          yAxisID: 'y1',
+        },
+      ],
+    },
+    options: {
+      responsive: true,
+      maintainAspectRatio: false,
+      parsing: false,
+      animation: false,
+      interaction: { mode: 'nearest', intersect: false },
+      plugins: {
+        legend: { position: 'bottom', labels: { boxWidth: 18, boxHeight: 2 } },
+        tooltip: { callbacks: { title: (items) => `${(items[0]?.parsed.x ?? 0).toFixed(2)} s` } },
+      },
+      scales: {
+        x: { type: 'linear', min: 0, max: run.runLengthS, title: { display: true, text: 'Time from standstill (s)' }, grid: { color: '#ebe9e3' } },
+        y: { type: 'linear', position: 'left', min: 0, title: { display: true, text: 'Supply current (A)' }, grid: { color: '#ebe9e3' } },
+        y1: { type: 'linear', position: 'right', min: 0, title: { display: true, text: `Speed (${speedUnit})` }, grid: { drawOnChartArea: false } },
       },
     },
   };

@@ -1,18 +1,28 @@
+import { numberForInput } from '../../../src-main/core/number-text';
+import { numberLocale } from './number-locale.svelte';
+
 // Numbers as the screens show them: a fixed count of decimals per figure, a thin space before
-// units, and an en dash where a figure is missing.
+// units, and an en dash where a figure is missing. Marks follow the number locale (the
+// setting, else the system's), the same marks the forms read typed numbers with.
 
 export const MISSING = '–';
 
-// One formatter per decimal count: building an Intl formatter per call costs more than the
-// rest of a list row's update.
-const FORMATTERS = new Map<number, Intl.NumberFormat>();
+// One formatter per locale and decimal count: building an Intl formatter per call costs more
+// than the rest of a list row's update.
+const FORMATTERS = new Map<string, Intl.NumberFormat>();
 
 export function fixed(value: number | null | undefined, decimals: number): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return MISSING;
-  let f = FORMATTERS.get(decimals);
+  const locale = numberLocale.tag;
+  const key = `${locale}|${decimals}`;
+  let f = FORMATTERS.get(key);
   if (!f) {
-    f = new Intl.NumberFormat('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals });
-    FORMATTERS.set(decimals, f);
+    try {
+      f = new Intl.NumberFormat(locale, { minimumFractionDigits: decimals, maximumFractionDigits: decimals, numberingSystem: 'latn' });
+    } catch {
+      f = new Intl.NumberFormat('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals });
+    }
+    FORMATTERS.set(key, f);
   }
   return f.format(value);
 }
@@ -37,7 +47,15 @@ export function percent(ratio: number | null | undefined, decimals = 0): string 
   return `${fixed(ratio * 100, decimals)} %`;
 }
 
-/** Up to six significant digits without float noise, for a value put back into an input. */
-export function editable(value: number): string {
-  return String(Number(value.toPrecision(6)));
+/**
+ * Up to six significant digits without float noise, for a value put back into an input, in
+ * the locale's marks and written so that it reads back as itself.
+ */
+export function editable(value: number, significant = 6): string {
+  return numberForInput(Number(value.toPrecision(significant)), numberLocale.marks);
+}
+
+/** A value rounded for people to put in an input: `decimals` places at most, no float noise. */
+export function editableRounded(value: number, decimals: number): string {
+  return numberForInput(Number(value.toFixed(decimals)), numberLocale.marks);
 }

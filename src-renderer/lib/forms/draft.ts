@@ -1,5 +1,7 @@
 import { displayUnit, fromDisplay, toDisplay, type UnitSystem } from '../../../src-main/core/units';
-import { editable } from '../format/number';
+import { parseNumberText } from '../../../src-main/core/number-text';
+import { editable, editableRounded } from '../format/number';
+import { numberLocale } from '../format/number-locale.svelte';
 import type { FieldDef } from '../parts/part-fields';
 
 // A form's draft holds what the user typed, as text, so nothing is lost when a save fails.
@@ -27,7 +29,12 @@ export function toDraftValue(def: FieldDef, value: unknown, system: UnitSystem):
     case 'integer': {
       if (typeof value !== 'number' || !Number.isFinite(value)) return '';
       const scaled = value * (def.scale ?? 1);
-      return editable(def.quantity ? toDisplay(scaled, def.quantity, system) : scaled);
+      if (!def.quantity) return editable(scaled);
+      const shown = toDisplay(scaled, def.quantity, system);
+      // A converted value is rounded for people (4.33 in, not 4.33071); an untouched field is
+      // never sent back, so the stored value keeps its precision.
+      const decimals = inputDecimals(def, system);
+      return decimals === null ? editable(shown) : editableRounded(shown, decimals);
     }
     default:
       return typeof value === 'string' ? value : value === null || value === undefined ? '' : String(value);
@@ -40,23 +47,44 @@ export function toDraft(fields: readonly FieldDef[], record: Record<string, unkn
   return draft;
 }
 
+/** Decimals a converted quantity is shown with in an input; null keeps six significant digits. */
+function inputDecimals(def: FieldDef, system: UnitSystem): number | null {
+  if (system === 'metric' || !def.quantity) return null;
+  return def.inputDecimals ?? 2;
+}
+
+export type FieldReading = { ok: true; value: unknown } | { ok: false; message: string };
+
+/** What one field's text means in stored units, or why it cannot be read (as the user typed it). */
+export function readDraftValue(def: FieldDef, value: DraftValue, system: UnitSystem): FieldReading {
+  if (def.type === 'flag') return { ok: true, value: value === true };
+  const text = typeof value === 'string' ? value : String(value);
+  if (def.type === 'select' && def.nullable && text === '') return { ok: true, value: null };
+  if (def.type !== 'number' && def.type !== 'integer') return { ok: true, value: text };
+  const parsed = parseNumberText(text, numberLocale.marks);
+  if (parsed.kind === 'empty') return { ok: true, value: null };
+  if (parsed.kind === 'refused') return { ok: false, message: parsed.message };
+  const n = parsed.value;
+  if (def.percent && n > 0 && n <= 1) {
+    return { ok: false, message: `is typed in percent: ${editable(n)} here would mean ${editable(n)} %; for ${editable(n * 100)} % type ${editable(n * 100)}` };
+  }
+  const unscaled = n / (def.scale ?? 1);
+  const stored = def.quantity ? fromDisplay(unscaled, def.quantity, system) : unscaled;
+  // Scaling can leave float noise (0.0021 → 0.0020999...); twelve digits is far below any rating's precision.
+  return { ok: true, value: def.type === 'integer' ? stored : Number(stored.toPrecision(12)) };
+}
+
 /**
- * The value to send for one field. Text that is not a number is sent as typed, so the service
- * names the field in its message rather than the form guessing.
+ * The value to send for one field. Text that cannot be read is sent as typed, so the service
+ * still refuses it by name; forms check every field with `draftProblems` before sending.
  */
 export function fromDraftValue(def: FieldDef, value: DraftValue, system: UnitSystem): unknown {
   if (def.type === 'flag') return value === true;
   const text = typeof value === 'string' ? value : String(value);
   if (def.type === 'select' && def.nullable && text === '') return null;
   if (def.type === 'number' || def.type === 'integer') {
-    const trimmed = text.trim().replace(',', '.');
-    if (trimmed === '') return null;
-    const n = Number(trimmed);
-    if (!Number.isFinite(n)) return text;
-    const unscaled = n / (def.scale ?? 1);
-    const stored = def.quantity ? fromDisplay(unscaled, def.quantity, system) : unscaled;
-    // Scaling can leave float noise (0.0021 → 0.0020999...); twelve digits is far below any rating's precision.
-    return def.type === 'integer' ? stored : Number(stored.toPrecision(12));
+    const reading = readDraftValue(def, value, system);
+    return reading.ok ? reading.value : text;
   }
   return text;
 }
@@ -91,4 +119,46 @@ export function messageForField(message: string, field: string | undefined): str
   if (!field) return message;
   const prefix = `${field}: `;
   return message.startsWith(prefix) ? message.slice(prefix.length) : message;
+}
+
+/** The unit a bound is said in: "%", "mm" or "in", "mΩ"; nothing for counts and plain ratios. */
+function boundUnit(def: FieldDef, system: UnitSystem): string {
+  if (def.percent) return ' %';
+  const unit = fieldUnit(def, system);
+  return unit === '' || unit === 'count' || unit === 'no unit' || unit === ':1' || unit === 'teeth' || unit === 'S' || unit === 'P' ? '' : ` ${unit}`;
+}
+
+/** A stored-unit bound in the units the field is typed in. */
+function boundText(def: FieldDef, stored: number, system: UnitSystem): string {
+  const scaled = stored * (def.scale ?? 1);
+  const shown = def.quantity ? toDisplay(scaled, def.quantity, system) : scaled;
+  return `${editable(shown)}${boundUnit(def, system)}`;
+}
+
+/** A schema issue, told in the field's own units: "must be 100 % or less", never "1 or less". */
+export interface BoundIssue {
+  type: string;
+  message: string;
+  requirement?: unknown;
+  input?: unknown;
+}
+
+export function issueMessage(def: FieldDef, issue: BoundIssue, system: UnitSystem): string {
+  const bound = typeof issue.requirement === 'number' ? boundText(def, issue.requirement, system) : null;
+  if (bound !== null && issue.type === 'max_value') return `must be ${bound} or less`;
+  if (bound !== null && issue.type === 'min_value') return `must be ${bound} or more`;
+  if (bound !== null && issue.type === 'gt_value') return `must be greater than ${bound}`;
+  if ((def.type === 'number' || def.type === 'integer') && (issue.input === null || issue.input === undefined)) return 'is required';
+  return issue.message;
+}
+
+/** "Kv (rpm/V): must be …" for one field; "2 fields need attention: Kv (rpm/V), Drivetrain efficiency (%)." for more. */
+export function problemSummary(problems: Readonly<Record<string, string>>, fields: readonly FieldDef[], system: UnitSystem, extra: Readonly<Record<string, string>> = {}): string {
+  const names = Object.keys(problems).map((key) => {
+    const def = fields.find((f) => f.key === key);
+    return def ? fieldLabel(def, system) : (extra[key] ?? key);
+  });
+  const only = Object.values(problems);
+  if (names.length === 1) return `${names[0]}: ${only[0]}`;
+  return `${names.length} fields need attention: ${names.join(', ')}.`;
 }

@@ -32,7 +32,7 @@ for (const fields of Object.values(PART_FIELDS)) {
   for (const f of fields) {
     if (STORED[f.key]) continue;
     // History shows stored values: ohm fields stay in ohm, lengths in mm, masses in kg.
-    const stored = f.scale === 1000 ? { ...f, unit: 'Ω', scale: undefined } : f;
+    const stored = f.scale === 1000 ? { ...f, unit: 'Ω', scale: undefined } : f.quantity === 'massSmallKg' ? { ...f, quantity: 'massKg' as const } : f;
     STORED[f.key] = fieldLabel(stored, 'metric' satisfies UnitSystem);
   }
 }

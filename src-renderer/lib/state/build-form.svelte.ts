@@ -2,9 +2,13 @@ import type { ApiError } from '../../../src-main/service/contract';
 import type { Build, BuildVerdict } from '../../../src-main/core/domain';
 import type { UnitSystem } from '../../../src-main/core/units';
 import { asApiError, type Client } from '../api/client';
-import { draftChanges, draftToRecord, errorFieldKey, fieldLabel, messageForField, toDraft, type Draft } from '../forms/draft';
+import { draftChanges, draftToRecord, errorFieldKey, fieldLabel, messageForField, problemSummary, toDraft, type Draft } from '../forms/draft';
+import { draftProblems, type Problems } from '../forms/draft-problems';
+import { buildCreateSchema } from '../../../src-main/service/schemas/build-schemas';
 import type { PreviewRequest } from './over-confirm.svelte';
 import { BUILD_FIELD_LIST, GEARING_KEYS, flattenBuild, nestBuild, suppliesEqual, type SupplyDraft } from '../builds/build-fields';
+
+const copySupplies = (list: readonly SupplyDraft[]): SupplyDraft[] => list.map((s) => ({ ...(s.id ? { id: s.id } : {}), arrangement: s.arrangement, batteryIds: [...s.batteryIds] }));
 
 const NEW_BUILD = {
   name: '',
@@ -15,6 +19,7 @@ const NEW_BUILD = {
   propellerId: '',
   'gearing.internalRatio': 1,
   'gearing.drivetrainEfficiency': 0.9,
+  tightThreshold: null,
   notes: '',
 };
 
@@ -35,6 +40,7 @@ export class BuildFormState {
   conflict = $derived(this.formError?.kind === 'conflict');
   /** Asked before a write that would make a build OVER (see over-confirm.svelte.ts); false keeps the form unsaved. */
   confirmWrite: ((request: PreviewRequest) => Promise<boolean>) | null = null;
+  dirty = $derived(Object.keys(this.draft).some((k) => this.draft[k] !== this.base[k]) || !suppliesEqual(this.supplies, this.baseSupplies) || this.reason.trim() !== '');
 
   constructor(
     private readonly client: Client,
@@ -97,11 +103,30 @@ export class BuildFormState {
     this.formError = def ? { ...e, message: `${fieldLabel(def, this.units)}: ${messageForField(e.message, e.field)}` } : e;
   }
 
+  /** Every field that cannot be saved as typed, each with its own message (supplies under `supplies`). */
+  problems(): Problems {
+    return draftProblems(
+      BUILD_FIELD_LIST,
+      this.draft,
+      this.units,
+      buildCreateSchema,
+      (values) => ({ ...nestBuild(values), supplies: this.suppliesInput() }),
+      (path) => (path.startsWith('supplies') ? 'supplies' : path),
+    );
+  }
+
   /** Saves; returns the build and its verdict, or null when the save failed (nothing typed is lost). */
   async save(): Promise<{ record: Build; verdict: BuildVerdict | null } | null> {
-    this.saving = true;
     this.errors = {};
     this.formError = null;
+    this.notice = null;
+    const problems = this.problems();
+    if (Object.keys(problems).length > 0) {
+      this.errors = problems;
+      this.formError = { kind: 'invalid', message: problemSummary(problems, BUILD_FIELD_LIST, this.units, { supplies: 'Supplies' }) };
+      return null;
+    }
+    this.saving = true;
     try {
       if (this.record === null) {
         const fields = nestBuild(draftToRecord(BUILD_FIELD_LIST, this.draft, this.units));
@@ -142,6 +167,33 @@ export class BuildFormState {
       return null;
     } finally {
       this.saving = false;
+    }
+  }
+
+  /**
+   * After a conflict: read the version someone else saved and put the user's own edits back on
+   * top (fields they changed, and the supplies if they changed them), so saving again applies
+   * exactly what they changed.
+   */
+  async rebase(): Promise<void> {
+    if (this.record === null) return;
+    try {
+      const latest = (await this.client.call('builds.get', { id: this.record.id })).build;
+      const fresh = toDraft(BUILD_FIELD_LIST, flattenBuild(latest), this.units, NEW_BUILD);
+      const merged: Draft = { ...fresh };
+      for (const key of Object.keys(this.draft)) if (this.draft[key] !== this.base[key]) merged[key] = this.draft[key]!;
+      const theirSupplies = latest.supplies.map((s) => ({ id: s.id, arrangement: s.arrangement, batteryIds: [...s.batteryIds] }));
+      const mySupplies = suppliesEqual(this.supplies, this.baseSupplies) ? theirSupplies : copySupplies(this.supplies);
+      this.record = latest;
+      this.base = fresh;
+      this.draft = merged;
+      this.baseSupplies = copySupplies(theirSupplies);
+      this.supplies = copySupplies(mySupplies);
+      this.formError = null;
+      this.errors = {};
+      this.notice = 'Loaded the latest version; your changes are kept on top. Check them and save again.';
+    } catch (error) {
+      this.fail(error);
     }
   }
 }

@@ -1,6 +1,8 @@
 import type { ApiOutput } from '../../../src-main/service/handlers';
 import { asApiError, type Client } from '../api/client';
 import { isLithium } from '../../../src-main/core/chemistry';
+import { DEFAULT_TIGHT_THRESHOLD } from '../../../src-main/core/domain';
+import { runTrace, type RunTrace } from '../../../src-main/core/run-trace';
 
 export type BuildSheet = ApiOutput<'builds.get'>;
 
@@ -37,6 +39,25 @@ export class BuildSheetState {
         (event.type === 'records-changed' && event.kind === 'builds' && event.ids.includes(this.id));
       if (mine) void this.load();
     });
+  }
+
+  /** The full-throttle run of one supply of a car or truck, from the same core the verdict came from. */
+  runOf(supplyId: string): RunTrace | null {
+    const sheet = this.sheet;
+    if (!sheet) return null;
+    return runTrace(
+      {
+        build: sheet.build,
+        vehicle: sheet.vehicle,
+        motor: sheet.motor,
+        controller: sheet.controller,
+        propeller: sheet.propeller,
+        batteries: this.packsById,
+        classRules: [],
+        defaultTightThreshold: DEFAULT_TIGHT_THRESHOLD,
+      },
+      supplyId,
+    );
   }
 
   busy = $state(false);

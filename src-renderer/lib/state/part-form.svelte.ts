@@ -1,11 +1,13 @@
 import type { ApiError } from '../../../src-main/service/contract';
 import type { UnitSystem } from '../../../src-main/core/units';
 import { asApiError, type Client } from '../api/client';
-import { draftChanges, draftToRecord, errorFieldKey, fieldLabel, messageForField, toDraft, type Draft } from '../forms/draft';
+import { draftChanges, draftToRecord, errorFieldKey, fieldLabel, messageForField, problemSummary, toDraft, type Draft } from '../forms/draft';
 import { PART_FIELDS, type FieldDef } from '../parts/part-fields';
 import { partApi, type PartRecord, type PartWriteResult } from '../parts/part-api';
 import { PART_KINDS, type PartTable } from '../parts/part-kinds';
 import type { PreviewRequest } from './over-confirm.svelte';
+import { draftProblems, type Problems } from '../forms/draft-problems';
+import { partSchemasByTable } from '../../../src-main/service/schemas/part-schemas-by-table';
 
 const NEW_DEFAULTS: Readonly<Record<PartTable, Record<string, unknown>>> = {
   batteries: { chemistry: 'lipo', cellsSeries: 4, cellsParallel: 1, cycleCount: 0, retired: false, notes: '' },
@@ -80,12 +82,27 @@ export class PartFormState {
     this.formError = def ? { ...e, message: `${fieldLabel(def, this.units)}: ${messageForField(e.message, e.field)}` } : e;
   }
 
+  /** Every field that cannot be saved as typed, each with its own message; nothing is sent while any remain. */
+  problems(): Problems {
+    return draftProblems(this.fields, this.draft, this.units, partSchemasByTable[this.table].create);
+  }
+
+  private refuse(problems: Problems): void {
+    this.errors = problems;
+    this.formError = { kind: 'invalid', message: problemSummary(problems, this.fields, this.units) };
+  }
+
   /** Creates or updates; returns the stored record, or null when the save failed (the draft stays). */
   async save(): Promise<PartRecord | null> {
-    this.saving = true;
     this.errors = {};
     this.formError = null;
     this.notice = null;
+    const problems = this.problems();
+    if (Object.keys(problems).length > 0) {
+      this.refuse(problems);
+      return null;
+    }
+    this.saving = true;
     try {
       let stored: PartRecord;
       if (this.record === null) {

@@ -2,10 +2,14 @@ import type { UnitSystem } from '../../../src-main/core/units';
 import { DEFAULT_TIGHT_THRESHOLD } from '../../../src-main/core/domain';
 import { asApiError, type Client } from '../api/client';
 import type { ApiError } from '../../../src-main/service/contract';
+import type { NUMBER_LOCALE_TAGS } from '../../../src-main/core/number-text';
+import { setNumberLocale } from '../format/number-locale.svelte';
 
 /** The user's preferences as stored: unit system and the default tight threshold. */
 export class SettingsState {
   units = $state<UnitSystem>('metric');
+  /** '' follows the system's locale. */
+  numberLocale = $state('');
   tightThreshold = $state(DEFAULT_TIGHT_THRESHOLD);
   demoOffered = $state(false);
   loaded = $state(false);
@@ -16,21 +20,25 @@ export class SettingsState {
 
   async load(): Promise<void> {
     const s = await this.client.call('settings.get', {});
-    this.units = s.units;
-    this.tightThreshold = s.tightThreshold;
-    this.demoOffered = s.demoOffered;
+    this.apply(s);
     this.loaded = true;
   }
 
   /** Returns true when saved; on failure the stored values stay and the error says why. */
-  async save(patch: { units?: UnitSystem; tightThreshold?: number; demoOffered?: boolean }): Promise<boolean> {
+  private apply(s: { units: UnitSystem; numberLocale: string; tightThreshold: number; demoOffered: boolean }): void {
+    this.units = s.units;
+    this.numberLocale = s.numberLocale;
+    setNumberLocale(s.numberLocale);
+    this.tightThreshold = s.tightThreshold;
+    this.demoOffered = s.demoOffered;
+  }
+
+  async save(patch: { units?: UnitSystem; numberLocale?: (typeof NUMBER_LOCALE_TAGS)[number]; tightThreshold?: number; demoOffered?: boolean }): Promise<boolean> {
     this.saving = true;
     this.error = null;
     try {
       const s = await this.client.call('settings.update', patch);
-      this.units = s.units;
-      this.tightThreshold = s.tightThreshold;
-      this.demoOffered = s.demoOffered;
+      this.apply(s);
       return true;
     } catch (error) {
       this.error = asApiError(error);

@@ -3,7 +3,10 @@ import type { BuildVerdict, Gearing } from '../../../src-main/core/domain';
 import type { UnitSystem } from '../../../src-main/core/units';
 import { asApiError, type Client } from '../api/client';
 import type { BuildSheet } from './build-sheet.svelte';
-import { fromDraftValue, toDraftValue, errorFieldKey, messageForField } from '../forms/draft';
+import { fromDraftValue, toDraftValue, errorFieldKey, messageForField, fieldLabel, problemSummary } from '../forms/draft';
+import { draftProblems, type Problems } from '../forms/draft-problems';
+import { gearingSchema } from '../../../src-main/service/schemas/build-schemas';
+import { partSchemasByTable } from '../../../src-main/service/schemas/part-schemas-by-table';
 import { BUILD_FIELDS, GEARING_KEYS } from '../builds/build-fields';
 import { PART_FIELDS, type FieldDef } from '../parts/part-fields';
 import { partApi } from '../parts/part-api';
@@ -39,6 +42,8 @@ export class SwapPreviewState {
   result = $state.raw<PreviewResult | null>(null);
   error = $state<ApiError | null>(null);
   fieldError = $state<string | null>(null);
+  /** Problems of the typed values, by field key, each shown beside its input. */
+  fieldErrors = $state<Problems>({});
   busy = $state(false);
   saved = $state(false);
 
@@ -158,14 +163,37 @@ export class SwapPreviewState {
 
   private fail(error: unknown): void {
     const e = asApiError(error);
-    this.error = e;
-    this.fieldError = e.field ? `${errorFieldKey(e.field)}: ${messageForField(e.message, e.field)}` : null;
+    const key = errorFieldKey(e.field);
+    const def = [...GEARING_DEFS, ...this.recordFields()].find((d) => d.key === key || d.key === `gearing.${key?.replace(/^gearing\./, '')}`);
+    this.error = def ? { ...e, message: `${fieldLabel(def, this.units)}: ${messageForField(e.message, e.field)}` } : e;
+    this.fieldError = def && e.field ? messageForField(e.message, e.field) : null;
+  }
+
+  /** Every typed value that cannot be used, before anything is sent; true when all are fine. */
+  private check(): boolean {
+    let problems: Problems = {};
+    let defs = GEARING_DEFS;
+    if (this.mode === 'gearing') {
+      problems = draftProblems(GEARING_DEFS, this.gearing, this.units, gearingSchema, (values) => Object.fromEntries(Object.entries(values).map(([k, x]) => [k.slice('gearing.'.length), x])), (path) => `gearing.${path}`);
+    } else if (this.mode === 'record') {
+      const [table] = this.recordTarget.split(':') as [PartTable];
+      const def = this.recordFields().find((d) => d.key === this.recordField);
+      if (def) {
+        defs = [def];
+        problems = draftProblems([def], { [def.key]: this.recordValue }, this.units, partSchemasByTable[table].patch);
+      }
+    }
+    this.fieldErrors = problems;
+    if (Object.keys(problems).length === 0) return true;
+    this.error = { kind: 'invalid', message: problemSummary(problems, defs, this.units) };
+    return false;
   }
 
   async preview(): Promise<void> {
-    const req = this.request();
     this.error = null;
     this.fieldError = null;
+    if (!this.check()) return;
+    const req = this.request();
     if (!req) {
       this.error = { kind: 'invalid', message: this.mode === 'record' ? 'Pick a part, a field and a new value first.' : 'Pick a replacement first.' };
       return;
@@ -183,6 +211,7 @@ export class SwapPreviewState {
 
   /** Writes the change for real, with the reason, through the same operation an edit uses. */
   async save(): Promise<boolean> {
+    if (!this.check()) return false;
     const req = this.request();
     if (!req) return false;
     this.busy = true;
@@ -209,5 +238,6 @@ export class SwapPreviewState {
     this.result = null;
     this.error = null;
     this.fieldError = null;
+    this.fieldErrors = {};
   }
 }

@@ -22,7 +22,7 @@ export function cautionsFor(finding: Pick<Finding, 'rule' | 'status' | 'unit'>, 
   if (finding.status !== 'over') return [];
   const out: CautionTopic[] = [];
   const rule = finding.rule;
-  if (rule.startsWith('battery-') || rule === 'supply-match') {
+  if (rule.startsWith('battery-') || rule === 'supply-match' || rule === 'pack-retired' || rule === 'pack-repeated') {
     if (lithium) out.push('fire');
     out.push('heat');
   } else if (CURRENT_RULES.has(rule) || finding.unit === 'A' || finding.unit === 'W') {

@@ -13,6 +13,8 @@ const NAMES: Readonly<Record<string, string>> = {
   'motor-power': 'Motor power',
   'prop-tip-speed': 'Propeller tip speed',
   'supply-match': 'Packs matched in parallel',
+  'pack-retired': 'Retired pack',
+  'pack-repeated': 'Pack listed twice',
 };
 
 export function ruleName(rule: string): string {

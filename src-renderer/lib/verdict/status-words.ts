@@ -1,6 +1,7 @@
-import type { Status } from '../../../src-main/core/domain';
+import { STATUSES, type Status } from '../../../src-main/core/domain';
 
-export const STATUS_ORDER: readonly Status[] = ['over', 'tight', 'incomplete', 'clear'];
+/** The core's order, worst first: over, incomplete, tight, clear. */
+export const STATUS_ORDER: readonly Status[] = STATUSES;
 
 export const STATUS_WORD: Readonly<Record<Status, string>> = {
   over: 'Over',
@@ -17,9 +18,8 @@ export const STATUS_MEANING: Readonly<Record<Status, string>> = {
   clear: 'Every rule checked, with headroom',
 };
 
-const RANK: Readonly<Record<Status, number>> = { over: 0, tight: 1, incomplete: 2, clear: 3 };
 
 /** Worst first, unknown (never evaluated) last. */
 export function statusRank(status: Status | null): number {
-  return status === null ? 4 : RANK[status];
+  return status === null ? STATUSES.length : STATUSES.indexOf(status);
 }

@@ -80,8 +80,14 @@ async function main(): Promise<void> {
     out({ t: 'ack', op, kind, id, version, record });
   };
   const gearing = () => ({ pinionTeeth: int(12, 30), spurTeeth: pick([76, 84, 87]), internalRatio: 2.6, tireDiameterMm: pick([84, 110]), drivetrainEfficiency: 0.9 });
-  const supplies = () =>
-    Array.from({ length: int(1, 2) }, () => ({ arrangement: pick(['series', 'parallel'] as const), batteryIds: Array.from({ length: int(1, 2) }, () => pick(ids('batteries'))) }));
+  // One physical pack can be in one place only: the packs of a build are all different.
+  const supplies = () => {
+    const packs = [...ids('batteries')];
+    const take = (): string[] => (packs.length > 0 ? packs.splice(Math.floor(random() * packs.length), 1) : []);
+    return Array.from({ length: int(1, 2) }, () => ({ arrangement: pick(['series', 'parallel'] as const), batteryIds: Array.from({ length: int(1, 2) }, take).flat() })).filter(
+      (s) => s.batteryIds.length > 0,
+    );
+  };
 
   for (;;) {
     const roll = random();

@@ -34,9 +34,9 @@ export class ChildLines {
   private waiters: Array<() => void> = [];
   readonly child: ChildProcessWithoutNullStreams;
 
-  constructor(script: string, args: readonly string[]) {
+  constructor(script: string, args: readonly string[], env: Readonly<Record<string, string>> = {}) {
     this.child = spawn(process.execPath, [script, ...args], {
-      env: { ...process.env, NODE_PATH: path.join(ROOT, 'node_modules') },
+      env: { ...process.env, NODE_PATH: path.join(ROOT, 'node_modules'), ...env },
       stdio: ['pipe', 'pipe', 'pipe'],
     });
     this.child.stdout.setEncoding('utf8');

@@ -35,7 +35,10 @@ export async function seedSharedFleet(host: Pick<ServiceHost, 'call'>, buildCoun
   }
   fleet.classRules.push(await id('classRules.create', { className: 'club', ruleId: 'class-voltage', figure: 'packVoltageFullV', limit: 9, unit: 'V' }));
   for (let i = 0; i < buildCount; i++) {
-    const supplies = [{ batteryIds: [pick(fleet.batteries)] }, ...(random() < 0.3 ? [{ arrangement: 'parallel', batteryIds: [pick(fleet.batteries), pick(fleet.batteries)] }] : [])];
+    // One physical pack can be in one place only: the packs of a build are all different.
+    const packs = [...fleet.batteries];
+    const take = (): string => packs.splice(Math.floor(random() * packs.length), 1)[0]!;
+    const supplies = [{ batteryIds: [take()] }, ...(random() < 0.3 ? [{ arrangement: 'parallel', batteryIds: [take(), take()] }] : [])];
     const created = await ok<{ record: { id: string } }>(host, 'builds.create', {
       name: `Seed build ${i}`,
       vehicleId: pick(fleet.vehicles),

@@ -134,7 +134,8 @@ export function truckContext(over: Partial<BuildContext> = {}): BuildContext {
 export function quadContext(over: Partial<BuildContext> = {}): BuildContext {
   const base = truckContext();
   return truckContext({
-    build: { ...base.build, motorCount: 4, propellerId: 'prop-a' },
+    // Direct drive: no pinion or spur, no gearbox.
+    build: { ...base.build, motorCount: 4, propellerId: 'prop-a', gearing: { ...base.build.gearing, pinionTeeth: null, spurTeeth: null, internalRatio: 1 } },
     vehicle: vehicle({ id: 'quad-a', kind: 'multirotor', massKg: 1.2, dragAreaM2: null, rollingCoefficient: null, tractionCoefficient: null }),
     motor: motor({ kv: 1700, resistanceOhm: 0.05, noLoadCurrentA: 1.2, maxCurrentA: 40, maxPowerW: 700, maxRpm: 40000 }),
     controller: controller({ continuousCurrentA: 45, burstCurrentA: 55, resistanceOhm: 0.004 }),

@@ -54,7 +54,8 @@ describe('supplies', () => {
     expect(s?.fullV).toBeCloseTo(25.2, 10);
     expect(s?.resistanceOhm).toBeCloseTo(0.018, 12);
     expect(s?.capacityMah).toBe(4000);
-    expect(s?.continuousLimitA.value).toBeCloseTo(160, 10); // 40 C × 4 Ah
+    // Packs in series each carry the whole current.
+    expect(s?.shares.map((x) => x.share)).toEqual([1, 1]);
     expect(s?.mismatch).toBeNull();
   });
 
@@ -64,14 +65,14 @@ describe('supplies', () => {
     expect(s?.fullV).toBeCloseTo(16.8, 10);
     expect(s?.capacityMah).toBe(10000);
     expect(s?.resistanceOhm).toBeCloseTo(0.006, 12);
-    // The lower-rated pack reaches its rating first: 30 C × 10 Ah.
-    expect(s?.continuousLimitA.value).toBeCloseTo(300, 10);
+    // Equal resistances: equal halves of the current (current division).
+    expect(s?.shares.map((x) => x.share)).toEqual([0.5, 0.5]);
     expect(s?.mismatch).toBeNull();
   });
 
   it('in parallel with different cell counts is a mismatch, not a crash', () => {
     const s = supplyModel({ id: 's', arrangement: 'parallel', batteryIds: ['a', 'b'] }, map).value;
-    expect(s?.mismatch).toMatch(/same cell count/);
+    expect(s?.mismatch).toMatch(/same chemistry and cell count/);
     expect(s?.fullV).toBeCloseTo(16.8, 10); // the higher pack, the safe side for voltage limits
   });
 

@@ -58,8 +58,11 @@ describe('limit checks', () => {
     expect(f.status).toBe('incomplete');
     expect(f.margin).toBeNull();
     expect(f.missing).toEqual(['motor.resistanceOhm', 'motor.maxCurrentA']);
-    expect(f.message).toContain('motor.resistanceOhm');
+    // Paths stay in `missing`; the sentence carries only words a user reads.
+    expect(f.message).not.toContain('motor.resistanceOhm');
+    expect(f.message).not.toMatch(/\(\w+\.\w+\)/u);
     expect(f.message).toContain('winding resistance');
+    expect(f.message).toContain('rated current');
   });
 
   it('status is over exactly when the margin is negative (property)', () => {
@@ -82,13 +85,14 @@ describe('limit checks', () => {
 });
 
 describe('status order', () => {
-  it('the worst of a set is over, then tight, then incomplete, then clear', () => {
+  it('the worst of a set is over, then incomplete, then tight, then clear', () => {
     expect(worstStatus([])).toBe('clear');
     expect(worstStatus(['clear', 'incomplete'])).toBe('incomplete');
-    expect(worstStatus(['incomplete', 'tight', 'clear'])).toBe('tight');
+    // A check that cannot be made is worse news than a known small margin.
+    expect(worstStatus(['incomplete', 'tight', 'clear'])).toBe('incomplete');
     expect(worstStatus(['tight', 'over', 'incomplete'])).toBe('over');
     const sorted = [...STATUSES].reverse().sort(compareStatus);
-    expect(sorted).toEqual<Status[]>(['over', 'tight', 'incomplete', 'clear']);
+    expect(sorted).toEqual<Status[]>(['over', 'incomplete', 'tight', 'clear']);
   });
 });
 
