@@ -69,7 +69,7 @@ async function auditedDump(dbPath: string): Promise<Record<string, unknown[]>> {
 
 /** The records of a dump without history and verdict times, which a restore adds to. */
 function recordsOf(dump: Record<string, unknown[]>): Record<string, unknown[]> {
-  const { history: _h, historyBuilds: _hb, verdicts: _v, settings: _s, ...rest } = dump;
+  const { history: _h, historyBuilds: _hb, historySelectors: _hs, verdicts: _v, settings: _s, ...rest } = dump;
   return rest;
 }
 
