@@ -34,6 +34,11 @@ test('retiring and archiving a pack, and its used-by list', async ({ page, shell
   await form.getByLabel('Retired (no longer used in new builds)').check();
   await form.getByLabel('Reason for the change (kept in history)').fill('puffed after a crash');
   await form.getByRole('button', { name: 'Save changes' }).click();
+  // A retired pack makes every build that still uses it read OVER, so the save asks first and says why.
+  const dialog = page.getByRole('dialog');
+  await expect(dialog).toContainText('Test truck 4S');
+  await expect(dialog).toContainText(/retired/i);
+  await page.getByTestId('save-anyway').click();
   await expect(page.getByTestId('part-row').filter({ hasText: 'Test 4S 5000' })).toContainText('retired');
   expect((await shell.api<StoredRecord>('batteries.get', { id: pack.id })).retired).toBe(true);
 
