@@ -2,6 +2,7 @@
 // part makes each of its fields lack the build's reference to it (e.g. `build.motorId`), so a
 // finding says to pick the part rather than to fill in one of its fields.
 
+import { millivoltExact } from './chemistry';
 import {
   AIR_DENSITY,
   CONTROLLER_VOLTS_PER_RATED_CELL,
@@ -88,7 +89,7 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
     const volts = positive(controller.maxVoltageV, 'controller.maxVoltageV');
     const cells = count(controller.maxCells, 'controller.maxVoltageV');
     controllerMaxVoltageV =
-      volts.value !== null ? volts : cells.value !== null ? known(cells.value * CONTROLLER_VOLTS_PER_RATED_CELL) : volts;
+      volts.value !== null ? volts : cells.value !== null ? known(millivoltExact(cells.value * CONTROLLER_VOLTS_PER_RATED_CELL)) : volts;
   }
 
   const pinion = positive(gearing?.pinionTeeth, 'gearing.pinionTeeth');

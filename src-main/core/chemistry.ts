@@ -25,6 +25,16 @@ export function cellVoltages(chemistry: Chemistry): CellVoltages | null {
   return Object.hasOwn(CELL_VOLTAGES, chemistry) ? CELL_VOLTAGES[chemistry] : null;
 }
 
+/**
+ * Volts rounded to the millivolt. Cell voltages are whole millivolts, so a pack's or a
+ * supply's voltage is too; in binary floating point 3 × 4.2 is 12.600000000000001, which would
+ * read as past a 12.6 V rating by noise alone. Rounding here gives the nearest double to the
+ * decimal figure the user reads.
+ */
+export function millivoltExact(volts: number): number {
+  return Math.round(volts * 1000) / 1000;
+}
+
 /** Lithium chemistries can burn when abused; messages say so only for these. */
 export function isLithium(chemistry: Chemistry): boolean {
   return chemistry !== 'nimh';

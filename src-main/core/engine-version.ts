@@ -6,4 +6,5 @@
 // 2: stored verdicts name the rule and source of the list's current (re-check fills them in).
 // 3: safe-side model: parallel shares by conductance, unloaded tip speed, run current, geared
 //    propellers, retired and repeated packs, incomplete above tight, plausibility bounds.
-export const ENGINE_VERSION = 3;
+// 4: pack, supply and cell-count voltages exact to the millivolt (3 × 4.2 V no longer passes 12.6 V).
+export const ENGINE_VERSION = 4;

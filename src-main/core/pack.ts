@@ -1,6 +1,6 @@
 import type { Battery, Chemistry } from './domain';
 import { isPlausible } from './plausibility';
-import { cellVoltages, isLithium, type CellVoltages } from './chemistry';
+import { cellVoltages, isLithium, millivoltExact, type CellVoltages } from './chemistry';
 import { count, known, lacking, missingOf, positive, type Known } from './known';
 
 /** One pack's electrical model, SI (V, ohm, A). */
@@ -60,9 +60,9 @@ export function packModel(battery: Battery): Known<PackModel> {
     chemistry: battery.chemistry,
     retired: battery.retired === true,
     cellsSeries: s,
-    nominalV: s * chemistry.value.nominalV,
-    fullV: s * chemistry.value.fullV,
-    cutoffV: s * chemistry.value.cutoffV,
+    nominalV: millivoltExact(s * chemistry.value.nominalV),
+    fullV: millivoltExact(s * chemistry.value.fullV),
+    cutoffV: millivoltExact(s * chemistry.value.cutoffV),
     resistanceOhm: cellOhm === null ? null : packResistance(cellOhm, s, parallel.value),
     capacityMah: capacity.value,
     continuousLimitA: cCont.value === null ? cCont : known(cRatingCurrent(cCont.value, capacity.value)),

@@ -1,3 +1,4 @@
+import { millivoltExact } from './chemistry';
 import type { Battery, Supply } from './domain';
 import { known, lacking, missingOf, type Known } from './known';
 import { packModel, type PackModel } from './pack';
@@ -64,9 +65,9 @@ export function combineSeries(packs: readonly PackModel[]): SupplyModel {
   let capacityMah = Infinity;
   for (const p of packs) {
     seriesCells += p.cellsSeries;
-    nominalV += p.nominalV;
-    fullV += p.fullV;
-    cutoffV += p.cutoffV;
+    nominalV = millivoltExact(nominalV + p.nominalV);
+    fullV = millivoltExact(fullV + p.fullV);
+    cutoffV = millivoltExact(cutoffV + p.cutoffV);
     if (p.resistanceOhm === null) rKnown = false;
     else r += p.resistanceOhm;
     capacityMah = Math.min(capacityMah, p.capacityMah);

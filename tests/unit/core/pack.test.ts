@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { CELL_VOLTAGES } from '../../../src-main/core/chemistry';
 import { cRatingCurrent, loadedVoltage, packModel, packResistance } from '../../../src-main/core/pack';
 import { supplyModel } from '../../../src-main/core/supply';
-import { battery } from './fixtures';
+import { battery, controller, finding, motor, supplyOf, truckContext } from './fixtures';
 
 describe('pack voltages by chemistry', () => {
   it('4S LiPo is 14.8 V nominal and 16.8 V full (cell makers\' spec sheets: 3.7 V / 4.20 V a cell)', () => {
@@ -88,5 +88,22 @@ describe('supplies', () => {
     const s = supplyModel({ id: 's', arrangement: 'series', batteryIds: ['a', 'u'] }, new Map([[a.id, a], [u.id, u]])).value;
     expect(s?.resistanceOhm).toBeNull();
     expect(s?.modelResistanceOhm).toBeCloseTo(0.012, 12);
+  });
+});
+
+describe('voltages at a rating', () => {
+  it('a 3S LiPo at full charge is exactly 12.6 V, so a part rated 12.6 V is at its rating, not past it', () => {
+    // 3 × 4.20 V (cell makers' spec sheets). In binary floating point 3 * 4.2 is 12.600000000000001.
+    const p = packModel(battery({ chemistry: 'lipo', cellsSeries: 3 })).value;
+    expect(p?.fullV).toBe(12.6);
+    const pack = battery({ chemistry: 'lipo', cellsSeries: 3 });
+    const s = supplyOf(truckContext({ batteries: new Map([[pack.id, pack]]), motor: motor({ maxVoltageV: 12.6 }), controller: controller({ maxVoltageV: null, maxCells: 3 }) }));
+    expect(finding(s, 'motor-voltage')).toMatchObject({ status: 'clear', value: 12.6, limit: 12.6, margin: 0 });
+    expect(finding(s, 'controller-voltage')).toMatchObject({ status: 'clear', value: 12.6, limit: 12.6 });
+  });
+
+  it('three 2S packs in series are exactly 25.2 V full, as a 6S rating of 6 × 4.2 V', () => {
+    const s = supplyModel({ id: 's', arrangement: 'series', batteryIds: ['a', 'b', 'c'] }, new Map(['a', 'b', 'c'].map((id) => [id, battery({ id, chemistry: 'lipo', cellsSeries: 2 })]))).value;
+    expect(s?.fullV).toBe(25.2);
   });
 });
