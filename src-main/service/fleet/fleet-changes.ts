@@ -111,7 +111,7 @@ export function recordChange(kind: FleetKind, stored: object, incoming: object):
 
 function shown(value: unknown): string {
   if (value === null || value === undefined) return 'not known';
-  return typeof value === 'string' ? JSON.stringify(value) : JSON.stringify(value);
+  return JSON.stringify(value);
 }
 
 /** `resistanceOhm: 0.008 → 8` */

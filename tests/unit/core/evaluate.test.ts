@@ -3,21 +3,10 @@ import { evaluate } from 'mathjs';
 import { describe, expect, it } from 'vitest';
 import type { BuildContext, Finding, SupplyVerdict } from '../../../src-main/core/domain';
 import { evaluateBuild } from '../../../src-main/core/evaluate';
-import { battery, classRule, controller, motor, quadContext, truckContext, vehicle } from './fixtures';
-
-const only = (ctx: BuildContext): SupplyVerdict => {
-  const s = evaluateBuild(ctx).supplies[0];
-  if (!s) throw new Error('no supply verdict');
-  return s;
-};
-const finding = (s: SupplyVerdict, rule: string): Finding => {
-  const f = s.findings.find((x) => x.rule === rule);
-  if (!f) throw new Error(`no ${rule} finding`);
-  return f;
-};
+import { battery, classRule, controller, finding, motor, quadContext, supplyOf, truckContext, vehicle } from './fixtures';
 
 describe('figures of a truck on 4S', () => {
-  const s = only(truckContext());
+  const s = supplyOf(truckContext());
   const f = s.figures;
 
   it('follow the definitions of the interchange format', () => {
@@ -74,7 +63,7 @@ describe('figures of a truck on 4S', () => {
 
 describe('rules on a build', () => {
   it('take the controller limit from its cell count at 4.2 V a cell', () => {
-    const s = only(truckContext({ controller: controller({ maxVoltageV: null, maxCells: 3 }) }));
+    const s = supplyOf(truckContext({ controller: controller({ maxVoltageV: null, maxCells: 3 }) }));
     const f = finding(s, 'controller-voltage');
     expect(f.limit).toBeCloseTo(12.6, 10);
     expect(f.status).toBe('over');
@@ -85,16 +74,16 @@ describe('rules on a build', () => {
     // A "4S" rating means 4 × 4.20 V = 16.8 V at full charge (common practice); LiHV cells
     // charge to 4.35 V (common practice), 17.4 V for four, past that rating.
     const rated4s = controller({ maxVoltageV: null, maxCells: 4 });
-    const lipo = finding(only(truckContext({ controller: rated4s })), 'controller-voltage');
+    const lipo = finding(supplyOf(truckContext({ controller: rated4s })), 'controller-voltage');
     expect(lipo.value).toBeCloseTo(16.8, 10);
     expect(lipo.margin).toBeCloseTo(0, 10);
     expect(lipo.status).toBe('clear');
-    const lihv = finding(only(truckContext({ controller: rated4s, batteries: new Map([['pack-a', battery({ chemistry: 'lihv' })]]) })), 'controller-voltage');
+    const lihv = finding(supplyOf(truckContext({ controller: rated4s, batteries: new Map([['pack-a', battery({ chemistry: 'lihv' })]]) })), 'controller-voltage');
     expect(lihv.status).toBe('over');
   });
 
   it('read a rating that is not given as incomplete, naming the field', () => {
-    const s = only(truckContext({ motor: motor({ maxVoltageV: null }) }));
+    const s = supplyOf(truckContext({ motor: motor({ maxVoltageV: null }) }));
     const f = finding(s, 'motor-voltage');
     expect(f.status).toBe('incomplete');
     expect(f.missing).toEqual(['motor.maxVoltageV']);
@@ -102,7 +91,7 @@ describe('rules on a build', () => {
   });
 
   it('name missing model inputs on the current rules and leave the figure null', () => {
-    const s = only(truckContext({ motor: motor({ resistanceOhm: null }), vehicle: vehicle({ massKg: null }) }));
+    const s = supplyOf(truckContext({ motor: motor({ resistanceOhm: null }), vehicle: vehicle({ massKg: null }) }));
     expect(s.figures.continuousCurrentA).toBeNull();
     expect(s.figures.peakCurrentA).toBeNull();
     const f = finding(s, 'battery-continuous');
@@ -113,21 +102,21 @@ describe('rules on a build', () => {
   });
 
   it('name a missing part by the build field that points to it', () => {
-    const s = only(truckContext({ motor: null, vehicle: null }));
+    const s = supplyOf(truckContext({ motor: null, vehicle: null }));
     expect(finding(s, 'motor-current').missing).toEqual(expect.arrayContaining(['build.motorId']));
     expect(finding(s, 'battery-burst').missing).toEqual(expect.arrayContaining(['build.vehicleId', 'build.motorId']));
   });
 
   it('name a pack that is not in the records', () => {
     const base = truckContext();
-    const s = only({ ...base, build: { ...base.build, supplies: [{ id: 's', arrangement: 'series', batteryIds: ['nope'] }] } });
+    const s = supplyOf({ ...base, build: { ...base.build, supplies: [{ id: 's', arrangement: 'series', batteryIds: ['nope'] }] } });
     expect(s.figures.packVoltageFullV).toBeNull();
     expect(finding(s, 'controller-voltage').missing).toEqual(['supply.batteryIds']);
   });
 
   it('use measured currents where given and say so', () => {
     const base = truckContext();
-    const s = only({ ...base, build: { ...base.build, measuredPeakCurrentA: 130, measuredAverageCurrentA: null } });
+    const s = supplyOf({ ...base, build: { ...base.build, measuredPeakCurrentA: 130, measuredAverageCurrentA: null } });
     expect(s.figures.peakCurrentA).toBe(130);
     expect(s.figures.peakCurrentSource).toBe('measured');
     expect(s.figures.continuousCurrentSource).toBe('model');
@@ -136,7 +125,7 @@ describe('rules on a build', () => {
     expect(burst.value).toBe(130);
     expect(burst.status).toBe('over'); // 130 A against 120 A rated
     expect(finding(s, 'battery-continuous').source).toBe('model');
-    const model = only(base);
+    const model = supplyOf(base);
     expect(finding(model, 'motor-current').value).not.toBe(130);
   });
 
@@ -149,7 +138,7 @@ describe('rules on a build', () => {
       batteries: new Map([[a.id, a], [b.id, b]]),
       build: { ...base.build, supplies: [{ id: 'p', arrangement: 'parallel', batteryIds: ['a', 'b'] }] },
     };
-    const s = only(ctx);
+    const s = supplyOf(ctx);
     const f = finding(s, 'supply-match');
     expect(f.status).toBe('over');
     expect(f.value).toBeCloseTo(16.8, 10);
@@ -157,7 +146,7 @@ describe('rules on a build', () => {
     expect(f.message).toMatch(/fire/);
     expect(evaluateBuild(ctx).status).toBe('over');
     // The same packs in series are a 7S supply and fine to combine.
-    const series = only({ ...ctx, build: { ...ctx.build, supplies: [{ id: 'p', arrangement: 'series', batteryIds: ['a', 'b'] }] } });
+    const series = supplyOf({ ...ctx, build: { ...ctx.build, supplies: [{ id: 'p', arrangement: 'series', batteryIds: ['a', 'b'] }] } });
     expect(series.findings.some((x) => x.rule === 'supply-match')).toBe(false);
     expect(series.figures.packVoltageNominalV).toBeCloseTo(25.9, 10);
   });
@@ -196,7 +185,7 @@ describe('rules on a build', () => {
         classRule({ id: 'r4', ruleId: 'class-archived', limit: 1, archivedAt: '2026-01-01T00:00:00Z' }),
       ],
     });
-    const s = only(ctx);
+    const s = supplyOf(ctx);
     expect(finding(s, 'class-speed').status).toBe('over');
     expect(finding(s, 'class-mass').missing).toEqual(['classRule.figure']);
     expect(s.findings.some((x) => x.rule === 'class-other' || x.rule === 'class-archived')).toBe(false);
@@ -205,7 +194,7 @@ describe('rules on a build', () => {
 
 describe('propeller builds', () => {
   it('a quad draws four motors\' current from the pack and checks tip speed', () => {
-    const s = only(quadContext());
+    const s = supplyOf(quadContext());
     const f = s.figures;
     expect(f.peakCurrentA).toBeCloseTo(4 * (f.motorPeakCurrentA as number), 9);
     expect(f.thrustN).toBeGreaterThan(0);
@@ -221,7 +210,7 @@ describe('propeller builds', () => {
 
   it('names missing propeller coefficients', () => {
     const base = quadContext();
-    const s = only({ ...base, propeller: { ...(base.propeller as NonNullable<BuildContext['propeller']>), powerCoefficient: null } });
+    const s = supplyOf({ ...base, propeller: { ...(base.propeller as NonNullable<BuildContext['propeller']>), powerCoefficient: null } });
     // The current checks cannot be made without C_P ...
     expect(finding(s, 'motor-current').missing).toEqual(['propeller.powerCoefficient']);
     // ... but the unloaded tip speed needs no propeller coefficient, so it is still judged.
@@ -230,8 +219,8 @@ describe('propeller builds', () => {
 
   it('boats use water and have no tip-speed rule', () => {
     const base = quadContext();
-    const boat = only({ ...base, vehicle: vehicle({ kind: 'boat' }), build: { ...base.build, motorCount: 1 }, propeller: { ...(base.propeller as NonNullable<BuildContext['propeller']>), diameterMm: 40 } });
-    const air = only({ ...base, vehicle: vehicle({ kind: 'plane' }), build: { ...base.build, motorCount: 1 }, propeller: { ...(base.propeller as NonNullable<BuildContext['propeller']>), diameterMm: 40 } });
+    const boat = supplyOf({ ...base, vehicle: vehicle({ kind: 'boat' }), build: { ...base.build, motorCount: 1 }, propeller: { ...(base.propeller as NonNullable<BuildContext['propeller']>), diameterMm: 40 } });
+    const air = supplyOf({ ...base, vehicle: vehicle({ kind: 'plane' }), build: { ...base.build, motorCount: 1 }, propeller: { ...(base.propeller as NonNullable<BuildContext['propeller']>), diameterMm: 40 } });
     expect(boat.findings.some((x) => x.rule === 'prop-tip-speed')).toBe(false);
     expect(air.findings.some((x) => x.rule === 'prop-tip-speed')).toBe(true);
     expect(boat.figures.peakCurrentA as number).toBeGreaterThan(air.figures.peakCurrentA as number);
@@ -244,7 +233,7 @@ describe('properties', () => {
       fc.property(fc.integer({ min: 1, max: 14 }), fc.constantFrom('lipo', 'lihv', 'lifepo4', 'liion', 'nimh' as const), fc.integer({ min: 100, max: 5000 }), (cells, chemistry, kv) => {
         const at = (s: number): number | string | null => {
           const pack = battery({ cellsSeries: s, chemistry });
-          return only(truckContext({ motor: motor({ kv }), batteries: new Map([[pack.id, pack]]) })).figures.noLoadRpm;
+          return supplyOf(truckContext({ motor: motor({ kv }), batteries: new Map([[pack.id, pack]]) })).figures.noLoadRpm;
         };
         expect(at(cells + 1) as number).toBeGreaterThanOrEqual(at(cells) as number);
       }),
@@ -256,7 +245,7 @@ describe('properties', () => {
       fc.property(fc.integer({ min: 8, max: 60 }), fc.integer({ min: 30, max: 120 }), (pinion, spur) => {
         const at = (p: number): number => {
           const base = truckContext();
-          return only({ ...base, build: { ...base.build, gearing: { ...base.build.gearing, pinionTeeth: p, spurTeeth: spur } } }).figures.theoreticalSpeedKmh as number;
+          return supplyOf({ ...base, build: { ...base.build, gearing: { ...base.build.gearing, pinionTeeth: p, spurTeeth: spur } } }).figures.theoreticalSpeedKmh as number;
         };
         expect(at(pinion + 1)).toBeGreaterThanOrEqual(at(pinion));
       }),

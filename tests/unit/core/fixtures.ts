@@ -1,7 +1,8 @@
 // Invented parts for the core tests: a 1:8-scale-like basher truck, a quad and a boat. Values
 // are plausible round numbers, not any product's data.
 
-import type { Battery, BuildContext, ClassRule, Controller, Motor, Propeller, Vehicle } from '../../../src-main/core/domain';
+import type { Battery, BuildContext, ClassRule, Controller, Finding, Motor, Propeller, SupplyVerdict, Vehicle } from '../../../src-main/core/domain';
+import { evaluateBuild } from '../../../src-main/core/evaluate';
 
 const meta = { version: 1, archivedAt: null, notes: '' };
 
@@ -142,4 +143,18 @@ export function quadContext(over: Partial<BuildContext> = {}): BuildContext {
     propeller: propeller(),
     ...over,
   });
+}
+
+/** The verdict of one supply of a build (the first by default); throws where there is none. */
+export function supplyOf(ctx: BuildContext, i = 0): SupplyVerdict {
+  const s = evaluateBuild(ctx).supplies[i];
+  if (!s) throw new Error('no supply verdict');
+  return s;
+}
+
+/** The finding of one rule in a supply's verdict; throws where there is none. */
+export function finding(s: SupplyVerdict, rule: string): Finding {
+  const f = s.findings.find((x) => x.rule === rule);
+  if (!f) throw new Error(`no ${rule} finding`);
+  return f;
 }

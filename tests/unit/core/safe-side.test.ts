@@ -8,18 +8,8 @@ import { motorParams } from '../../../src-main/core/motor';
 import { isPlausible, plausibleMessage } from '../../../src-main/core/plausibility';
 import { fullThrottleRun, type RunModel } from '../../../src-main/core/run';
 import { parallelShares } from '../../../src-main/core/supply';
-import { battery, controller, motor, propeller, quadContext, truckContext, vehicle } from './fixtures';
+import { battery, controller, finding, motor, propeller, quadContext, supplyOf, truckContext, vehicle } from './fixtures';
 
-const supplyOf = (ctx: BuildContext, i = 0): SupplyVerdict => {
-  const s = evaluateBuild(ctx).supplies[i];
-  if (!s) throw new Error('no supply verdict');
-  return s;
-};
-const finding = (s: SupplyVerdict, rule: string): Finding => {
-  const f = s.findings.find((x) => x.rule === rule);
-  if (!f) throw new Error(`no ${rule} finding`);
-  return f;
-};
 const packs = (...list: Battery[]): Map<string, Battery> => new Map(list.map((b) => [b.id, b]));
 
 /** A 3S 2200 mAh 25C pack at 2 mΩ a cell beside a 3S 8000 mAh 25C pack at 10 mΩ a cell, 106 A logged. */
