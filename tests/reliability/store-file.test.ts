@@ -1,4 +1,5 @@
 import Database from 'better-sqlite3';
+import { Migrator } from 'kysely';
 import { copyFileSync, existsSync, linkSync, mkdirSync, readdirSync, readFileSync, symlinkSync, unlinkSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
@@ -6,6 +7,8 @@ import { startLocalServer } from '../../src-main/local/local-server';
 import { openServiceHost } from '../../src-main/service/open-service-host';
 import { restoreStore } from '../../src-main/service/restore-store';
 import { backUpStore, checkStoreFile } from '../../src-main/store/backup';
+import { MIGRATIONS, staticMigrationProvider } from '../../src-main/store/migration-provider';
+import { openStore } from '../../src-main/store/open-database';
 import { RestoreRefused } from '../../src-main/store/restore-file';
 import { pageCallRefusal } from '../../src-main/service/page-call-policy';
 import { dumpStore } from '../fleet/store-dump';
@@ -110,6 +113,32 @@ describe('restore', () => {
     expect(JSON.stringify(after.batteries)).not.toContain('Session pack');
     expect(recordsOf(after)).toEqual(expected);
     expect(result.setAside).toEqual([join(t.dir, 'rigbook.set-aside-2026-12-02T09-00-00-000Z.sqlite-wal')]);
+  });
+
+  it('restores a backup made before the later migrations: its records come back, migrated, re-checked and sound', async () => {
+    const t = temp();
+    const source = t.file('old.sqlite');
+    await seededStore(source, 20, 11);
+    const expected = recordsOf(await auditedDump(source));
+    // The backup as a store of the first layout would have written it: the later migrations'
+    // downs take it back, real records and all.
+    const backup = t.file('backup.sqlite');
+    await backupOf(source, backup);
+    const old = await openStore(backup);
+    const { error } = await new Migrator({ db: old.db, provider: staticMigrationProvider }).migrateTo('20261202-0001-initial');
+    await old.db.destroy();
+    expect(error).toBeUndefined();
+    const target = t.file('rigbook.sqlite');
+    await seededStore(target, 6, 3);
+
+    const outcome = await restoreStore(backup, target);
+    expect(outcome.rechecked).toBe(20);
+    const after = await auditedDump(target);
+    expect((after.kysely_migration ?? []).map((row) => (JSON.parse(row as string) as { name: string }).name)).toEqual(Object.keys(MIGRATIONS).sort());
+    for (const kind of ['batteries', 'motors', 'controllers', 'vehicles', 'builds'] as const) {
+      const ids = (rows: unknown[] | undefined) => (rows ?? []).map((row) => (JSON.parse(row as string) as { id: string }).id).sort();
+      expect(ids(after[kind]), kind).toEqual(ids(expected[kind]));
+    }
   });
 
   it('refuses a backup carrying a trigger that rewrites verdicts, and replaces nothing', async () => {
