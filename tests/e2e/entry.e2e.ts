@@ -91,7 +91,7 @@ test('drivetrain efficiency is typed in percent: 90 saves 0.9, 150 and 0.9 are r
   await expect(sheet.or(saveAnyway)).toBeVisible();
   if (await saveAnyway.isVisible()) await saveAnyway.click();
   await expect(sheet).toBeVisible();
-  await expect(page.getByRole('heading', { level: 1 })).toContainText('Test truck 4S');
+  await expect(page.getByRole('heading', { level: 1 })).toHaveText('Test truck 4S');
   await expect.poll(async () => (await shell.api<SheetValue>('builds.get', { id: build.id })).build.gearing.drivetrainEfficiency).toBe(0.9);
 });
 
@@ -181,9 +181,15 @@ test('a build form that lost the race loads their version and keeps my edits', a
   await expect(form.getByLabel('Notes')).toHaveValue('gear mesh checked');
   await expect(form.getByLabel('Pinion (teeth)')).toHaveValue('16');
   await form.getByRole('button', { name: 'Save build' }).click();
-  await expect(page.getByRole('heading', { level: 1 })).toContainText('Test truck 4S');
+  // The form's own heading also names the build ("Edit Test truck 4S"), so wait for the sheet
+  // itself; where the engine reads the build OVER the save asks first, and the answer is yes.
+  const sheet = page.getByTestId('build-sheet');
+  const saveAnyway = page.getByTestId('save-anyway');
+  await expect(sheet.or(saveAnyway)).toBeVisible();
+  if (await saveAnyway.isVisible()) await saveAnyway.click();
+  await expect(page.getByRole('heading', { level: 1 })).toHaveText('Test truck 4S');
+  await expect.poll(async () => (await shell.api<SheetValue>('builds.get', { id: build.id })).build.gearing.pinionTeeth).toBe(16);
   const stored = await shell.api<SheetValue>('builds.get', { id: build.id });
-  expect(stored.build.gearing.pinionTeeth).toBe(16);
   expect((stored.build as unknown as { notes: string }).notes).toBe('gear mesh checked');
   expect(stored.build.version).toBe(build.version + 2);
 });
