@@ -32,7 +32,10 @@ export function cellVoltages(chemistry: Chemistry): CellVoltages | null {
  * decimal figure the user reads.
  */
 export function millivoltExact(volts: number): number {
-  return Math.round(volts * 1000) / 1000;
+  // Past about 1.8e305 V the product overflows to Infinity; a figure that large has no
+  // millivolt noise worth removing, so it is kept as it is rather than turned infinite.
+  const millivolts = volts * 1000;
+  return Number.isFinite(millivolts) ? Math.round(millivolts) / 1000 : volts;
 }
 
 /** Lithium chemistries can burn when abused; messages say so only for these. */

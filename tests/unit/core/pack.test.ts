@@ -106,4 +106,11 @@ describe('voltages at a rating', () => {
     const s = supplyModel({ id: 's', arrangement: 'series', batteryIds: ['a', 'b', 'c'] }, new Map(['a', 'b', 'c'].map((id) => [id, battery({ id, chemistry: 'lipo', cellsSeries: 2 })]))).value;
     expect(s?.fullV).toBe(25.2);
   });
+
+  it('a cell count far past anything plausible still gives a finite voltage, not Infinity', () => {
+    // Number.MAX_VALUE is about 1.797e308 (IEEE 754 binary64); 1e305 cells × 4.2 V × 1000 mV/V passes it.
+    const p = packModel(battery({ chemistry: 'lipo', cellsSeries: 1e305 })).value;
+    expect(Number.isFinite(p?.fullV)).toBe(true);
+    expect(p?.fullV).toBeCloseTo(1e305 * 4.2, -300);
+  });
 });
