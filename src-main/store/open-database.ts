@@ -39,14 +39,23 @@ export function timestampForFile(date = new Date()): string {
   return date.toISOString().replace(/[:.]/g, '-');
 }
 
+/**
+ * Each migration runs its body in a transaction of its own (SQLite's DDL is not transactional
+ * under the migrator), so the migrator must not open one around it: on PostgreSQL it would, and
+ * a transaction cannot be opened inside another.
+ */
+export function migratorFor(db: Kysely<Db>, provider: MigrationProvider): Migrator {
+  return new Migrator({ db, provider, disableTransactions: true });
+}
+
 export async function pendingMigrations(db: Kysely<Db>, provider: MigrationProvider = staticMigrationProvider): Promise<string[]> {
-  const migrator = new Migrator({ db, provider });
+  const migrator = migratorFor(db, provider);
   const all = await migrator.getMigrations();
   return all.filter((m) => m.executedAt === undefined).map((m) => m.name);
 }
 
 export async function migrateToLatest(db: Kysely<Db>, provider: MigrationProvider = staticMigrationProvider): Promise<void> {
-  const migrator = new Migrator({ db, provider });
+  const migrator = migratorFor(db, provider);
   const { error, results } = await migrator.migrateToLatest();
   if (error) {
     const failed = results?.find((r) => r.status === 'Error')?.migrationName ?? 'unknown';
