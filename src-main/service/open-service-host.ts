@@ -171,7 +171,7 @@ async function openPostgresServiceHost(options: HostOptions): Promise<OpenedServ
   };
   try {
     await recheckIfEngineChanged(ctx);
-    feed = await openChangeFeed(store.url, origin, (message) => tell(listeners, message.event));
+    feed = await openChangeFeed(store.url, store.schema, origin, (message) => tell(listeners, message.event));
   } catch (error) {
     await destroyQuietly(store.db);
     throw error;

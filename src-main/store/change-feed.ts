@@ -7,7 +7,13 @@ import { poolConfig } from './open-postgres';
 // process listening there passes the announcement on to its own subscribers, as if the change
 // had been made locally. A SQLite store has one writer process at a time and needs none of this.
 
-export const CHANGE_CHANNEL = 'rigbook_changes';
+/**
+ * The channel of one store. Channels are per database, and a database may hold several stores,
+ * one per schema (chosen with `search_path` in the URL's `options`), so the schema is part of it.
+ */
+export function changeChannel(schema: string): string {
+  return `rigbook_changes:${schema}`;
+}
 
 /**
  * The server refuses a payload of 8000 bytes or more; a message with a long id list is split
@@ -72,7 +78,8 @@ const RECONNECT_MS = 1000;
  * Listens on the store's channel with a connection of its own (a pooled one would be handed to
  * queries and lose the LISTEN), reconnecting after a lost connection, and publishes over another.
  */
-export async function openChangeFeed(url: string, origin: string, onChange: (message: ChangeMessage) => void): Promise<ChangeFeed> {
+export async function openChangeFeed(url: string, schema: string, origin: string, onChange: (message: ChangeMessage) => void): Promise<ChangeFeed> {
+  const channel = changeChannel(schema);
   const log = (text: string) => process.stderr.write(`Rigbook: ${withoutSecret(text, url)}\n`);
   const config = poolConfig(url, 1);
   const publisher = new pg.Pool(config);
@@ -84,7 +91,7 @@ export async function openChangeFeed(url: string, origin: string, onChange: (mes
   const connect = async (): Promise<void> => {
     const client = new pg.Client(config);
     client.on('notification', (note) => {
-      if (note.channel !== CHANGE_CHANNEL) return;
+      if (note.channel !== channel) return;
       const message = readChangePayload(note.payload);
       if (message && message.origin !== origin) onChange(message);
     });
@@ -95,7 +102,7 @@ export async function openChangeFeed(url: string, origin: string, onChange: (mes
       schedule();
     });
     await client.connect();
-    await client.query(`listen ${CHANGE_CHANNEL}`);
+    await client.query(`listen ${client.escapeIdentifier(channel)}`);
     if (closed) {
       await client.end();
       return;
@@ -119,7 +126,7 @@ export async function openChangeFeed(url: string, origin: string, onChange: (mes
   let sent: Promise<void> = Promise.resolve();
   const send = async (message: ChangeMessage) => {
     try {
-      for (const payload of changePayloads(message)) await publisher.query('select pg_notify($1, $2)', [CHANGE_CHANNEL, payload]);
+      for (const payload of changePayloads(message)) await publisher.query('select pg_notify($1, $2)', [channel, payload]);
     } catch (error) {
       log(`a change was saved but not announced to the other benches: ${error instanceof Error ? error.message : String(error)}`);
     }

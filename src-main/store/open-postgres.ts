@@ -11,6 +11,8 @@ export interface OpenedPostgresStore {
   url: string;
   /** The connection string with any password masked: what messages and logs name. */
   label: string;
+  /** The schema the store's tables live in (the first of the connection's search path). */
+  schema: string;
 }
 
 export interface PostgresOpenOptions {
@@ -69,8 +71,13 @@ export async function openPostgresStore(url: string, options: PostgresOpenOption
   // takes a fresh one and reports its own failure.
   pool.on('error', (error) => process.stderr.write(`Rigbook: ${withoutSecret(`a PostgreSQL connection was lost: ${error.message}`, url)}\n`));
   const db = new Kysely<Db>({ dialect: new PostgresDialect({ pool }) });
+  let schema: string;
   try {
-    await sql`select 1`.execute(db);
+    const rows = await sql<{ schema: string | null }>`select current_schema() as schema`.execute(db);
+    const first = rows.rows[0]?.schema;
+    // Null when no schema on the search path exists: the tables would have nowhere to go.
+    if (!first) throw new Error('the search path names no schema that exists in this database');
+    schema = first;
   } catch (error) {
     await db.destroy();
     throw new Error(postgresProblem(error, url));
@@ -79,12 +86,12 @@ export async function openPostgresStore(url: string, options: PostgresOpenOption
     if (options.migrate !== false) {
       // No copy is taken before migrating here: the engine's own dump is the backup of a
       // PostgreSQL store (see DEVELOPERS.md).
-      const pending = await pendingMigrations(db, options.provider);
-      if (pending.length > 0) await migrateToLatest(db, options.provider);
+      const pending = await pendingMigrations(db, options.provider, schema);
+      if (pending.length > 0) await migrateToLatest(db, options.provider, schema);
     }
   } catch (error) {
     await db.destroy();
     throw new Error(withoutSecret(error instanceof Error ? error.message : String(error), url));
   }
-  return { db, url, label: redactUrl(url) };
+  return { db, url, label: redactUrl(url), schema };
 }
