@@ -16,6 +16,12 @@ import { postgresOfThisRun, SQLITE, type FreshStore } from '../helpers/store-eng
 import { serviceFixture, seedTwoBuggies } from '../helpers/service-fixture';
 import { bundleChild, ChildLines } from '../reliability/support/child-process';
 import { rigbook } from '../cli/run';
+import { request } from 'node:http';
+import { startLocalServer } from '../../src-main/local/local-server';
+import { poolConfig } from '../../src-main/store/open-postgres';
+import { apiCall } from '../local/support/local-shell';
+import { assertLoopbackTarget } from '../helpers/loopback-only';
+import { writeFileSync } from 'node:fs';
 
 // What only a PostgreSQL store has: its column types, several processes writing at once, the
 // change feed between them, moving a whole store between the engines, and URLs with secrets.
@@ -48,6 +54,19 @@ describe('connection strings with a password', () => {
     expect(redactUrl(url)).not.toContain('s3cret');
     expect(redactUrl(url)).toContain('shop:***@127.0.0.1');
     expect(withoutSecret(`could not open ${url}: other-s3cret refused`, url)).not.toContain('s3cret');
+  });
+
+  it('can take the password from a file, which is read here and not passed to the server', async () => {
+    const dir = mkdtempSync(path.join(tmpdir(), 'rigbook-pass-'));
+    try {
+      const file = path.join(dir, 'password');
+      writeFileSync(file, 'from-the-file\nsecond line ignored\n');
+      const config = poolConfig(`postgresql://shop@127.0.0.1/rigbook?passwordfile=${encodeURIComponent(file)}&sslmode=require`);
+      expect(config.connectionString).toBe('postgresql://shop@127.0.0.1/rigbook?sslmode=require');
+      expect(typeof config.password === 'function' ? await config.password() : config.password).toBe('from-the-file');
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 
   it('never reach the message of a store that cannot be opened', async () => {
@@ -197,6 +216,50 @@ if (!pgRun.engine) {
       a.subscribe((event) => ownSeen.push(event));
       await a.call('motors.create', { name: 'Second', kv: 2300 });
       expect(ownSeen.filter((e) => e.type === 'records-changed')).toHaveLength(1);
+    });
+  });
+
+  describe('the loopback shell on a PostgreSQL store', () => {
+    it("serves the store, and its event stream carries another bench's change", async () => {
+      const location = (await fresh()).location;
+      const rendererDir = mkdtempSync(path.join(tmpdir(), 'rigbook-pg-renderer-'));
+      writeFileSync(path.join(rendererDir, 'index.html'), '<!doctype html><title>t</title>');
+      const a = await startLocalServer({ host: await host(location, 'bench-a'), rendererDir });
+      const b = await startLocalServer({ host: await host(location, 'bench-b'), rendererDir });
+      try {
+        // Bench B's page listens to its own shell's event stream, as the renderer does.
+        let streamed = '';
+        let connected: () => void = () => {};
+        const open = new Promise<void>((resolve) => (connected = resolve));
+        const heard = new Promise<string>((resolve, reject) => {
+          const req = request({ host: assertLoopbackTarget('127.0.0.1'), port: b.port, path: `/api/events?token=${b.token}`, headers: { host: `127.0.0.1:${b.port}` }, agent: false }, (res) => {
+            res.setEncoding('utf8');
+            res.on('data', (chunk: string) => {
+              streamed += chunk;
+              if (streamed.includes(': connected')) connected();
+              const line = streamed.split('\n').find((l) => l.startsWith('data: ') && l.includes('"batteries"'));
+              if (line) {
+                resolve(line);
+                req.destroy();
+              }
+            });
+          });
+          req.on('error', (error) => (streamed.includes('"batteries"') ? undefined : reject(error)));
+          req.end();
+        });
+        // The shell writes this comment once the stream is registered for events.
+        await open;
+        const created = await apiCall(a.port, a.token, 'batteries.create', { name: 'Bench A pack', chemistry: 'lipo', cellsSeries: 3, capacityMah: 2200 });
+        expect(created.status).toBe(200);
+        const id = (JSON.parse(created.body) as { value: { id: string } }).value.id;
+        expect(JSON.parse((await heard).slice('data: '.length))).toEqual({ type: 'records-changed', kind: 'batteries', ids: [id] });
+        const listed = await apiCall(b.port, b.token, 'batteries.list', {});
+        expect((JSON.parse(listed.body) as { value: { id: string }[] }).value.map((p) => p.id)).toContain(id);
+      } finally {
+        await a.close();
+        await b.close();
+        rmSync(rendererDir, { recursive: true, force: true });
+      }
     });
   });
 
