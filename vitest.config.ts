@@ -10,6 +10,8 @@ export default defineConfig({
     exclude: ['tests/e2e/**', 'node_modules/**'],
     environment: 'node',
     pool: 'forks',
+    // A throwaway PostgreSQL cluster for the store matrix; see tests/helpers/store-engines.ts.
+    globalSetup: ['tests/setup/pg-global-setup.ts'],
     testTimeout: 30_000,
     hookTimeout: 30_000,
   },

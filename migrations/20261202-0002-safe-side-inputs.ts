@@ -1,4 +1,5 @@
 import type { Kysely } from 'kysely';
+import { columnTypes } from './support/column-types';
 
 // Inputs the safe-side checks read: a propeller's maker rpm limit, a vehicle's drive layout,
 // share of weight on the driven wheels and water type, a build's run length and the supply its
@@ -17,7 +18,8 @@ const COLUMNS = [
 
 export async function up(db: Kysely<unknown>): Promise<void> {
   await db.transaction().execute(async (trx) => {
-    for (const [table, column, type] of COLUMNS) await trx.schema.alterTable(table).addColumn(column, type).execute();
+    const types = columnTypes(trx);
+    for (const [table, column, type] of COLUMNS) await trx.schema.alterTable(table).addColumn(column, types[type]).execute();
   });
 }
 

@@ -1,4 +1,5 @@
 import type { Kysely } from 'kysely';
+import { columnTypes } from './support/column-types';
 
 // The builds list shows one current against one limit. These columns say which check that pair
 // comes from (a rule id) and whether the current was modelled or measured, so the list can say
@@ -7,8 +8,9 @@ import type { Kysely } from 'kysely';
 
 export async function up(db: Kysely<unknown>): Promise<void> {
   await db.transaction().execute(async (trx) => {
-    await trx.schema.alterTable('verdicts').addColumn('currentRule', 'text').execute();
-    await trx.schema.alterTable('verdicts').addColumn('currentSource', 'text').execute();
+    const { text } = columnTypes(trx);
+    await trx.schema.alterTable('verdicts').addColumn('currentRule', text).execute();
+    await trx.schema.alterTable('verdicts').addColumn('currentSource', text).execute();
   });
 }
 

@@ -1,4 +1,5 @@
-import type { Kysely, SelectQueryBuilder, Transaction } from 'kysely';
+import { sql, type Kysely, type SelectQueryBuilder, type Transaction } from 'kysely';
+import { columnTypes } from './support/column-types';
 
 // History used to link every re-checked build to the entry, one row each: an edit of a part
 // shared by 10 000 builds wrote 10 000 rows. From here an entry keeps the selector that named
@@ -68,12 +69,13 @@ const DELETE_CHUNK = 500;
 
 export async function up(db: Kysely<unknown>): Promise<void> {
   await db.transaction().execute(async (trx) => {
+    const { text, integer } = columnTypes(trx);
     await trx.schema
       .createTable('historySelectors')
-      .addColumn('historyId', 'integer', (c) => c.notNull().references('history.id').onDelete('cascade'))
-      .addColumn('selects', 'text', (c) => c.notNull())
-      .addColumn('partKind', 'text', (c) => c.notNull().defaultTo(''))
-      .addColumn('target', 'text', (c) => c.notNull().defaultTo(''))
+      .addColumn('historyId', integer, (c) => c.notNull().references('history.id').onDelete('cascade'))
+      .addColumn('selects', text, (c) => c.notNull())
+      .addColumn('partKind', text, (c) => c.notNull().defaultTo(''))
+      .addColumn('target', text, (c) => c.notNull().defaultTo(''))
       .execute();
     await trx.schema.createIndex('historySelectorsTargetIdx').on('historySelectors').columns(['selects', 'partKind', 'target', 'historyId']).execute();
     await trx.schema.createIndex('historySelectorsEntryIdx').on('historySelectors').column('historyId').execute();
@@ -122,7 +124,8 @@ export async function down(db: Kysely<unknown>): Promise<void> {
       await t
         .insertInto('historyBuilds')
         .columns(['historyId', 'buildId'])
-        .expression(namedBuilds(t, row, row.at).clearSelect().select((eb) => [eb.val(historyId).as('historyId'), 'builds.id as buildId']))
+        // A bare parameter in a select list has no type on PostgreSQL (it would be text); the cast names it.
+        .expression(namedBuilds(t, row, row.at).clearSelect().select([sql<number>`cast(${historyId} as integer)`.as('historyId'), 'builds.id as buildId']))
         .onConflict((oc) => oc.columns(['historyId', 'buildId']).doNothing())
         .execute();
     }

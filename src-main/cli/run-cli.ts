@@ -32,7 +32,8 @@ Commands:
 ${COMMANDS.map((c) => `  ${c.name.padEnd(width)}${c.summary}`).join('\n')}
 
 Options for every command:
-  --db PATH    the store to use (else RIGBOOK_DB, else the app's data folder)
+  --db PATH    the store to use (else RIGBOOK_DB, else the app's data folder); a SQLite file,
+               or a PostgreSQL database as postgres://USER@HOST/DATABASE (see DEVELOPERS.md)
   --json       print data as JSON where the command prints data
   -h, --help   help for a command: rigbook COMMAND --help
   --version    print the version of rigbook, of its rules engine and of the file format
@@ -97,7 +98,7 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
     return EXIT.usage;
   }
   if (values.db === '') {
-    io.err(`rigbook ${command.name}: --db needs a file path, e.g. --db ./fleet.sqlite\n`);
+    io.err(`rigbook ${command.name}: --db needs a file path or a PostgreSQL URL, e.g. --db ./fleet.sqlite\n`);
     return EXIT.usage;
   }
   try {

@@ -9,6 +9,7 @@ import { handleAppProtocol, registerAppScheme } from './app-protocol';
 import { backUpInteractively } from './back-up';
 import { createCallRelay } from './call-relay';
 import { CALL_CHANNEL, EVENT_CHANNEL } from './channels';
+import { redactUrl, withoutSecret } from '../store/store-location';
 import { dbPathFromArgv } from './command-line';
 import { menuTemplate } from './menu';
 import { denyAllPermissions, guardWebContents } from './navigation-guard';
@@ -105,8 +106,8 @@ function run(dbPath: string): void {
       });
     })
     .catch((error: unknown) => {
-      const storage = describeStorageError(error, dbPath);
-      console.error('Rigbook could not start:', error);
+      const storage = describeStorageError(error, redactUrl(dbPath));
+      console.error('Rigbook could not start:', error instanceof Error ? withoutSecret(error.message, dbPath) : error);
       dialog.showErrorBox('Rigbook could not start', storage ? storage.message : error instanceof Error ? error.message : String(error));
       app.exit(1);
     });

@@ -7,7 +7,8 @@ Serves Rigbook to the browser on this computer only (127.0.0.1) and prints the a
 with a one-time token in it. Opening the address without its token shows how to get it.
 
 Options:
-  --db PATH   the store to open (else RIGBOOK_DB, else rigbook.sqlite in the data folder)
+  --db PATH   the store to open (else RIGBOOK_DB, else rigbook.sqlite in the data folder):
+              a SQLite file, or a PostgreSQL database as postgres://USER@HOST/DATABASE
   --port N    the port to listen on (else RIGBOOK_PORT, else a free one)
   --help      this text
 

@@ -6,6 +6,7 @@ import { startLocalServer } from './local-server';
 import { LOCAL_HELP, parseLocalArgs } from './command-line';
 import { EXIT } from '../cli/exit-codes';
 import { describeStorageError } from '../store/storage-errors';
+import { redactUrl, withoutSecret } from '../store/store-location';
 
 // Entry of the loopback shell: `node dist-main/local-main.cjs [--db PATH] [--port N]` (--help lists the options).
 
@@ -13,6 +14,9 @@ function rendererDir(): string {
   const candidates = [path.resolve(__dirname, '../dist-renderer'), path.resolve(process.cwd(), 'dist-renderer')];
   return candidates.find((dir) => existsSync(path.join(dir, 'index.html'))) ?? candidates[0]!;
 }
+
+/** The store being opened, so a failure's message can be cleared of its password. */
+let chosenStore = '';
 
 async function main(): Promise<void> {
   const command = parseLocalArgs(process.argv.slice(2));
@@ -27,9 +31,10 @@ async function main(): Promise<void> {
   }
   const { port } = command;
   const dbPath = resolveDbPath(command.db);
+  chosenStore = dbPath;
   const host = await openServiceHost({ dbPath, autoBackup: { keep: AUTO_BACKUPS_KEPT, afterStartMs: AUTO_BACKUP_AFTER_START_MS } });
   const server = await startLocalServer({ host, rendererDir: rendererDir(), port, token: process.env.RIGBOOK_TOKEN });
-  process.stdout.write(`Rigbook is serving on ${server.url} (this computer only)\nStore: ${dbPath}\nOpen: ${server.openUrl}\n`);
+  process.stdout.write(`Rigbook is serving on ${server.url} (this computer only)\nStore: ${redactUrl(dbPath)}\nOpen: ${server.openUrl}\n`);
   const stop = async () => {
     await server.close();
     await host.close();
@@ -41,7 +46,8 @@ async function main(): Promise<void> {
 
 main().catch((error: unknown) => {
   const storage = describeStorageError(error);
-  const cause = error instanceof Error ? error.message : String(error);
+  // The store's URL may carry a password; nothing printed may show it.
+  const cause = withoutSecret(error instanceof Error ? error.message : String(error), chosenStore);
   process.stderr.write(storage ? `Rigbook could not start. ${storage.message}\n  (${storage.code}: ${cause})\n` : `Rigbook could not start: ${cause}\n`);
   process.exit(1);
 });

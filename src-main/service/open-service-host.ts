@@ -3,13 +3,19 @@ import { existsSync } from 'node:fs';
 import { userInfo } from 'node:os';
 import { openStore } from '../store/open-database';
 import { backupFolderFor, newestRollingBackupAt, rollingBackup } from '../store/backup';
-import type { EventListener, ServiceHost } from './contract';
+import type { EventListener, ServiceEvent, ServiceHost } from './contract';
 import { dispatch } from './dispatch';
 import { recheckIfEngineChanged } from './engine-upgrade';
 import type { ServiceContext } from './service-context';
 import { StoreFileWatch } from '../store/file-identity';
+import { isPostgresUrl } from '../store/store-location';
+import { openPostgresStore } from '../store/open-postgres';
+import { openChangeFeed, type ChangeFeed } from '../store/change-feed';
+import type { Kysely } from 'kysely';
+import type { Db } from '../store/schema';
 
 export interface HostOptions {
+  /** A SQLite file's path, or a `postgres://` / `postgresql://` connection string. */
   dbPath: string;
   actor?: string;
   now?: () => Date;
@@ -43,10 +49,11 @@ export const AUTO_BACKUPS_KEPT = 5;
 /** How long after start the shells take that copy: after the window's first list, off its path. */
 export const AUTO_BACKUP_AFTER_START_MS = 5000;
 
+export type OpenedServiceHost = ServiceHost & { ctx: ServiceContext; autoBackupPath: string | null; autoBackupDone: Promise<string | null> };
+
 /** Opens the store (migrating it) and returns the one surface both shells and the command line use. */
-export async function openServiceHost(
-  options: HostOptions,
-): Promise<ServiceHost & { ctx: ServiceContext; autoBackupPath: string | null; autoBackupDone: Promise<string | null> }> {
+export async function openServiceHost(options: HostOptions): Promise<OpenedServiceHost> {
+  if (isPostgresUrl(options.dbPath)) return openPostgresServiceHost(options);
   // A store created just now holds nothing worth a copy.
   const existed = options.dbPath !== ':memory:' && existsSync(options.dbPath);
   // The file's identity is taken before SQLite opens it: a restore that swaps the file in the
@@ -103,15 +110,7 @@ export async function openServiceHost(
     newId: options.newId ?? randomId,
     raw: store.raw,
     ...(storeFile ? { storeFile } : {}),
-    emit: (event) => {
-      for (const listener of listeners) {
-        try {
-          listener(event);
-        } catch {
-          // A broken listener (a closed window) must not fail the write that already committed.
-        }
-      }
-    },
+    emit: (event) => tell(listeners, event),
   };
   await recheckIfEngineChanged(ctx);
   return {
@@ -137,4 +136,69 @@ export async function openServiceHost(
       await store.db.destroy();
     },
   };
+}
+
+function tell(listeners: ReadonlySet<EventListener>, event: ServiceEvent): void {
+  for (const listener of listeners) {
+    try {
+      listener(event);
+    } catch {
+      // A broken listener (a closed window) must not fail the write that already committed.
+    }
+  }
+}
+
+/**
+ * The same surface on a PostgreSQL store. There is no file to watch or copy (the engine's own
+ * dump is its backup), and changes committed by other processes on the same store arrive
+ * through the change feed and reach this host's subscribers like its own.
+ */
+async function openPostgresServiceHost(options: HostOptions): Promise<OpenedServiceHost> {
+  const store = await openPostgresStore(options.dbPath);
+  const listeners = new Set<EventListener>();
+  const origin = randomId('host');
+  let feed: ChangeFeed | null = null;
+  const ctx: ServiceContext = {
+    db: store.db,
+    engine: 'postgres',
+    actor: options.actor ?? osUser(),
+    now: options.now ?? (() => new Date()),
+    newId: options.newId ?? randomId,
+    emit: (event) => {
+      tell(listeners, event);
+      if (feed && event.type !== 'progress') void feed.publish({ origin, event });
+    },
+  };
+  try {
+    await recheckIfEngineChanged(ctx);
+    feed = await openChangeFeed(store.url, store.schema, origin, (message) => tell(listeners, message.event));
+  } catch (error) {
+    await destroyQuietly(store.db);
+    throw error;
+  }
+  const openFeed = feed;
+  return {
+    ctx,
+    autoBackupPath: null,
+    autoBackupDone: Promise.resolve(null),
+    dbPath: store.label,
+    call: (name, args) => dispatch(ctx, name, args),
+    subscribe: (listener) => {
+      listeners.add(listener);
+      return () => listeners.delete(listener);
+    },
+    close: async () => {
+      listeners.clear();
+      await openFeed.close();
+      await store.db.destroy();
+    },
+  };
+}
+
+async function destroyQuietly(db: Kysely<Db>): Promise<void> {
+  try {
+    await db.destroy();
+  } catch {
+    // Already failing: the first error is the one to report.
+  }
 }

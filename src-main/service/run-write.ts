@@ -45,6 +45,13 @@ class PreviewRollback<R> extends Error {
  * The transaction is SQLite's default (deferred). A second program writing at the same moment
  * is refused at once as a `conflict` ("busy, try again") rather than made to wait: better-sqlite3
  * waits synchronously, so waiting for the lock would freeze the window or the server meanwhile.
+ *
+ * On PostgreSQL several benches write at once, and the transaction is SERIALIZABLE: the
+ * `expectedVersion` check, the parts the re-check reads and the verdicts it writes then behave
+ * as if each write ran alone, so a re-check never stores a verdict computed from a part another
+ * bench changed meanwhile. The engine resolves a clash by failing one side with a serialization
+ * failure, and that write runs again from the start (reading the other's committed result: a
+ * stale `expectedVersion` is then refused as a conflict, as on SQLite).
  */
 export async function runWrite<R>(
   ctx: ServiceContext,
@@ -56,28 +63,29 @@ export async function runWrite<R>(
   if (moved) throw new ServiceError('store-changed', moved);
   const at = ctx.now().toISOString();
   let changed: WritePlan<R>['changed'] = { kind: '', ids: [] };
+  const attempt = async (trx: Transaction<Db>): Promise<WriteOutcome<R>> => {
+    const plan = await work(trx, at);
+    changed = plan.changed;
+    const settings = await readSettings(trx);
+    const selector = toSelector(plan.recheck);
+    const recheck = await recheckBuilds(trx, selector, settings.tightThreshold, at, { messages: options.messages ?? options.preview === true });
+    let historyId: number | null = null;
+    if (plan.history) {
+      historyId = await appendHistory(trx, {
+        ...plan.history,
+        at,
+        actor: ctx.actor,
+        verdictChanges: recheck.changes,
+        builds: selector,
+      });
+    }
+    const done: WriteOutcome<R> = { result: plan.result, verdicts: recheck.verdicts, verdictChanges: recheck.changes, historyId };
+    if (options.preview) throw new PreviewRollback(done);
+    return done;
+  };
   let outcome: WriteOutcome<R>;
   try {
-    outcome = await ctx.db.transaction().execute(async (trx) => {
-      const plan = await work(trx, at);
-      changed = plan.changed;
-      const settings = await readSettings(trx);
-      const selector = toSelector(plan.recheck);
-      const recheck = await recheckBuilds(trx, selector, settings.tightThreshold, at, { messages: options.messages ?? options.preview === true });
-      let historyId: number | null = null;
-      if (plan.history) {
-        historyId = await appendHistory(trx, {
-          ...plan.history,
-          at,
-          actor: ctx.actor,
-          verdictChanges: recheck.changes,
-          builds: selector,
-        });
-      }
-      const done: WriteOutcome<R> = { result: plan.result, verdicts: recheck.verdicts, verdictChanges: recheck.changes, historyId };
-      if (options.preview) throw new PreviewRollback(done);
-      return done;
-    });
+    outcome = ctx.engine === 'postgres' ? await serializableWithRetry(ctx, attempt) : await ctx.db.transaction().execute(attempt);
   } catch (error) {
     if (error instanceof PreviewRollback) return error.outcome as WriteOutcome<R>;
     throw error;
@@ -85,4 +93,30 @@ export async function runWrite<R>(
   if (changed.ids.length > 0) ctx.emit({ type: 'records-changed', kind: changed.kind, ids: changed.ids });
   if (outcome.verdicts.length > 0) ctx.emit({ type: 'verdicts-changed', buildIds: outcome.verdicts.map((v) => v.buildId) });
   return outcome;
+}
+
+/** Tries a write this many times before telling the person the store is too busy. */
+export const SERIALIZATION_ATTEMPTS = 8;
+
+/** SQLSTATE serialization_failure and deadlock_detected: the engine asks for the transaction to be run again. */
+const RETRYABLE = new Set(['40001', '40P01']);
+
+export function isRetryableClash(error: unknown): boolean {
+  const code = (error as { code?: unknown } | null)?.code;
+  return typeof code === 'string' && RETRYABLE.has(code);
+}
+
+async function serializableWithRetry<T>(ctx: ServiceContext, attempt: (trx: Transaction<Db>) => Promise<T>): Promise<T> {
+  for (let tries = 1; ; tries++) {
+    try {
+      return await ctx.db.transaction().setIsolationLevel('serializable').execute(attempt);
+    } catch (error) {
+      if (!isRetryableClash(error)) throw error;
+      if (tries >= SERIALIZATION_ATTEMPTS) {
+        throw new ServiceError('conflict', `Other benches kept changing the same records while this was being saved (${SERIALIZATION_ATTEMPTS} tries). Nothing was saved; try again.`);
+      }
+      // A short, growing, jittered pause, so that the clashing writers do not meet again at once.
+      await new Promise((resolve) => setTimeout(resolve, Math.random() * 10 * 2 ** Math.min(tries, 5)));
+    }
+  }
 }

@@ -6,6 +6,8 @@ import type { StoreFileWatch } from '../store/file-identity';
 
 export interface ServiceContext {
   db: Kysely<Db>;
+  /** Which engine holds the store; absent means a SQLite file. */
+  engine?: 'sqlite' | 'postgres';
   /** Who is writing: the OS user or a name the shop sets; shown in history. */
   actor: string;
   now: () => Date;

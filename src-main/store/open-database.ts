@@ -39,14 +39,25 @@ export function timestampForFile(date = new Date()): string {
   return date.toISOString().replace(/[:.]/g, '-');
 }
 
-export async function pendingMigrations(db: Kysely<Db>, provider: MigrationProvider = staticMigrationProvider): Promise<string[]> {
-  const migrator = new Migrator({ db, provider });
+/**
+ * Each migration runs its body in a transaction of its own (SQLite's DDL is not transactional
+ * under the migrator), so the migrator must not open one around it: on PostgreSQL it would, and
+ * a transaction cannot be opened inside another.
+ */
+export function migratorFor(db: Kysely<Db>, provider: MigrationProvider, schema?: string): Migrator {
+  // On PostgreSQL the migrator's own table is placed in the store's schema by name: left to
+  // itself it would find another store's table in the same database and take it for this one's.
+  return new Migrator({ db, provider, disableTransactions: true, ...(schema ? { migrationTableSchema: schema } : {}) });
+}
+
+export async function pendingMigrations(db: Kysely<Db>, provider: MigrationProvider = staticMigrationProvider, schema?: string): Promise<string[]> {
+  const migrator = migratorFor(db, provider, schema);
   const all = await migrator.getMigrations();
   return all.filter((m) => m.executedAt === undefined).map((m) => m.name);
 }
 
-export async function migrateToLatest(db: Kysely<Db>, provider: MigrationProvider = staticMigrationProvider): Promise<void> {
-  const migrator = new Migrator({ db, provider });
+export async function migrateToLatest(db: Kysely<Db>, provider: MigrationProvider = staticMigrationProvider, schema?: string): Promise<void> {
+  const migrator = migratorFor(db, provider, schema);
   const { error, results } = await migrator.migrateToLatest();
   if (error) {
     const failed = results?.find((r) => r.status === 'Error')?.migrationName ?? 'unknown';

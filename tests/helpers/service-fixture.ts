@@ -1,14 +1,14 @@
 import { openServiceHost } from '../../src-main/service/open-service-host';
 import type { ApiInput, ApiOutput, HandlerName } from '../../src-main/service/handlers';
 import type { ApiError, ServiceEvent } from '../../src-main/service/contract';
-import { tempDir } from './temp-dir';
+import { SQLITE, type StoreEngine } from './store-engines';
 
-/** A real service on a real SQLite file, with a steady clock and readable ids. */
-export async function serviceFixture() {
-  const temp = tempDir();
+/** A real service on a real store (a SQLite file unless an engine is given), with a steady clock and readable ids. */
+export async function serviceFixture(engine: StoreEngine = SQLITE) {
+  const store = await engine.fresh();
   let tick = Date.parse('2026-12-01T08:00:00Z');
   let seq = 0;
-  const dbPath = temp.file('store.sqlite');
+  const dbPath = store.location;
   const host = await openServiceHost({
     dbPath,
     actor: 'tester',
@@ -33,7 +33,7 @@ export async function serviceFixture() {
 
   async function close() {
     await host.close();
-    temp.remove();
+    await store.remove();
   }
   return { host, call, refuse, events, dbPath, close, db: host.ctx.db };
 }

@@ -22,6 +22,8 @@ export interface Need {
   pointAt: string;
 }
 export declare const NEEDS: Need[];
+export declare const SERVER_NEEDS: Need[];
+export declare function findPgServer(env: NodeJS.ProcessEnv): { path: string | null; tried: string[] };
 export declare function parseOsRelease(text: string): { id: string; like: string[] };
 export declare function linuxFamily(osReleaseText: string): 'debian' | 'ubuntu' | 'fedora' | 'arch' | 'suse' | 'alpine' | null;
 export declare function manualCommand(need: Need, sys: TestSystem): string | null;

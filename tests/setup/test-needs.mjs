@@ -2,7 +2,8 @@
 // system's package manager can be used without a question (Debian or Ubuntu, as root or with
 // sudo that needs no password), or else a stop at once with the exact command to run.
 import { spawnSync } from 'node:child_process';
-import { readFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import path from 'node:path';
 import { findBrowser, onPath } from '../e2e/find-browser.mjs';
 
 /**
@@ -21,6 +22,36 @@ export const NEEDS = [
     pointAt: 'RIGBOOK_CHROMIUM',
   },
 ];
+
+/**
+ * The database server the store tests run their PostgreSQL half on (tests/helpers/pg-cluster.ts
+ * starts a throwaway cluster from these programs). Kept apart from NEEDS, which the browser's
+ * own tests pin, and checked by `npm test` after them.
+ */
+export const SERVER_NEEDS = [
+  {
+    id: 'postgresql',
+    label: 'PostgreSQL',
+    why: 'the store and service tests run on a throwaway PostgreSQL cluster as well as on SQLite',
+    find: (sys) => findPgServer(sys.env),
+    packages: { debian: 'postgresql', ubuntu: 'postgresql', fedora: 'postgresql-server', arch: 'postgresql', suse: 'postgresql-server', alpine: 'postgresql' },
+    commands: { darwin: 'brew install postgresql' },
+    pointAt: 'RIGBOOK_PG_BIN',
+  },
+];
+
+/** initdb and pg_ctl: RIGBOOK_PG_BIN, then Debian's versioned folders, then the usual places. Same order as the test helper. */
+export function findPgServer(env) {
+  const dirs = [];
+  if (env.RIGBOOK_PG_BIN) dirs.push(env.RIGBOOK_PG_BIN);
+  const debian = '/usr/lib/postgresql';
+  if (existsSync(debian)) {
+    for (const v of readdirSync(debian).filter((x) => /^\d+$/.test(x)).sort((a, b) => Number(b) - Number(a))) dirs.push(path.join(debian, v, 'bin'));
+  }
+  dirs.push('/usr/pgsql/bin', '/usr/local/pgsql/bin', '/usr/bin', '/usr/local/bin');
+  const found = dirs.find((dir) => existsSync(path.join(dir, 'initdb')) && existsSync(path.join(dir, 'pg_ctl')));
+  return { path: found ? path.join(found, 'initdb') : null, tried: dirs.map((d) => `${d}/initdb and pg_ctl`) };
+}
 
 /** The ID and ID_LIKE fields of an os-release file (os-release(5)). */
 export function parseOsRelease(text) {

@@ -2,7 +2,7 @@ import { spawnSync } from 'node:child_process';
 import { chmodSync, mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { ensureTestNeeds, linuxFamily, type RunResult, type TestSystem } from './test-needs.mjs';
+import { ensureTestNeeds, findPgServer, linuxFamily, manualCommand, SERVER_NEEDS, type RunResult, type TestSystem } from './test-needs.mjs';
 import { tempDir } from '../helpers/temp-dir';
 
 // The test command's finder and installer on simulated machines: a PATH, HOME and os-release of
@@ -168,7 +168,8 @@ describe('the test command on a machine without a browser (simulated by its envi
       encoding: 'utf8',
     });
     expect(result.status).toBe(1);
-    expect(result.stdout).toBe('');
+    // The database server may be found (its place does not depend on PATH); the browser is not.
+    expect(result.stdout).not.toContain('Chromium');
     const sudo = process.getuid?.() === 0 ? '' : 'sudo ';
     expect(result.stderr).toContain('The tests need Chromium (the browser tests drive the app in it), and this machine has none.');
     expect(result.stderr).toContain('chromium, chromium-browser, google-chrome-stable, google-chrome, chrome on PATH');
@@ -180,6 +181,29 @@ describe('the test command on a machine without a browser (simulated by its envi
     const chromium = program('chromium');
     const result = spawnSync(process.execPath, ['tests/setup/ensure-test-needs.mjs'], { env: { PATH: bin, HOME: temp.dir }, encoding: 'utf8' });
     expect(result.status, result.stderr).toBe(0);
-    expect(result.stdout).toBe(`test needs: Chromium at ${chromium}\n`);
+    expect(result.stdout.split('\n').filter((line) => !line.includes('PostgreSQL'))).toEqual([`test needs: Chromium at ${chromium}`, '']);
+  });
+});
+
+describe('the database server the store tests need', () => {
+  it('finds initdb and pg_ctl where RIGBOOK_PG_BIN points, before any usual place', () => {
+    program('initdb');
+    program('pg_ctl');
+    expect(findPgServer({ RIGBOOK_PG_BIN: bin }).path).toBe(path.join(bin, 'initdb'));
+  });
+
+  it('does not take a folder with initdb but no pg_ctl', () => {
+    program('initdb');
+    const found = findPgServer({ RIGBOOK_PG_BIN: bin });
+    expect(found.path).not.toBe(path.join(bin, 'initdb'));
+    expect(found.tried[0]).toBe(`${bin}/initdb and pg_ctl`);
+  });
+
+  it.each([
+    ['Debian', { osRelease: DEBIAN, uid: 0 }, 'apt-get update && apt-get install -y postgresql'],
+    ['Fedora', { osRelease: FEDORA, uid: 1000 }, 'sudo dnf install -y postgresql-server'],
+  ])('names the server package on %s', (_label, over, command) => {
+    const need = SERVER_NEEDS.find((n) => n.id === 'postgresql')!;
+    expect(manualCommand(need, machine(over).sys)).toBe(command);
   });
 });

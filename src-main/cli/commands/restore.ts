@@ -5,6 +5,7 @@ import { describeStorageError } from '../../store/storage-errors';
 import { CliFailure } from '../cli-io';
 import { flagValue, type Command } from '../command';
 import { EXIT } from '../exit-codes';
+import { refuseUnlessFile } from '../open-store';
 
 export const restoreCommand: Command = {
   name: 'restore',
@@ -25,10 +26,12 @@ FILE itself is left as it is.
 
 Exits 0 when restored, 2 when FILE cannot be read or is not a SQLite file, 3 when it is
 damaged or its schema is not Rigbook's (nothing is replaced), 4 when the store is in use,
-the disk is full or the folder cannot be written.`,
+the disk is full or the folder cannot be written. A PostgreSQL store (--db postgres://...) is
+restored with the server's own pg_restore instead; this command refuses it (exit 4).`,
   options: {},
   positionals: { min: 1, max: 1 },
   async run({ positionals, values, io, dbPath }) {
+    refuseUnlessFile(dbPath, 'rigbook restore');
     const candidate = resolve(io.cwd, positionals[0]!);
     let result;
     try {

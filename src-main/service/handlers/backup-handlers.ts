@@ -26,7 +26,12 @@ const WRITE_ERRORS = new Set(['ENOENT', 'EISDIR', 'ENOTDIR', 'SQLITE_CANTOPEN'])
  */
 export const backupStoreHandler = defineHandler(record({ destination: destination() }), async (ctx, input) => {
   const raw = ctx.raw;
-  if (!raw) throw new ServiceError('invalid', 'destination: this store is not a file that can be copied', 'destination');
+  if (!raw) {
+    if (ctx.engine === 'postgres') {
+      throw new ServiceError('invalid', "destination: this store is a PostgreSQL database, not a file Rigbook can copy; back it up with the server's own pg_dump", 'destination');
+    }
+    throw new ServiceError('invalid', 'destination: this store is not a file that can be copied', 'destination');
+  }
   const target = resolve(input.destination);
   // By identity, not by spelling: a symlinked folder, a hard link or another letter case can name the store.
   const clash = storeFileClash(target, raw.name);

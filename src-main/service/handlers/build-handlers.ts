@@ -60,7 +60,8 @@ async function checkReferences(db: DbHandle, buildId: string, fields: Partial<Bu
   );
   const supplyIds = fields.supplies.map((s) => s.id);
   if (new Set(supplyIds).size !== supplyIds.length) throw new ServiceError('invalid', 'supplies: two supplies share one id', 'supplies');
-  const taken = await db.selectFrom('supplies').select(['id', 'buildId']).where('id', 'in', supplyIds).where('buildId', '!=', buildId).execute();
+  // An empty IN list is an SQL syntax error on PostgreSQL (SQLite lets it through).
+  const taken = supplyIds.length === 0 ? [] : await db.selectFrom('supplies').select(['id', 'buildId']).where('id', 'in', supplyIds).where('buildId', '!=', buildId).execute();
   if (taken[0]) throw new ServiceError('invalid', `supplies: supply id "${taken[0].id}" belongs to another build`, 'supplies');
 }
 

@@ -10,7 +10,7 @@ export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '
  * fraction of a TypeScript loader's start, which is what lets a test kill fifty children.
  * better-sqlite3 stays outside the bundle (it is native) and is found through NODE_PATH.
  */
-export async function bundleChild(entry: string, outDir: string): Promise<string> {
+export async function bundleChild(entry: string, outDir: string, alsoExternal: readonly string[] = []): Promise<string> {
   const outfile = path.join(outDir, `${path.basename(entry, '.ts')}.cjs`);
   await build({
     entryPoints: [path.join(ROOT, entry)],
@@ -19,7 +19,7 @@ export async function bundleChild(entry: string, outDir: string): Promise<string
     platform: 'node',
     target: 'node20',
     format: 'cjs',
-    external: ['better-sqlite3'],
+    external: ['better-sqlite3', ...alsoExternal],
     logLevel: 'error',
   });
   return outfile;
