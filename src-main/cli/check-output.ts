@@ -1,4 +1,5 @@
-import type { BuildVerdict, Finding, PackShare, Status, SupplyVerdict } from '../core/domain';
+import { FIGURE_KEYS } from '../core/catalogue/figures';
+import type { BuildVerdict, Figures, Finding, PackShare, Status, SupplyVerdict } from '../core/domain';
 import { STATUSES } from '../core/domain';
 import type { FleetRecords } from '../service/fleet/fleet-format';
 import { formatNumber, formatPercent, JSON_SIGNIFICANT_DIGITS, roundSignificant } from './format-number';
@@ -10,7 +11,6 @@ export const OVER_CAUTION =
 /** The finding fields the check output carries, in this order. */
 const FINDING_FIELDS = ['rule', 'status', 'value', 'limit', 'unit', 'margin', 'message'] as const;
 
-type JsonFigures = Record<string, number | string | null>;
 
 export interface CheckJson {
   builds: {
@@ -22,7 +22,7 @@ export interface CheckJson {
       name: string;
       batteryIds: string[];
       status: Status;
-      figures: JsonFigures;
+      figures: Figures;
       findings: Pick<Finding, (typeof FINDING_FIELDS)[number]>[];
       packShares: PackShare[];
       assumptions: string[];
@@ -32,9 +32,9 @@ export interface CheckJson {
 
 const round = (x: number | null): number | null => (x === null ? null : roundSignificant(x, JSON_SIGNIFICANT_DIGITS));
 
-function roundFigures(figures: SupplyVerdict['figures']): JsonFigures {
-  const out: JsonFigures = {};
-  for (const [key, value] of Object.entries(figures)) out[key] = typeof value === 'number' ? roundSignificant(value, JSON_SIGNIFICANT_DIGITS) : value;
+function roundFigures(figures: Figures): Figures {
+  const out: Figures = { ...figures };
+  for (const key of FIGURE_KEYS) out[key] = round(figures[key]);
   return out;
 }
 

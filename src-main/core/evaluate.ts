@@ -5,6 +5,7 @@
 import { buildInputs, type BuildInputs } from './build-inputs';
 import { classFindings, classRulesFor } from './class-rules';
 import { FRESH_WATER_DENSITY, PROP_TIP_MACH_LIMIT, SEA_WATER_DENSITY, SPEED_OF_SOUND_SEA_LEVEL } from './constants';
+import { FIGURE_KEYS, type FigureKey } from './catalogue/figures';
 import type { BuildContext, BuildVerdict, Figures, Finding, PackShare, Status, Supply, SupplyVerdict } from './domain';
 import { rolloutMm, speedKmhAt } from './drivetrain';
 import { known, lacking, missingOf, type Known } from './known';
@@ -275,7 +276,7 @@ function evaluateSupply(
   const tipLimit = makerLimit !== null && makerLimit < machLimit ? makerLimit : machLimit;
 
   const anyCurrent = peakA.value !== null || contA.value !== null;
-  const entries: Record<string, Known> = {
+  const entries: Record<FigureKey, Known> = {
     packVoltageNominalV: nominalV,
     packVoltageFullV: fullV,
     packVoltageCutoffV: cutoffV,
@@ -353,10 +354,9 @@ function evaluateSupply(
     peakCurrentSource: peakA.value !== null ? peakSource : null,
     continuousCurrentSource: contA.value !== null ? contSource : null,
   };
-  const figureMissing: Record<string, readonly string[]> = {};
-  for (const key in entries) {
+  const figureMissing: Partial<Record<FigureKey, readonly string[]>> = {};
+  for (const key of FIGURE_KEYS) {
     const k = entries[key];
-    if (!k) continue;
     // Absurd inputs can overflow; a figure is a finite number or null, never NaN or Infinity.
     if (k.value !== null && Number.isFinite(k.value)) figures[key] = k.value;
     else figureMissing[key] = k.missing ?? [];
