@@ -22,7 +22,7 @@ export { worstStatus, compareStatus, marginOf, statusOf } from './status';
 export { tightThresholdFor } from './threshold';
 export { classRulesFor, classFindings } from './class-rules';
 export { fieldLabel, describeMissing } from './field-labels';
-export { NOT_APPLICABLE } from './operating-model';
+export { NOT_APPLICABLE } from './operation';
 export { evaluateBuild } from './evaluate';
 export { fullThrottleRun, RUN_SAMPLES, type RunModel, type RunResult } from './run';
 export { runTrace, type RunTrace } from './run-trace';
