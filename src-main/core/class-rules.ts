@@ -1,4 +1,5 @@
 import { FIGURES, isFigureKey, type FigureKey } from './catalogue/figures';
+import { CLASS_RULE } from './catalogue/rules';
 import type { ClassRule, Figures, Finding } from './domain';
 import { known, lacking, type Known } from './known';
 import { checkLimit } from './rule-check';
@@ -37,10 +38,10 @@ export function classFindings(
       limit,
       tightThreshold,
       what,
-      limitName: `the ${r.className} class limit`,
-      risk: 'The build does not meet the class rules.',
-      fix: 'Change the parts or gearing, or run it in another class.',
-      tightHint: 'Little room before the class limit.',
+      limitName: CLASS_RULE.limitName(r.className),
+      risk: CLASS_RULE.risk,
+      fix: CLASS_RULE.fix,
+      tightHint: CLASS_RULE.tightHint,
     });
   });
 }

@@ -277,11 +277,24 @@ export const PACK_REPEATED_RULE_ID = 'pack-repeated' satisfies RuleId;
 /** Ids a class rule may not take. */
 export const RESERVED_RULE_IDS: readonly string[] = RULE_IDS;
 
+/**
+ * Class and shop rules are records, not entries: a class names a figure key of the figure
+ * catalogue and a limit. What they share lives here; their ids start with the prefix, so they
+ * never clash with the catalogue's.
+ */
+export const CLASS_RULE = {
+  idPrefix: 'class-',
+  limitName: (className: string): string => `the ${className} class limit`,
+  risk: 'The build does not meet the class rules.',
+  fix: 'Change the parts or gearing, or run it in another class.',
+  tightHint: 'Little room before the class limit.',
+} as const;
+
 /** Short name of a rule for rows and axes; a class rule is named by its own id. */
 export function ruleName(rule: string): string {
   if (isRuleId(rule)) return CATALOGUE[rule].name;
   // Class rules are named by their shop or class: "class-max-voltage" → "Class: max voltage".
-  if (rule.startsWith('class-')) return `Class: ${rule.slice(6).replace(/-/g, ' ')}`;
+  if (rule.startsWith(CLASS_RULE.idPrefix)) return `Class: ${rule.slice(CLASS_RULE.idPrefix.length).replace(/-/g, ' ')}`;
   return rule;
 }
 
@@ -292,7 +305,7 @@ export function isRatedMaximum(rule: string): boolean {
   return spec.kind === 'rating' && spec.text.ratedMaximum === true;
 }
 
-/** The cautions an `over` finding calls for; none for any other status. */
+/** The cautions an `over` finding calls for (a class rule's by its unit); none for any other status. */
 export function cautionsFor(finding: CautionFinding, lithium: boolean): CautionTopic[] {
   if (finding.status !== 'over') return [];
   const topics = isRuleId(finding.rule) ? CATALOGUE[finding.rule].cautions : cautionsOfOtherRule(finding);
