@@ -1,4 +1,8 @@
-import type { BuildVerdict, Finding, PackShare, Status, SupplyVerdict } from '../core/domain';
+import { CAUTION_TEXT, CAUTION_TOPICS, type CautionTopic } from '../core/catalogue/cautions';
+import { FIGURE_KEYS, FIGURES, type FigureKey } from '../core/catalogue/figures';
+import { cautionsOfAll, isRuleId, ruleName } from '../core/catalogue/rules';
+import { isLithium } from '../core/chemistry';
+import type { BuildVerdict, Figures, Finding, PackShare, Status, SupplyVerdict } from '../core/domain';
 import { STATUSES } from '../core/domain';
 import type { FleetRecords } from '../service/fleet/fleet-format';
 import { formatNumber, formatPercent, JSON_SIGNIFICANT_DIGITS, roundSignificant } from './format-number';
@@ -10,7 +14,6 @@ export const OVER_CAUTION =
 /** The finding fields the check output carries, in this order. */
 const FINDING_FIELDS = ['rule', 'status', 'value', 'limit', 'unit', 'margin', 'message'] as const;
 
-type JsonFigures = Record<string, number | string | null>;
 
 export interface CheckJson {
   builds: {
@@ -22,7 +25,7 @@ export interface CheckJson {
       name: string;
       batteryIds: string[];
       status: Status;
-      figures: JsonFigures;
+      figures: Figures;
       findings: Pick<Finding, (typeof FINDING_FIELDS)[number]>[];
       packShares: PackShare[];
       assumptions: string[];
@@ -32,9 +35,9 @@ export interface CheckJson {
 
 const round = (x: number | null): number | null => (x === null ? null : roundSignificant(x, JSON_SIGNIFICANT_DIGITS));
 
-function roundFigures(figures: SupplyVerdict['figures']): JsonFigures {
-  const out: JsonFigures = {};
-  for (const [key, value] of Object.entries(figures)) out[key] = typeof value === 'number' ? roundSignificant(value, JSON_SIGNIFICANT_DIGITS) : value;
+function roundFigures(figures: Figures): Figures {
+  const out: Figures = { ...figures };
+  for (const key of FIGURE_KEYS) out[key] = round(figures[key]);
   return out;
 }
 
@@ -78,25 +81,46 @@ function pad(text: string, width: number): string {
 
 const WORD: Readonly<Record<Status, string>> = { over: 'OVER', tight: 'TIGHT', incomplete: 'INCOMPLETE', clear: 'clear' };
 
+/** A figure with its catalogue unit: "12.6 V". */
+function figure(f: Figures, key: FigureKey): string {
+  return `${formatNumber(f[key])} ${FIGURES[key].unit}`;
+}
+
 function figureLine(s: SupplyVerdict): string {
   const f = s.figures;
   const parts = [
-    `pack ${formatNumber(f.packVoltageNominalV)} V nominal / ${formatNumber(f.packVoltageFullV)} V full`,
-    `Kt ${formatNumber(f.torqueConstantNmPerA)} N·m/A`,
-    `no-load ${formatNumber(f.noLoadRpm)} rpm`,
+    `pack ${figure(f, 'packVoltageNominalV')} nominal / ${figure(f, 'packVoltageFullV')} full`,
+    `Kt ${figure(f, 'torqueConstantNmPerA')}`,
+    `no-load ${figure(f, 'noLoadRpm')}`,
   ];
   if (f.finalDriveRatio !== null) parts.push(`final drive ${formatNumber(f.finalDriveRatio)}`);
-  if (f.theoreticalSpeedKmh !== null) parts.push(`${formatNumber(f.theoreticalSpeedKmh)} km/h theoretical`);
-  if (typeof f.pitchSpeedKmh === 'number') parts.push(`${formatNumber(f.pitchSpeedKmh)} km/h pitch speed`);
-  parts.push(`peak ${formatNumber(f.peakCurrentA)} A`, `continuous ${formatNumber(f.continuousCurrentA)} A`);
+  if (f.theoreticalSpeedKmh !== null) parts.push(`${figure(f, 'theoreticalSpeedKmh')} theoretical`);
+  if (f.pitchSpeedKmh !== null) parts.push(`${figure(f, 'pitchSpeedKmh')} pitch speed`);
+  parts.push(`peak ${figure(f, 'peakCurrentA')}`, `continuous ${figure(f, 'continuousCurrentA')}`);
   if (f.currentSource) parts.push(`(${f.currentSource === 'measured' ? 'measured' : 'model'})`);
   return parts.join(' · ');
+}
+
+/** A catalogue rule by its short name and id; a class rule's id already says what it is. */
+function ruleWords(rule: string): string {
+  return isRuleId(rule) ? `${ruleName(rule)} (${rule})` : rule;
+}
+
+/** Whether a supply may hold lithium packs: a pack not in the file counts as lithium (the safe side). */
+function lithiumOf(fleet: FleetRecords): (s: SupplyVerdict) => boolean {
+  const chemistry = new Map(fleet.batteries.map((b) => [b.id, b.chemistry]));
+  return (s) => s.batteryIds.length === 0 || s.batteryIds.some((id) => {
+    const c = chemistry.get(id);
+    return c === undefined || isLithium(c);
+  });
 }
 
 /** A readable report: per build, per supply, the key figures and a table of the findings, with the full message of each that needs attention. */
 export function checkText(fleet: FleetRecords, verdicts: readonly BuildVerdict[]): string {
   const names = new Map(fleet.builds.map((b) => [b.id, b.name]));
   const supplyName = supplyNamer(fleet);
+  const lithium = lithiumOf(fleet);
+  const cautions = new Set<CautionTopic>();
   const lines: string[] = [];
   for (const v of verdicts) {
     lines.push(`${WORD[v.status]}  ${names.get(v.buildId) ?? v.buildId}  [${v.buildId}]`);
@@ -110,7 +134,8 @@ export function checkText(fleet: FleetRecords, verdicts: readonly BuildVerdict[]
         const limit = f.limit === null ? '–' : `${formatNumber(f.limit)} ${f.unit}`;
         lines.push(`    ${pad(WORD[f.status], 12)}${pad(f.rule, 24)}${pad(value, 14)}${pad(limit, 14)}${formatPercent(f.margin)}`);
       }
-      for (const f of s.findings) if (f.status !== 'clear') lines.push(`    ${WORD[f.status]} ${f.rule}: ${f.message}`);
+      for (const f of s.findings) if (f.status !== 'clear') lines.push(`    ${WORD[f.status]} ${ruleWords(f.rule)}: ${f.message}`);
+      for (const c of cautionsOfAll(s.findings, lithium(s))) cautions.add(c);
       for (const a of s.assumptions) lines.push(`    assumed: ${a}`);
     });
     lines.push('');
@@ -118,6 +143,9 @@ export function checkText(fleet: FleetRecords, verdicts: readonly BuildVerdict[]
   const counts = new Map<Status, number>(STATUSES.map((s) => [s, 0]));
   for (const v of verdicts) counts.set(v.status, (counts.get(v.status) ?? 0) + 1);
   lines.push(`${verdicts.length} build${verdicts.length === 1 ? '' : 's'} checked: ${STATUSES.map((s) => `${counts.get(s)} ${s}`).join(', ')}.`);
-  if ((counts.get('over') ?? 0) > 0) lines.push(OVER_CAUTION);
+  if ((counts.get('over') ?? 0) > 0) {
+    lines.push(OVER_CAUTION);
+    for (const c of CAUTION_TOPICS) if (cautions.has(c)) lines.push(`  ${CAUTION_TEXT[c]}`);
+  }
   return `${lines.join('\n')}\n`;
 }

@@ -1,3 +1,5 @@
+import { FIGURES, isFigureKey, type FigureKey } from './catalogue/figures';
+import { CLASS_RULE } from './catalogue/rules';
 import type { ClassRule, Figures, Finding } from './domain';
 import { known, lacking, type Known } from './known';
 import { checkLimit } from './rule-check';
@@ -8,34 +10,6 @@ export function classRulesFor(rules: readonly ClassRule[], className: string | n
   return rules.filter((r) => r.className === className && r.archivedAt === null);
 }
 
-/** Plain words for the figures a class rule can name. */
-const FIGURE_WORDS: Readonly<Record<string, string>> = {
-  packVoltageNominalV: 'Nominal supply voltage',
-  packVoltageFullV: 'Full-charge supply voltage',
-  packVoltageCutoffV: 'Cut-off supply voltage',
-  packResistanceOhm: 'Supply resistance',
-  capacityMah: 'Supply capacity',
-  torqueConstantNmPerA: 'Torque constant',
-  noLoadRpm: 'No-load speed',
-  noLoadRpmFull: 'No-load speed at full charge',
-  finalDriveRatio: 'Final drive ratio',
-  rolloutMm: 'Rollout',
-  theoreticalSpeedKmh: 'Theoretical speed',
-  loadedTopSpeedKmh: 'Loaded top speed',
-  peakCurrentA: 'Peak current',
-  continuousCurrentA: 'Continuous current',
-  peakPowerW: 'Peak power',
-  loadedVoltageV: 'Loaded supply voltage',
-  thrustN: 'Static thrust',
-  tipSpeedMps: 'Propeller tip speed (unloaded)',
-  tipSpeedStaticMps: 'Propeller tip speed (static)',
-  pitchSpeedKmh: 'Pitch speed',
-  runRmsCurrentA: 'RMS current over the run',
-  steadyCurrentA: 'Steady current',
-  loadedRpm: 'Loaded motor speed',
-  loadedRpmFull: 'Loaded motor speed at full charge',
-};
-
 /**
  * Findings of class rules against a supply's figures. A figure that could not be computed
  * makes the finding incomplete and names what it lacks.
@@ -43,17 +17,20 @@ const FIGURE_WORDS: Readonly<Record<string, string>> = {
 export function classFindings(
   rules: readonly ClassRule[],
   figures: Figures,
-  figureMissing: Readonly<Record<string, readonly string[]>>,
+  figureMissing: Readonly<Partial<Record<FigureKey, readonly string[]>>>,
   tightThreshold: number,
 ): Finding[] {
   return rules.map((r) => {
-    const raw = Object.hasOwn(figures, r.figure) ? figures[r.figure] : undefined;
+    // A stored rule may name a figure this engine does not compute: it cannot be checked.
+    const key = isFigureKey(r.figure) ? r.figure : null;
+    const raw = key === null ? undefined : figures[key];
+    const lacks = key === null ? undefined : figureMissing[key];
     let value: Known;
     if (typeof raw === 'number') value = known(raw);
-    else if (raw === null && figureMissing[r.figure]) value = lacking(...(figureMissing[r.figure] ?? []));
+    else if (raw === null && lacks) value = lacking(...lacks);
     else value = lacking('classRule.figure');
     const limit = Number.isFinite(r.limit) && r.limit > 0 ? known(r.limit) : lacking('classRule.limit');
-    const what = FIGURE_WORDS[r.figure] ?? `Figure ${r.figure}`;
+    const what = key === null ? `Figure ${r.figure}` : FIGURES[key].name;
     return checkLimit({
       rule: r.ruleId,
       unit: r.unit,
@@ -61,10 +38,10 @@ export function classFindings(
       limit,
       tightThreshold,
       what,
-      limitName: `the ${r.className} class limit`,
-      risk: 'The build does not meet the class rules.',
-      fix: 'Change the parts or gearing, or run it in another class.',
-      tightHint: 'Little room before the class limit.',
+      limitName: CLASS_RULE.limitName(r.className),
+      risk: CLASS_RULE.risk,
+      fix: CLASS_RULE.fix,
+      tightHint: CLASS_RULE.tightHint,
     });
   });
 }

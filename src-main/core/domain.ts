@@ -3,6 +3,10 @@
 // a row of an import file and the input of the evaluation are the same shape; the physics
 // converts to SI on the way in.
 
+import type { Figures } from './catalogue/figures';
+
+export type { Figures };
+
 export const CHEMISTRIES = ['lipo', 'lihv', 'lifepo4', 'liion', 'nimh'] as const;
 export type Chemistry = (typeof CHEMISTRIES)[number];
 
@@ -207,30 +211,6 @@ export interface PackShare {
   peakA: number | null;
   continuousLimitA: number | null;
   burstLimitA: number | null;
-}
-
-/** Figures of one supply; null where an input needed for it is missing. */
-export interface Figures {
-  packVoltageNominalV: number | null;
-  packVoltageFullV: number | null;
-  packVoltageCutoffV: number | null;
-  packResistanceOhm: number | null;
-  capacityMah: number | null;
-  torqueConstantNmPerA: number | null;
-  noLoadRpm: number | null;
-  noLoadRpmFull: number | null;
-  finalDriveRatio: number | null;
-  rolloutMm: number | null;
-  theoreticalSpeedKmh: number | null;
-  loadedTopSpeedKmh: number | null;
-  peakCurrentA: number | null;
-  continuousCurrentA: number | null;
-  peakPowerW: number | null;
-  loadedVoltageV: number | null;
-  thrustN: number | null;
-  tipSpeedMps: number | null;
-  currentSource: 'model' | 'measured' | null;
-  [key: string]: number | string | null;
 }
 
 export interface SupplyVerdict {

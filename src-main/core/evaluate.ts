@@ -5,16 +5,18 @@
 import { buildInputs, type BuildInputs } from './build-inputs';
 import { classFindings, classRulesFor } from './class-rules';
 import { FRESH_WATER_DENSITY, PROP_TIP_MACH_LIMIT, SEA_WATER_DENSITY, SPEED_OF_SOUND_SEA_LEVEL } from './constants';
+import { FIGURE_KEYS, FIGURES, type FigureKey } from './catalogue/figures';
 import type { BuildContext, BuildVerdict, Figures, Finding, PackShare, Status, Supply, SupplyVerdict } from './domain';
 import { rolloutMm, speedKmhAt } from './drivetrain';
 import { known, lacking, missingOf, type Known } from './known';
 import { messageNumber } from './message-number';
 import { torqueConstant } from './motor';
-import { NOT_APPLICABLE, operate } from './operating-model';
+import { operate } from './operating-point';
+import { NOT_APPLICABLE } from './operation';
 import type { PackModel } from './pack';
 import { tipSpeed } from './propeller';
 import { checkLimit, type LimitCheck } from './rule-check';
-import { PACK_REPEATED_RULE_ID, PACK_RETIRED_RULE_ID, RULE_TEXT, SUPPLY_MATCH_RULE_ID, type BuiltInRuleId } from './rules';
+import { PACK_REPEATED_RULE_ID, PACK_RETIRED_RULE_ID, packRuleMessage, ratingRule, SUPPLY_MATCH_RULE_ID, type BuiltInRuleId } from './catalogue/rules';
 import { compareStatus } from './status';
 import { supplyModel, type SupplyModel } from './supply';
 import { tightThresholdFor } from './threshold';
@@ -102,11 +104,12 @@ interface RuleEnv {
 }
 
 function pushRule(env: RuleEnv, id: BuiltInRuleId, value: Known, limit: Known, source?: 'model' | 'measured', over?: RuleOverride): void {
-  const t = RULE_TEXT[id];
+  const spec = ratingRule(id);
+  const t = spec.text;
   const what = over?.what ?? t.what;
   const check: LimitCheck = {
     rule: id,
-    unit: t.unit,
+    unit: FIGURES[spec.figure].unit,
     value: finite(value),
     limit: finite(limit),
     tightThreshold: t.ratedMaximum ? 0 : env.threshold,
@@ -275,7 +278,7 @@ function evaluateSupply(
   const tipLimit = makerLimit !== null && makerLimit < machLimit ? makerLimit : machLimit;
 
   const anyCurrent = peakA.value !== null || contA.value !== null;
-  const entries: Record<string, Known> = {
+  const entries: Record<FigureKey, Known> = {
     packVoltageNominalV: nominalV,
     packVoltageFullV: fullV,
     packVoltageCutoffV: cutoffV,
@@ -353,10 +356,9 @@ function evaluateSupply(
     peakCurrentSource: peakA.value !== null ? peakSource : null,
     continuousCurrentSource: contA.value !== null ? contSource : null,
   };
-  const figureMissing: Record<string, readonly string[]> = {};
-  for (const key in entries) {
+  const figureMissing: Partial<Record<FigureKey, readonly string[]>> = {};
+  for (const key of FIGURE_KEYS) {
     const k = entries[key];
-    if (!k) continue;
     // Absurd inputs can overflow; a figure is a finite number or null, never NaN or Infinity.
     if (k.value !== null && Number.isFinite(k.value)) figures[key] = k.value;
     else figureMissing[key] = k.missing ?? [];
@@ -475,14 +477,8 @@ function evaluateSupply(
 }
 
 /** A pack that must not be in the build as it is (retired, or named twice): over, naming it. */
-function packFinding(rule: string, batteryId: string, name: string, messages: boolean): Finding {
-  let message = '';
-  if (messages) {
-    message =
-      rule === PACK_RETIRED_RULE_ID
-        ? `Pack retired: "${name}" is marked retired and must not be used. Retired lithium packs can fail under load; take it out of the build and dispose of it as the pack maker and local rules say.`
-        : `Pack listed twice: "${name}" appears more than once in this build, but one physical pack can only be in one place. Pick a second pack or remove the repeat.`;
-  }
+function packFinding(rule: typeof PACK_RETIRED_RULE_ID | typeof PACK_REPEATED_RULE_ID, batteryId: string, name: string, messages: boolean): Finding {
+  const message = messages ? packRuleMessage(rule, name) : '';
   return { rule, status: 'over', value: null, limit: null, unit: '', margin: null, message, batteryId };
 }
 

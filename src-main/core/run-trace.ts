@@ -3,7 +3,7 @@
 
 import { buildInputs } from './build-inputs';
 import type { BuildContext } from './domain';
-import { groundRunModel } from './operating-model';
+import { groundRunModel } from './ground-operating-point';
 import { fullThrottleRun } from './run';
 import { supplyModel } from './supply';
 import { mpsToKmh } from './units';

@@ -1,3 +1,4 @@
+import { SUPPLY_MATCH_MESSAGE } from './catalogue/rules';
 import { millivoltExact } from './chemistry';
 import type { Battery, Supply } from './domain';
 import { known, lacking, missingOf, type Known } from './known';
@@ -146,11 +147,6 @@ export function combineParallel(packs: readonly PackModel[]): SupplyModel {
     modelResistanceOhm: r,
     capacityMah,
     lithium: packs.some((p) => p.lithium),
-    mismatch: mismatched
-      ? 'Packs in parallel must have the same chemistry and cell count. Connected like this, the ' +
-        'fuller pack pushes a large current into the other one at once: wires, connectors and ' +
-        'lithium packs can overheat and catch fire. Use matched packs, and connect them only when ' +
-        'their voltages are within 0.1 V per cell of each other (measure first).'
-      : null,
+    mismatch: mismatched ? SUPPLY_MATCH_MESSAGE : null,
   };
 }

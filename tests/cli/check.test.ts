@@ -100,6 +100,9 @@ describe('rigbook check', () => {
     expect(run.out).toMatch(/OVER\s+controller-voltage\s+25\.2 V\s+16\.8 V\s+-50\.0 %/);
     expect(run.out).toContain('2 builds checked: 1 over, 0 incomplete, 0 tight, 1 clear.');
     expect(run.out).toContain("follow the part maker's ratings");
+    // The over finding by its short name, and the caution its rule calls for, once.
+    expect(run.out).toContain('OVER Controller voltage (controller-voltage): Full-charge supply voltage is 25.2 V');
+    expect(run.out.match(/Over-voltage can destroy a controller or motor at once/g)).toHaveLength(1);
   });
 
   it('--json carries the safe-side verdicts: conductance share, retired pack, unloaded tip speed, ranking', async () => {

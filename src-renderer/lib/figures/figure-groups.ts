@@ -1,3 +1,6 @@
+// The build sheet's figure tables, drawn from the core's figure catalogue: a figure added
+// there is listed here under its stage, with its label, unit and decimals.
+import { FIGURE_KEYS, FIGURES, type FigureApplies, type FigureKey, type FigureStage } from '../../../src-main/core/catalogue/figures';
 import type { Figures, VehicleKind } from '../../../src-main/core/domain';
 import type { DisplayQuantity, UnitSystem } from '../../../src-main/core/units';
 import { MISSING, fixed } from '../format/number';
@@ -5,7 +8,7 @@ import { displayUnit, toDisplay } from '../../../src-main/core/units';
 import { thrustAsMass } from '../format/units';
 
 export interface FigureDef {
-  key: string;
+  key: FigureKey;
   label: string;
   /** A unit that reads the same in both systems (V, A, W, rpm). */
   unit?: string;
@@ -29,75 +32,47 @@ export interface FigureGroup {
   figures: readonly FigureDef[];
 }
 
-export const SUPPLY_FIGURES: FigureGroup = {
-  id: 'supply',
-  title: 'Supply',
-  figures: [
-    { key: 'packVoltageNominalV', label: 'Nominal voltage', unit: 'V', decimals: 1 },
-    { key: 'packVoltageFullV', label: 'Full-charge voltage', unit: 'V', decimals: 2 },
-    { key: 'packVoltageCutoffV', label: 'Cut-off voltage', unit: 'V', decimals: 1 },
-    { key: 'capacityMah', label: 'Capacity', unit: 'mAh', decimals: 0 },
-    { key: 'packResistanceOhm', label: 'Pack resistance', unit: 'mΩ', scale: 1000, decimals: 1 },
-    { key: 'loadedVoltageV', label: 'Voltage at peak current, full charge', unit: 'V', decimals: 2 },
-    { key: 'peakCurrentA', label: 'Peak current, full charge', unit: 'A', decimals: 1, hint: 'model at full charge, or as measured' },
-    { key: 'continuousCurrentA', label: 'Continuous current, full charge', unit: 'A', decimals: 1, hint: 'model at full charge, or as measured; cars and trucks: the larger of the run RMS and the steady current' },
-    { key: 'runRmsCurrentA', label: 'RMS current over the run, full charge', unit: 'A', decimals: 1, optional: true },
-    { key: 'runAverageCurrentA', label: 'Average current over the run, full charge', unit: 'A', decimals: 1, optional: true },
-    { key: 'steadyCurrentA', label: 'Steady current at top speed, full charge', unit: 'A', decimals: 1, optional: true },
-    { key: 'peakPowerW', label: 'Peak power, full charge', unit: 'W', decimals: 0, optional: true },
-    { key: 'peakPowerNoSagW', label: 'Peak power, full charge, assuming no sag', unit: 'W', decimals: 0, hint: 'pack resistance not measured', optional: true },
-  ],
-};
+/** A catalogue figure as a sheet row; a propeller build reads some figures its own way. */
+function figureDef(key: FigureKey, propeller: boolean): FigureDef {
+  const spec = FIGURES[key];
+  const words = propeller && spec.asPropeller ? spec.asPropeller : spec;
+  const def: FigureDef = { key, label: words.label, decimals: spec.decimals };
+  if (spec.display) def.quantity = spec.display;
+  else def.unit = spec.shown?.unit ?? spec.unit;
+  if (spec.shown) def.scale = spec.shown.scale;
+  if (spec.imperialDecimals !== undefined) def.imperialDecimals = spec.imperialDecimals;
+  if (words.hint !== undefined) def.hint = words.hint;
+  if (spec.optional) def.optional = true;
+  if (spec.alt) def.alt = spec.alt;
+  return def;
+}
 
-export const MOTOR_FIGURES: FigureGroup = {
-  id: 'motor',
-  title: 'Motor',
-  figures: [
-    { key: 'noLoadRpm', label: 'No-load speed, nominal', unit: 'rpm', decimals: 0, hint: 'Kv × nominal supply voltage' },
-    { key: 'noLoadRpmFull', label: 'No-load speed, full charge', unit: 'rpm', decimals: 0 },
-    { key: 'loadedRpm', label: 'Loaded speed, nominal', unit: 'rpm', decimals: 0, hint: 'at the loaded top speed on nominal voltage' },
-    { key: 'torqueConstantNmPerA', label: 'Torque constant Kt', unit: 'N·m/A', decimals: 4, hint: '60 ÷ (2π · Kv)' },
-    { key: 'motorPeakCurrentA', label: 'Peak current per motor, full charge', unit: 'A', decimals: 1 },
-    { key: 'motorContinuousCurrentA', label: 'Continuous current per motor, full charge', unit: 'A', decimals: 1 },
-    { key: 'motorPeakPowerW', label: 'Peak power per motor, full charge', unit: 'W', decimals: 0 },
-  ],
-};
+/**
+ * The catalogue's listed figures of some stages, in catalogue order. `applies` keeps the
+ * figures of one kind of vehicle (all of them when 'all'); `propeller` takes the wording of a
+ * propeller build.
+ */
+function groupOf(id: FigureGroup['id'], title: string, stages: readonly FigureStage[], applies: FigureApplies, propeller: boolean): FigureGroup {
+  const keys = FIGURE_KEYS.filter((k) => {
+    const spec = FIGURES[k];
+    return !spec.unlisted && stages.includes(spec.stage) && (applies === 'all' || spec.applies === 'all' || spec.applies === applies);
+  });
+  return { id, title, figures: keys.map((k) => figureDef(k, propeller)) };
+}
 
-export const DRIVETRAIN_FIGURES: FigureGroup = {
-  id: 'drivetrain',
-  title: 'Drivetrain',
-  figures: [
-    { key: 'finalDriveRatio', label: 'Final drive ratio', unit: ':1', decimals: 2, hint: 'spur ÷ pinion × internal ratio' },
-    { key: 'rolloutMm', label: 'Rollout', quantity: 'lengthMm', decimals: 1, imperialDecimals: 2, hint: 'distance per motor turn' },
-    { key: 'theoreticalSpeedKmh', label: 'Theoretical speed, nominal', quantity: 'speedKmh', decimals: 1, hint: 'at nominal no-load speed, no slip' },
-    { key: 'loadedTopSpeedKmh', label: 'Loaded top speed, nominal', quantity: 'speedKmh', decimals: 1, hint: 'where motor torque meets road load' },
-    { key: 'runLengthS', label: 'Run length', unit: 's', decimals: 1, hint: 'full throttle from standstill', optional: true },
-    { key: 'drivenWeightShare', label: 'Weight on driven wheels', unit: '%', scale: 100, decimals: 0, optional: true },
-  ],
-};
-
-export const PROPELLER_FIGURES: FigureGroup = {
-  id: 'propeller',
-  title: 'Propeller',
-  figures: [
-    { key: 'finalDriveRatio', label: 'Gear ratio', unit: ':1', decimals: 2, hint: 'motor turns per propeller turn' },
-    { key: 'pitchSpeedKmh', label: 'Pitch speed, nominal', quantity: 'speedKmh', decimals: 1, hint: 'pitch × propeller rev/s at nominal no-load speed', optional: true },
-    { key: 'thrustN', label: 'Static thrust, full charge', quantity: 'forceN', decimals: 1, alt: 'thrustMass', hint: 'all motors together; in brackets the mass it holds up' },
-    { key: 'propellerRpmStatic', label: 'Propeller speed, static, full charge', unit: 'rpm', decimals: 0, optional: true },
-    { key: 'propellerRpmUnloaded', label: 'Propeller speed, unloaded, full charge', unit: 'rpm', decimals: 0, hint: 'the highest it can reach, as it unloads on the move', optional: true },
-    { key: 'tipSpeedStaticMps', label: 'Tip speed, static, full charge', quantity: 'speedMps', decimals: 0, optional: true },
-    { key: 'tipSpeedMps', label: 'Tip speed, unloaded, full charge', quantity: 'speedMps', decimals: 0, hint: 'the highest rpm the propeller reaches; judged against the limit' },
-    { key: 'tipSpeedLimitMps', label: 'Tip speed limit', quantity: 'speedMps', decimals: 0, optional: true },
-    { key: 'fluidDensityKgM3', label: 'Water or air density', unit: 'kg/m³', decimals: 1, optional: true },
-  ],
-};
+export const SUPPLY_FIGURES: FigureGroup = groupOf('supply', 'Supply', ['supply'], 'all', false);
+export const MOTOR_FIGURES: FigureGroup = groupOf('motor', 'Motor', ['controller', 'motor'], 'all', false);
+/** The motor's figures as a propeller build reads them (its loaded speed is the static point). */
+export const PROPELLER_MOTOR_FIGURES: FigureGroup = groupOf('motor', 'Motor', ['controller', 'motor'], 'all', true);
+export const DRIVETRAIN_FIGURES: FigureGroup = groupOf('drivetrain', 'Drivetrain', ['drive', 'output'], 'ground', false);
+export const PROPELLER_FIGURES: FigureGroup = groupOf('propeller', 'Propeller', ['drive', 'output'], 'propeller', true);
 
 const GROUND: readonly VehicleKind[] = ['car', 'truck'];
 
 /** Supply, motor, then drivetrain for cars and trucks or propeller for the rest. */
 export function figureGroupsFor(kind: VehicleKind | null): FigureGroup[] {
-  const third = kind === null ? null : GROUND.includes(kind) ? DRIVETRAIN_FIGURES : PROPELLER_FIGURES;
-  return third ? [SUPPLY_FIGURES, MOTOR_FIGURES, third] : [SUPPLY_FIGURES, MOTOR_FIGURES, DRIVETRAIN_FIGURES, PROPELLER_FIGURES];
+  if (kind === null) return [SUPPLY_FIGURES, MOTOR_FIGURES, DRIVETRAIN_FIGURES, PROPELLER_FIGURES];
+  return GROUND.includes(kind) ? [SUPPLY_FIGURES, MOTOR_FIGURES, DRIVETRAIN_FIGURES] : [SUPPLY_FIGURES, PROPELLER_MOTOR_FIGURES, PROPELLER_FIGURES];
 }
 
 export function figureUnit(def: FigureDef, system: UnitSystem): string {

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { DEFAULT_TIGHT_THRESHOLD, STATUSES, type Status } from '../../../src-main/core/domain';
 import { known, lacking } from '../../../src-main/core/known';
 import { checkLimit, type LimitCheck } from '../../../src-main/core/rule-check';
-import { BUILT_IN_RULE_IDS } from '../../../src-main/core/rules';
+import { BUILT_IN_RULE_IDS } from '../../../src-main/core/catalogue/rules';
 import { compareStatus, marginOf, worstStatus } from '../../../src-main/core/status';
 import { tightThresholdFor } from '../../../src-main/core/threshold';
 import { classRule } from './fixtures';

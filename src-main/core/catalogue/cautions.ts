@@ -1,0 +1,29 @@
+// What can happen when a figure is over, in the plain words a workshop poster would use. A
+// finding's own message says what to change; these say why it matters. Each rule of the rule
+// catalogue names its topics, so the sheet and the command line warn alike.
+
+import type { Finding } from '../domain';
+
+export const CAUTION_TOPICS = ['fire', 'heat', 'propeller', 'voltage', 'mechanical'] as const;
+export type CautionTopic = (typeof CAUTION_TOPICS)[number];
+
+export const CAUTION_TEXT: Readonly<Record<CautionTopic, string>> = {
+  fire: 'Fire risk: a lithium pack driven past its rating heats up, swells and can catch fire. Charge and store packs on a fire-safe surface, never unattended.',
+  heat: 'Heat: current above the rating heats wires, connectors and solder joints; insulation can melt and short.',
+  propeller: 'Injury risk: a propeller near the speed of sound is stressed beyond its design and can break and throw pieces. Keep clear of turning propellers.',
+  voltage: 'Over-voltage can destroy a controller or motor at once; a failing controller can catch fire.',
+  mechanical: 'Above its rated speed a motor’s rotor and bearings are over-stressed and can come apart.',
+};
+
+/** The finding fields the cautions are chosen by. */
+export type CautionFinding = Pick<Finding, 'rule' | 'status' | 'unit'>;
+
+/**
+ * Topics of a rule outside the catalogue (a class or shop rule), judged by its unit and id:
+ * a current or power limit heats wiring, a voltage limit guards the electronics.
+ */
+export function cautionsOfOtherRule(finding: CautionFinding): CautionTopic[] {
+  if (finding.unit === 'A' || finding.unit === 'W') return ['heat'];
+  if (finding.rule.endsWith('-voltage') || finding.unit === 'V') return ['voltage'];
+  return [];
+}
