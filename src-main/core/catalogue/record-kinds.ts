@@ -6,8 +6,8 @@ import { MOTOR_FIELDS } from './motor-fields';
 import { PROPELLER_FIELDS } from './propeller-fields';
 import { VEHICLE_FIELDS } from './vehicle-fields';
 
-// Every kind of record with fields a user types: its table, what one record is called, and the
-// prefix the engine names its fields with (`motor.kv`, `gearing.pinionTeeth`).
+// Every kind of record with fields a user types, by its table, and the prefix the engine names
+// its fields with (`motor.kv`, `gearing.pinionTeeth`).
 
 export const FIELD_CATALOGUES = {
   batteries: BATTERY_FIELDS,
@@ -29,9 +29,6 @@ export const FIELD_PREFIXES = {
   vehicles: 'vehicle',
   builds: 'build',
 } as const satisfies Record<CatalogueKind, string>;
-
-/** The nested records, named by their own prefix. */
-export const NESTED_CATALOGUES = { gearing: GEARING_FIELDS } as const satisfies Record<string, FieldCatalogue>;
 
 /** Every catalogue by the prefix its paths take, nested ones included. */
 const BY_PREFIX = {
@@ -61,8 +58,6 @@ export type PathWith<S> = {
   [P in keyof Prefixes & string]: { [K in keyof Prefixes[P] & string]: Prefixes[P][K] extends S ? `${P}.${K}` : never }[keyof Prefixes[P] & string];
 }[keyof Prefixes & string];
 
-/** Every field path the engine may name: `motor.kv`, `gearing.pinionTeeth`. */
-export type FieldPath = PathWith<FieldSpec>;
 
 /** The field an engine path names, or undefined for a path that names no typed field. */
 export function fieldAt(path: string): FieldSpec | undefined {
