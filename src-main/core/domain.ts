@@ -3,6 +3,13 @@
 // a row of an import file and the input of the evaluation are the same shape; the physics
 // converts to SI on the way in.
 
+import type { BATTERY_FIELDS } from './catalogue/battery-fields';
+import type { BUILD_FIELDS, GEARING_FIELDS } from './catalogue/build-fields';
+import type { CONTROLLER_FIELDS } from './catalogue/controller-fields';
+import type { RecordOf } from './catalogue/field-spec';
+import type { MOTOR_FIELDS } from './catalogue/motor-fields';
+import type { PROPELLER_FIELDS } from './catalogue/propeller-fields';
+import type { VEHICLE_FIELDS } from './catalogue/vehicle-fields';
 import type { Figures } from './catalogue/figures';
 
 export type { Figures };
@@ -40,78 +47,17 @@ export interface RecordMeta {
   notes: string;
 }
 
-export interface Battery extends RecordMeta {
-  name: string;
-  chemistry: Chemistry;
-  cellsSeries: number;
-  cellsParallel: number;
-  capacityMah: number;
-  /** Continuous C rating as printed by the maker. */
-  cRatingContinuous: number | null;
-  cRatingBurst: number | null;
-  /** Per-cell internal resistance as measured (ohm); null where never measured. */
-  cellResistanceOhm: number | null;
-  massKg: number | null;
-  cycleCount: number;
-  retired: boolean;
-}
+// The records of each kind are their field catalogue's fields (core/catalogue/), so a field
+// added there is a field of the record everywhere; read the catalogue for units and meanings.
+export interface Battery extends RecordMeta, RecordOf<typeof BATTERY_FIELDS> {}
 
-export interface Motor extends RecordMeta {
-  name: string;
-  /** rpm per volt, no-load, the trade's usual convention. */
-  kv: number;
-  /** Winding (phase-to-phase) resistance in ohm. */
-  resistanceOhm: number | null;
-  noLoadCurrentA: number | null;
-  maxCurrentA: number | null;
-  maxPowerW: number | null;
-  maxVoltageV: number | null;
-  maxRpm: number | null;
-  poles: number | null;
-  massKg: number | null;
-}
+export interface Motor extends RecordMeta, RecordOf<typeof MOTOR_FIELDS> {}
 
-export interface Controller extends RecordMeta {
-  name: string;
-  /** Maximum input voltage; where only a cell count is rated it is converted at 4.2 V per cell. */
-  maxVoltageV: number | null;
-  maxCells: number | null;
-  continuousCurrentA: number | null;
-  burstCurrentA: number | null;
-  resistanceOhm: number | null;
-  massKg: number | null;
-}
+export interface Controller extends RecordMeta, RecordOf<typeof CONTROLLER_FIELDS> {}
 
-export interface Propeller extends RecordMeta {
-  name: string;
-  diameterMm: number;
-  pitchMm: number | null;
-  blades: number;
-  /** Thrust coefficient C_T in T = C_T·ρ·n²·D⁴ (n in rev/s). */
-  thrustCoefficient: number | null;
-  /** Power coefficient C_P in P = C_P·ρ·n³·D⁵. */
-  powerCoefficient: number | null;
-  /** The maker's rpm limit (often printed as a constant ÷ diameter); null where none is published. */
-  maxRpm?: number | null;
-}
+export interface Propeller extends RecordMeta, RecordOf<typeof PROPELLER_FIELDS> {}
 
-export interface Vehicle extends RecordMeta {
-  name: string;
-  kind: VehicleKind;
-  massKg: number | null;
-  /** Drag area C_d·A in m². */
-  dragAreaM2: number | null;
-  rollingCoefficient: number | null;
-  tractionCoefficient: number | null;
-  /** Cars and trucks: 4WD or 2WD; null reads as 4WD (all the weight on driven wheels, the high-current side). */
-  driveLayout?: DriveLayout | null;
-  /** Share of the weight on the driven wheels, 0 to 1; null takes the layout's default. */
-  drivenWeightShare?: number | null;
-  /** Boats: fresh or sea water; null reads as sea water (the denser, the high-current side). */
-  water?: WaterType | null;
-  owner: string;
-  className: string;
-}
+export interface Vehicle extends RecordMeta, RecordOf<typeof VEHICLE_FIELDS> {}
 
 export interface Supply {
   id: string;
@@ -120,38 +66,9 @@ export interface Supply {
   batteryIds: string[];
 }
 
-export interface Gearing {
-  pinionTeeth: number | null;
-  spurTeeth: number | null;
-  /** Gearbox or transmission ratio after the spur; 1 where there is none. */
-  internalRatio: number;
-  tireDiameterMm: number | null;
-  /** Drivetrain efficiency, 0 to 1. */
-  drivetrainEfficiency: number;
-}
+export interface Gearing extends RecordOf<typeof GEARING_FIELDS> {}
 
-export interface Build extends RecordMeta {
-  name: string;
-  vehicleId: string;
-  motorId: string | null;
-  motorCount: number;
-  controllerId: string | null;
-  propellerId: string | null;
-  gearing: Gearing;
-  supplies: Supply[];
-  /** Measured currents override the model where recorded, on the supply they were measured on. */
-  measuredPeakCurrentA: number | null;
-  measuredAverageCurrentA: number | null;
-  /**
-   * The supply the measured currents were logged on; null with one supply means that one.
-   * With several supplies and none named, the measurements are not used (the sheet says so).
-   */
-  measuredSupplyId?: string | null;
-  /** Length of the full-throttle run the continuous current is judged over, s; null takes the default. */
-  runLengthS?: number | null;
-  /** Margin under which a rule reads `tight`; null takes the class's or the default 0.15. */
-  tightThreshold: number | null;
-}
+export interface Build extends RecordMeta, RecordOf<typeof BUILD_FIELDS> {}
 
 /** A class or shop limit of the same shape as a built-in rule: a figure that must stay at or under a limit. */
 export interface ClassRule extends RecordMeta {

@@ -26,5 +26,5 @@ export { NOT_APPLICABLE } from './operation';
 export { evaluateBuild } from './evaluate';
 export { fullThrottleRun, RUN_SAMPLES, type RunModel, type RunResult } from './run';
 export { runTrace, type RunTrace } from './run-trace';
-export { PLAUSIBLE, isPlausible, plausibleMessage, type PlausibleField } from './plausibility';
+export { isPlausible, plausibleMessage, plausibleRange, type PlausibleField } from './plausibility';
 export type { Known } from './known';

@@ -59,7 +59,7 @@ export async function clearFleetTables(db: DbHandle): Promise<ClearedCounts> {
 /** Inserts whole records, keeping their id, version and archivedAt as given. */
 export async function insertPartRows<T extends PartTableName>(db: DbHandle, table: T, records: readonly PartRecords[T][], now: string, onRow?: (n: number) => void): Promise<void> {
   if (records.length === 0) return;
-  const rows = records.map((r) => ({ ...fieldsToColumns(table, r as unknown as Record<string, unknown>), createdAt: now, updatedAt: now }));
+  const rows = records.map((r) => ({ ...fieldsToColumns(table, r), createdAt: now, updatedAt: now }));
   const columns = Object.keys(rows[0] ?? {}).length;
   let done = 0;
   for (const part of chunks(rows, rowsPerStatement(columns))) {

@@ -1,14 +1,22 @@
 import type { Generated, Insertable, Selectable, Updateable } from 'kysely';
-import type { Battery, ClassRule, Controller, DriveLayout, Motor, Propeller, RecordMeta, Vehicle, WaterType } from '../core/domain';
+import type { BATTERY_FIELDS } from '../core/catalogue/battery-fields';
+import type { BUILD_FIELDS, GEARING_FIELDS } from '../core/catalogue/build-fields';
+import type { CONTROLLER_FIELDS } from '../core/catalogue/controller-fields';
+import type { FieldCatalogue, FieldSpec, FieldValue } from '../core/catalogue/field-spec';
+import type { MOTOR_FIELDS } from '../core/catalogue/motor-fields';
+import type { PROPELLER_FIELDS } from '../core/catalogue/propeller-fields';
+import type { VEHICLE_FIELDS } from '../core/catalogue/vehicle-fields';
+import type { ClassRule, RecordMeta } from '../core/domain';
 
 // Column names are camelCase, the same as the rigbook-fleet fields, so rows map to records
 // without a renaming layer; Kysely quotes every identifier, which keeps this portable to
 // PostgreSQL. Booleans are 0/1 integers and lists are JSON text, the common denominator.
 
-// Part tables hold the domain records column for column, plus bookkeeping timestamps; only
-// booleans change type (0/1 integers), so the table types are derived from the records and
-// cannot drift from them. Enumerated text columns keep their union types: every write passes
-// the service's schemas first.
+// Part and build tables hold their kind's catalogue fields column for column (a build's gearing
+// flattened into it), plus the bookkeeping; only booleans change type (0/1 integers), so the
+// table types are read from the catalogues and cannot drift from them (tests/types checks the
+// result, and a store test checks the migrated database against the catalogues). Enumerated text
+// columns keep their union types: every write passes the service's schemas first.
 interface Stamps {
   createdAt: string;
   updatedAt: string;
@@ -16,46 +24,27 @@ interface Stamps {
 
 interface Meta extends RecordMeta, Stamps {}
 
-export interface BatteryTable extends Omit<Battery, 'retired'>, Stamps {
-  retired: number;
-}
+/** The column a catalogue field is stored in: a flag as 0/1, a field added later still a column of its own. */
+type ColumnOf<F extends FieldSpec> = F extends { type: 'flag' } ? (F extends { nullable: true } ? number | null : number) : FieldValue<F>;
 
-export interface MotorTable extends Motor, Stamps {}
+/** The columns of a catalogue's fields; nested records and lists live in their own columns or tables. */
+export type ColumnsOf<C extends FieldCatalogue> = { -readonly [K in keyof C as C[K] extends { type: 'group' | 'supplies' } ? never : K]-?: ColumnOf<C[K]> };
 
-export interface ControllerTable extends Controller, Stamps {}
+export interface BatteryTable extends Meta, ColumnsOf<typeof BATTERY_FIELDS> {}
 
-export interface PropellerTable extends Omit<Propeller, 'maxRpm'>, Stamps {
-  maxRpm: number | null;
-}
+export interface MotorTable extends Meta, ColumnsOf<typeof MOTOR_FIELDS> {}
 
-export interface VehicleTable extends Omit<Vehicle, 'driveLayout' | 'drivenWeightShare' | 'water'>, Stamps {
-  driveLayout: DriveLayout | null;
-  drivenWeightShare: number | null;
-  water: WaterType | null;
-}
+export interface ControllerTable extends Meta, ColumnsOf<typeof CONTROLLER_FIELDS> {}
+
+export interface PropellerTable extends Meta, ColumnsOf<typeof PROPELLER_FIELDS> {}
+
+export interface VehicleTable extends Meta, ColumnsOf<typeof VEHICLE_FIELDS> {}
 
 export interface ClassRuleTable extends Omit<ClassRule, 'tightThreshold'>, Stamps {
   tightThreshold: number | null;
 }
 
-export interface BuildTable extends Meta {
-  name: string;
-  vehicleId: string;
-  motorId: string | null;
-  motorCount: number;
-  controllerId: string | null;
-  propellerId: string | null;
-  pinionTeeth: number | null;
-  spurTeeth: number | null;
-  internalRatio: number;
-  tireDiameterMm: number | null;
-  drivetrainEfficiency: number;
-  measuredPeakCurrentA: number | null;
-  measuredAverageCurrentA: number | null;
-  measuredSupplyId: string | null;
-  runLengthS: number | null;
-  tightThreshold: number | null;
-}
+export interface BuildTable extends Meta, ColumnsOf<typeof BUILD_FIELDS>, ColumnsOf<typeof GEARING_FIELDS> {}
 
 export interface SupplyTable {
   id: string;

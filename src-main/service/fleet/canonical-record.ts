@@ -2,9 +2,10 @@ import type { Build } from '../../core/domain';
 import type { FleetKind } from './fleet-format';
 import { FIELD_ORDER, GEARING_ORDER, SUPPLY_ORDER } from './fleet-schemas';
 
-function pick(keys: readonly string[], from: Record<string, unknown>): Record<string, unknown> {
+function pick(keys: readonly string[], from: object): Record<string, unknown> {
+  const values = new Map(Object.entries(from));
   const out: Record<string, unknown> = {};
-  for (const key of keys) out[key] = from[key] === undefined ? null : from[key];
+  for (const key of keys) out[key] = values.get(key) ?? null;
   return out;
 }
 
@@ -13,12 +14,12 @@ function pick(keys: readonly string[], from: Record<string, unknown>): Record<st
  * dropped), so an export is the same bytes whenever the records are the same.
  */
 export function canonicalRecord(kind: FleetKind, record: object): Record<string, unknown> {
-  const fields = pick(FIELD_ORDER[kind], record as Record<string, unknown>);
+  const fields = pick(FIELD_ORDER[kind], record);
   if (kind === 'builds') {
     const build = record as Build;
-    fields.gearing = pick(GEARING_ORDER, build.gearing as unknown as Record<string, unknown>);
+    fields.gearing = pick(GEARING_ORDER, build.gearing);
     fields.supplies = build.supplies.map((s) => {
-      const supply = pick(SUPPLY_ORDER, s as unknown as Record<string, unknown>);
+      const supply = pick(SUPPLY_ORDER, s);
       supply.batteryIds = [...s.batteryIds];
       return supply;
     });

@@ -1,4 +1,5 @@
-// The columns of each part kind's CSV and how a cell turns into a field and back.
+// The columns of each part kind's CSV (the fields of its catalogue, in the file's order) and how
+// a cell turns into a field and back.
 //
 // Number policy: numeric fields are written as plain numbers (JavaScript's shortest form that
 // reads back to the same value) and never escaped: a spreadsheet reads a plain number as a
@@ -9,8 +10,9 @@
 // An empty cell is "not known" (null) for a field that may be unknown, and the form's default
 // for a field that has one.
 
-import type * as v from 'valibot';
-import { FIELD_ORDER, fleetRecordSchemas } from './fleet-schemas';
+import type { FieldCatalogue, FieldSpec } from '../../core/catalogue/field-spec';
+import { FIELD_CATALOGUES } from '../../core/catalogue/record-kinds';
+import { FIELD_ORDER } from './fleet-schemas';
 
 export const CSV_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles'] as const;
 export type CsvKind = (typeof CSV_KINDS)[number];
@@ -30,30 +32,32 @@ export const CSV_KIND_ALIASES: Readonly<Record<CsvKindName, CsvKind>> = {
 
 type CellKind = 'number' | 'boolean' | 'text';
 
-interface SchemaLike {
-  type: string;
-  wrapped?: SchemaLike;
-}
-
-function cellKindOf(schema: SchemaLike): { kind: CellKind; nullable: boolean } {
-  let s: SchemaLike = schema;
-  let nullable = false;
-  while (s.wrapped && (s.type === 'optional' || s.type === 'nullable')) {
-    if (s.type === 'nullable') nullable = true;
-    s = s.wrapped;
-  }
-  return { kind: s.type === 'number' ? 'number' : s.type === 'boolean' ? 'boolean' : 'text', nullable };
-}
-
 export interface CsvColumn {
   name: string;
   kind: CellKind;
   nullable: boolean;
 }
 
+/** The columns every kind's file carries besides its catalogue's fields. */
+const BOOKKEEPING: Readonly<Record<string, Omit<CsvColumn, 'name'>>> = {
+  id: { kind: 'text', nullable: false },
+  version: { kind: 'number', nullable: false },
+  archivedAt: { kind: 'text', nullable: true },
+};
+
+function cellOf(spec: FieldSpec): Omit<CsvColumn, 'name'> {
+  const kind = spec.type === 'number' || spec.type === 'integer' ? 'number' : spec.type === 'flag' ? 'boolean' : 'text';
+  return { kind, nullable: spec.nullable === true };
+}
+
 export function csvColumns(kind: CsvKind): CsvColumn[] {
-  const entries = fleetRecordSchemas[kind].entries as Record<string, v.GenericSchema>;
-  return FIELD_ORDER[kind].map((name) => ({ name, ...cellKindOf(entries[name] as unknown as SchemaLike) }));
+  const fields: FieldCatalogue = FIELD_CATALOGUES[kind];
+  return FIELD_ORDER[kind].map((name) => {
+    const spec = fields[name];
+    const cell = spec ? cellOf(spec) : BOOKKEEPING[name];
+    if (!cell) throw new Error(`the ${kind} column "${name}" is in no catalogue`);
+    return { name, ...cell };
+  });
 }
 
 /**

@@ -4,6 +4,7 @@
 // set to a locale that writes the comma as the decimal mark reads 0.008 as 8 (the point groups
 // thousands there), and the record would be saved a thousand times off with no word.
 
+import { FIELD_PREFIXES, fieldAt } from '../../core/catalogue/record-kinds';
 import { fieldLabel } from '../../core/field-labels';
 import { canonicalRecord } from './canonical-record';
 import { KIND_WORDS, type FleetKind } from './fleet-format';
@@ -33,33 +34,16 @@ export const SUSPECT_FACTOR = 100;
 export const LIKELY_CAUSE =
   'a spreadsheet set to a locale that uses the comma as the decimal mark reads 0.008 as 8 and 1.5 as 15 (the point groups thousands there), or a unit slip (mΩ for Ω, g for kg)';
 
-/**
- * Ranges wide enough for every electric RC part from micro to large scale, in the file's
- * units: outside them a value is far more likely a slip than a part. From common practice,
- * from memory: pack cells measure 0.2–50 mΩ, motor windings 1 mΩ to a few Ω, controllers
- * under 50 mΩ.
- */
-const PLAUSIBLE: Readonly<Partial<Record<FleetKind, Readonly<Record<string, readonly [number, number]>>>>> = {
-  batteries: { capacityMah: [20, 100_000], cRatingContinuous: [0.5, 300], cRatingBurst: [0.5, 600], cellResistanceOhm: [0.0001, 0.1], massKg: [0.003, 30] },
-  motors: { kv: [20, 100_000], resistanceOhm: [0.0003, 5], noLoadCurrentA: [0.01, 30], maxCurrentA: [0.5, 2000], maxPowerW: [1, 100_000], maxVoltageV: [1, 400], maxRpm: [500, 300_000], massKg: [0.001, 30] },
-  controllers: { maxVoltageV: [2, 400], continuousCurrentA: [0.5, 2000], burstCurrentA: [0.5, 5000], resistanceOhm: [0, 0.05], massKg: [0.001, 10] },
-  propellers: { diameterMm: [10, 3000], pitchMm: [5, 3000], thrustCoefficient: [0.005, 1], powerCoefficient: [0.002, 1] },
-  vehicles: { massKg: [0.01, 500], dragAreaM2: [0.0001, 5], rollingCoefficient: [0, 0.5], tractionCoefficient: [0.05, 3] },
-  builds: { measuredPeakCurrentA: [0.1, 5000], measuredAverageCurrentA: [0.1, 5000], 'gearing.tireDiameterMm': [10, 1000] },
-};
+/** The engine's name for one record of each kind: the prefix of its field paths. */
+const SINGULAR: Readonly<Record<FleetKind, string>> = { ...FIELD_PREFIXES, classRules: 'classRule' };
 
-const SINGULAR: Readonly<Record<FleetKind, string>> = {
-  batteries: 'battery',
-  motors: 'motor',
-  controllers: 'controller',
-  propellers: 'propeller',
-  vehicles: 'vehicle',
-  classRules: 'classRule',
-  builds: 'build',
-};
+/** The field's path as the catalogues and the engine name it: `motor.kv`, `gearing.pinionTeeth`. */
+function pathOf(kind: FleetKind, field: string): string {
+  return field.startsWith('gearing.') ? field : `${SINGULAR[kind]}.${field}`;
+}
 
 function labelOf(kind: FleetKind, field: string): string {
-  const key = field.startsWith('gearing.') ? field : `${SINGULAR[kind]}.${field}`;
+  const key = pathOf(kind, field);
   const label = fieldLabel(key);
   return label === key ? field : `${label} (${field})`;
 }
@@ -87,7 +71,9 @@ export function suspectReason(kind: FleetKind, field: string, before: unknown, a
     const factor = Math.max(Math.abs(after / before), Math.abs(before / after));
     if (factor >= SUSPECT_FACTOR * (1 - 1e-9)) return `${after > before ? 'grows' : 'shrinks'} by a factor of ${Number(factor.toPrecision(3))}`;
   }
-  const range = PLAUSIBLE[kind]?.[field];
+  // Ranges wide enough for every electric RC part from micro to large scale, in the file's
+  // units (each field's `typical` in its catalogue): outside them a value is far more likely a slip than a part.
+  const range = fieldAt(pathOf(kind, field))?.typical;
   if (range && (after < range[0] || after > range[1])) {
     const inside = typeof before !== 'number' || (before >= range[0] && before <= range[1]);
     if (inside) return `is outside the range such a part plausibly has (${range[0]} to ${range[1]})`;

@@ -4,6 +4,7 @@
 // out (it is then derived from the build's id, so re-reading a file gives the same ids).
 
 import * as v from 'valibot';
+import { GEARING_FIELDS } from '../../core/catalogue/build-fields';
 import { buildCreateSchema } from '../schemas/build-schemas';
 import { count, newId, nullable, record } from '../schemas/field-builders';
 import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from '../schemas/part-schemas';
@@ -43,7 +44,7 @@ export const FIELD_ORDER: Readonly<Record<FleetKind, readonly string[]>> = {
   builds: Object.keys(fleetRecordSchemas.builds.entries),
 };
 
-export const GEARING_ORDER: readonly string[] = ['pinionTeeth', 'spurTeeth', 'internalRatio', 'tireDiameterMm', 'drivetrainEfficiency'];
+export const GEARING_ORDER: readonly string[] = Object.keys(GEARING_FIELDS);
 export const SUPPLY_ORDER: readonly string[] = ['id', 'arrangement', 'batteryIds'];
 
 /**

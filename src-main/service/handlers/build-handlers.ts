@@ -214,7 +214,7 @@ async function writeBuildPatch(
           action,
           entityKind: 'builds',
           entityId: input.id,
-          summary: `${action === 'archive' ? 'Archived' : 'Changed'} build "${after.name}": ${describeChange(before as unknown as Record<string, unknown>, after as unknown as Record<string, unknown>)}`,
+          summary: `${action === 'archive' ? 'Archived' : 'Changed'} build "${after.name}": ${describeChange(before, after)}`,
           reason: input.reason,
           before,
           after,

@@ -20,9 +20,9 @@ const idInput = record({ id: id() });
 const listInput = v.optional(record({ includeArchived: v.optional(flag(), false) }), {});
 export const reasonField = () => v.optional(text(500), '');
 
-function affectedBuilds(table: PartTableName, record: Record<string, unknown>): BuildSelector {
+function affectedBuilds(table: PartTableName, record: { id: string; className?: string }): BuildSelector {
   if (table === 'classRules') return { by: 'class', className: String(record.className) };
-  return { by: 'part', kind: table, id: String(record.id) };
+  return { by: 'part', kind: table, id: record.id };
 }
 
 export async function requirePart<T extends PartTableName>(db: DbHandle, table: T, partId: string, field = 'id'): Promise<PartRecords[T]> {
@@ -55,7 +55,7 @@ export function createHandler<T extends PartTableName, S extends v.GenericSchema
       if (await getPart(trx, table, newId)) throw new ServiceError('conflict', `id: a ${RECORD_LABELS[table]} with id "${newId}" already exists`, 'id');
       const stored = await insertPart(trx, table, newId, fields as unknown as PartFields<T>, at);
       // A new pack or motor is used by no build yet; a new class rule applies to its class at once.
-      const recheck: BuildSelector = table === 'classRules' ? affectedBuilds(table, stored as unknown as Record<string, unknown>) : { by: 'ids', ids: [] };
+      const recheck: BuildSelector = table === 'classRules' ? affectedBuilds(table, stored) : { by: 'ids', ids: [] };
       return {
         result: stored,
         history: { action: 'create', entityKind: table, entityId: newId, summary: `Added ${RECORD_LABELS[table]} "${recordName(stored)}"`, reason: '', before: null, after: stored },
@@ -83,8 +83,8 @@ export async function writePartPatch<T extends PartTableName>(
       const written = await updatePartAtVersion(trx, table, input.id, input.expectedVersion, input.changes as Partial<PartFields<T>>, at);
       if (written === 0) throw conflict(table, before, input.expectedVersion);
       const after = await requirePart(trx, table, input.id);
-      const beforeRecord = before as unknown as Record<string, unknown>;
-      const afterRecord = after as unknown as Record<string, unknown>;
+      const beforeRecord: { id: string; className?: string } = before;
+      const afterRecord: { id: string; className?: string } = after;
       // A class rule moved to another class re-checks both classes' builds.
       const recheck: BuildSelector =
         table === 'classRules' && beforeRecord.className !== afterRecord.className

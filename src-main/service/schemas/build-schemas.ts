@@ -1,14 +1,10 @@
 import * as v from 'valibot';
 import { ARRANGEMENTS } from '../../core/domain';
-import { count, id, name, newId, notes, nullable, number, oneOf, plausible, positive, record } from './field-builders';
+import { BUILD_FIELDS, GEARING_FIELDS } from '../../core/catalogue/build-fields';
+import { createEntries, fieldEntries, groupSchema } from './catalogue-schemas';
+import { id, newId, oneOf, record } from './field-builders';
 
-export const gearingSchema = record({
-  pinionTeeth: v.optional(nullable(count(5, 200)), null),
-  spurTeeth: v.optional(nullable(count(5, 500)), null),
-  internalRatio: v.optional(positive(1000), 1),
-  tireDiameterMm: v.optional(nullable(positive(5000)), null),
-  drivetrainEfficiency: v.optional(plausible('gearing.drivetrainEfficiency'), 0.9),
-});
+export const gearingSchema = groupSchema(GEARING_FIELDS);
 
 export const supplySchema = record({
   id: v.optional(id()),
@@ -18,40 +14,9 @@ export const supplySchema = record({
 
 const supplies = () => v.pipe(v.array(supplySchema, 'must be a list of supplies'), v.maxLength(8, 'may hold at most 8 supplies'));
 
-const buildEntries = {
-  name: name(),
-  vehicleId: id(),
-  motorId: nullable(id()),
-  motorCount: count(1, 16),
-  controllerId: nullable(id()),
-  propellerId: nullable(id()),
-  gearing: gearingSchema,
-  supplies: supplies(),
-  measuredPeakCurrentA: nullable(positive(20_000)),
-  measuredAverageCurrentA: nullable(positive(20_000)),
-  measuredSupplyId: nullable(id()),
-  runLengthS: nullable(plausible('build.runLengthS')),
-  tightThreshold: nullable(number({ min: 0, max: 0.9 })),
-  notes: notes(),
-};
+const given = { gearing: gearingSchema, supplies: supplies() };
 
-export const buildCreateSchema = record({
-  id: v.optional(newId()),
-  name: buildEntries.name,
-  vehicleId: buildEntries.vehicleId,
-  motorId: v.optional(buildEntries.motorId, null),
-  motorCount: v.optional(buildEntries.motorCount, 1),
-  controllerId: v.optional(buildEntries.controllerId, null),
-  propellerId: v.optional(buildEntries.propellerId, null),
-  gearing: v.optional(gearingSchema, {}),
-  supplies: v.optional(buildEntries.supplies, []),
-  measuredPeakCurrentA: v.optional(buildEntries.measuredPeakCurrentA, null),
-  measuredAverageCurrentA: v.optional(buildEntries.measuredAverageCurrentA, null),
-  measuredSupplyId: v.optional(buildEntries.measuredSupplyId, null),
-  runLengthS: v.optional(buildEntries.runLengthS, null),
-  tightThreshold: v.optional(buildEntries.tightThreshold, null),
-  notes: v.optional(buildEntries.notes, ''),
-});
+export const buildCreateSchema = record({ id: v.optional(newId()), ...createEntries(BUILD_FIELDS, given) });
 
 /** A patch replaces gearing and supplies whole: they are small and edited as a unit. */
-export const buildPatchSchema = v.partial(record(buildEntries));
+export const buildPatchSchema = v.partial(record(fieldEntries(BUILD_FIELDS, given)));

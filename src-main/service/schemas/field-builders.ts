@@ -1,5 +1,5 @@
 import * as v from 'valibot';
-import { PLAUSIBLE, plausibleMessage, type PlausibleField, type PlausibleRange } from '../../core/plausibility';
+import { plausibleRange, rangeMessage, type PlausibleField, type PlausibleRange } from '../../core/plausibility';
 
 // Small builders so that every field's message reads the same way. The field's name is
 // added in front of the message where the issue is turned into an ApiError.
@@ -75,8 +75,12 @@ export function nullable<S extends v.GenericSchema>(schema: S) {
  * says what was expected (the same bounds the engine applies to stored values).
  */
 export function plausible(field: PlausibleField) {
-  const message = plausibleMessage(field);
-  const r: PlausibleRange = PLAUSIBLE[field];
+  return plausibleNumber(plausibleRange(field));
+}
+
+/** A number inside a plausible range, refused with the range's one message. */
+export function plausibleNumber(r: PlausibleRange) {
+  const message = rangeMessage(r);
   // Bounds as value actions (not a free-form check), so the published JSON Schema carries them too;
   // they are exactly the core's isPlausible (finite, above, min, max).
   const checks: v.PipeItem<number, number, v.BaseIssue<unknown>>[] = [v.finite(message)];

@@ -1,10 +1,16 @@
 import * as v from 'valibot';
-import { CHEMISTRIES, DRIVE_LAYOUTS, VEHICLE_KINDS, WATER_TYPES } from '../../core/domain';
-import { count, flag, id, name, newId, notes, nullable, number, oneOf, plausible, positive, record, text } from './field-builders';
+import { BATTERY_FIELDS } from '../../core/catalogue/battery-fields';
+import { CONTROLLER_FIELDS } from '../../core/catalogue/controller-fields';
+import type { FieldCatalogue } from '../../core/catalogue/field-spec';
+import { MOTOR_FIELDS } from '../../core/catalogue/motor-fields';
+import { PROPELLER_FIELDS } from '../../core/catalogue/propeller-fields';
+import { VEHICLE_FIELDS } from '../../core/catalogue/vehicle-fields';
+import { createEntries, fieldEntries } from './catalogue-schemas';
+import { id, name, newId, notes, nullable, number, record, text } from './field-builders';
 
-// Each part kind lists its fields once; the create schema fills defaults and the patch
-// schema makes every field optional. Limits are generous bounds against typing slips, not
-// engineering limits: the rules engine judges the figures.
+// Each kind's create schema fills its fallbacks and its patch schema makes every field
+// optional. Limits are generous bounds against typing slips, not engineering limits: the
+// rules engine judges the figures.
 
 function schemasFor<const E extends v.ObjectEntries, const D extends { [K in keyof E]?: v.InferOutput<E[K]> }>(entries: E, defaults: D) {
   const createEntries = Object.fromEntries(
@@ -15,98 +21,18 @@ function schemasFor<const E extends v.ObjectEntries, const D extends { [K in key
   return { create, patch };
 }
 
-export const batterySchemas = schemasFor(
-  {
-    name: name(),
-    chemistry: oneOf(CHEMISTRIES),
-    cellsSeries: count(1, 30),
-    cellsParallel: count(1, 20),
-    capacityMah: positive(1_000_000),
-    cRatingContinuous: nullable(positive(1000)),
-    cRatingBurst: nullable(positive(2000)),
-    cellResistanceOhm: nullable(plausible('battery.cellResistanceOhm')),
-    massKg: nullable(positive(1000)),
-    cycleCount: count(0, 100_000),
-    retired: flag(),
-    notes: notes(),
-  },
-  { cellsParallel: 1, cRatingContinuous: null, cRatingBurst: null, cellResistanceOhm: null, massKg: null, cycleCount: 0, retired: false, notes: '' },
-);
+/** The create and patch schemas of a kind, read from its field catalogue. */
+function catalogueSchemas<const C extends FieldCatalogue>(catalogue: C) {
+  return { create: record({ id: v.optional(newId()), ...createEntries(catalogue, {}) }), patch: v.partial(record(fieldEntries(catalogue, {}))) };
+}
 
-export const motorSchemas = schemasFor(
-  {
-    name: name(),
-    kv: plausible('motor.kv'),
-    resistanceOhm: nullable(plausible('motor.resistanceOhm')),
-    noLoadCurrentA: nullable(number({ min: 0, max: 1000 })),
-    maxCurrentA: nullable(positive(10_000)),
-    maxPowerW: nullable(positive(1_000_000)),
-    maxVoltageV: nullable(positive(2000)),
-    maxRpm: nullable(positive(1_000_000)),
-    poles: nullable(count(2, 100)),
-    massKg: nullable(positive(1000)),
-    notes: notes(),
-  },
-  { resistanceOhm: null, noLoadCurrentA: null, maxCurrentA: null, maxPowerW: null, maxVoltageV: null, maxRpm: null, poles: null, massKg: null, notes: '' },
-);
+export const batterySchemas = catalogueSchemas(BATTERY_FIELDS);
+export const motorSchemas = catalogueSchemas(MOTOR_FIELDS);
+export const controllerSchemas = catalogueSchemas(CONTROLLER_FIELDS);
+export const propellerSchemas = catalogueSchemas(PROPELLER_FIELDS);
+export const vehicleSchemas = catalogueSchemas(VEHICLE_FIELDS);
 
-export const controllerSchemas = schemasFor(
-  {
-    name: name(),
-    maxVoltageV: nullable(positive(2000)),
-    maxCells: nullable(count(1, 100)),
-    continuousCurrentA: nullable(positive(10_000)),
-    burstCurrentA: nullable(positive(20_000)),
-    resistanceOhm: nullable(number({ min: 0, max: 10 })),
-    massKg: nullable(positive(1000)),
-    notes: notes(),
-  },
-  { maxVoltageV: null, maxCells: null, continuousCurrentA: null, burstCurrentA: null, resistanceOhm: null, massKg: null, notes: '' },
-);
-
-export const propellerSchemas = schemasFor(
-  {
-    name: name(),
-    diameterMm: positive(10_000),
-    pitchMm: nullable(positive(10_000)),
-    blades: count(1, 12),
-    thrustCoefficient: nullable(positive(10)),
-    powerCoefficient: nullable(positive(10)),
-    maxRpm: nullable(plausible('propeller.maxRpm')),
-    notes: notes(),
-  },
-  { pitchMm: null, blades: 2, thrustCoefficient: null, powerCoefficient: null, maxRpm: null, notes: '' },
-);
-
-export const vehicleSchemas = schemasFor(
-  {
-    name: name(),
-    kind: oneOf(VEHICLE_KINDS),
-    massKg: nullable(positive(10_000)),
-    dragAreaM2: nullable(positive(100)),
-    rollingCoefficient: nullable(number({ min: 0, max: 1 })),
-    tractionCoefficient: nullable(positive(5)),
-    driveLayout: nullable(oneOf(DRIVE_LAYOUTS)),
-    drivenWeightShare: nullable(plausible('vehicle.drivenWeightShare')),
-    water: nullable(oneOf(WATER_TYPES)),
-    owner: text(120),
-    className: text(80),
-    notes: notes(),
-  },
-  {
-    massKg: null,
-    dragAreaM2: null,
-    rollingCoefficient: null,
-    tractionCoefficient: null,
-    driveLayout: null,
-    drivenWeightShare: null,
-    water: null,
-    owner: '',
-    className: '',
-    notes: '',
-  },
-);
-
+// Class rules are a shop's own limits, not a part a user reads off a label; their fields are listed here.
 export const classRuleSchemas = schemasFor(
   {
     className: name(),

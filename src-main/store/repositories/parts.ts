@@ -53,7 +53,7 @@ export async function insertPart<T extends PartTableName>(
   fields: PartFields<T>,
   now: string,
 ): Promise<PartRecords[T]> {
-  const values = { ...fieldsToColumns(table, fields as Record<string, unknown>), id, version: 1, archivedAt: null, createdAt: now, updatedAt: now };
+  const values = { ...fieldsToColumns(table, fields), id, version: 1, archivedAt: null, createdAt: now, updatedAt: now };
   await db
     .insertInto(table as AnyTable)
     .values(values as never)
@@ -77,7 +77,7 @@ export async function updatePartAtVersion<T extends PartTableName>(
 ): Promise<number> {
   const result = await db
     .updateTable(table as AnyTable)
-    .set({ ...fieldsToColumns(table, patch as Record<string, unknown>), updatedAt: now } as never)
+    .set({ ...fieldsToColumns(table, patch), updatedAt: now } as never)
     .set((eb) => ({ version: eb('version', '+', 1) }))
     .where('id', '=', id)
     .where('version', '=', expectedVersion)

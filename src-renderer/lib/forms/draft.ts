@@ -41,9 +41,14 @@ export function toDraftValue(def: FieldDef, value: unknown, system: UnitSystem):
   }
 }
 
-export function toDraft(fields: readonly FieldDef[], record: Record<string, unknown> | null, system: UnitSystem, defaults: Record<string, unknown> = {}): Draft {
+/** A record's field by its form key: records are plain objects of their catalogue's fields. */
+export function recordValue(record: object, key: string): unknown {
+  return Object.getOwnPropertyDescriptor(record, key)?.value;
+}
+
+export function toDraft(fields: readonly FieldDef[], record: object | null, system: UnitSystem, defaults: Record<string, unknown> = {}): Draft {
   const draft: Draft = {};
-  for (const f of fields) draft[f.key] = toDraftValue(f, record ? record[f.key] : defaults[f.key], system);
+  for (const f of fields) draft[f.key] = toDraftValue(f, record ? recordValue(record, f.key) : defaults[f.key], system);
   return draft;
 }
 

@@ -1,9 +1,17 @@
-import { CHEMISTRIES, DRIVE_LAYOUTS, VEHICLE_KINDS, WATER_TYPES } from '../../../src-main/core/domain';
+import { BATTERY_FIELDS } from '../../../src-main/core/catalogue/battery-fields';
+import { CONTROLLER_FIELDS } from '../../../src-main/core/catalogue/controller-fields';
+import type { FieldCatalogue } from '../../../src-main/core/catalogue/field-spec';
+import { MOTOR_FIELDS } from '../../../src-main/core/catalogue/motor-fields';
+import { PROPELLER_FIELDS } from '../../../src-main/core/catalogue/propeller-fields';
+import { FIELD_CATALOGUES } from '../../../src-main/core/catalogue/record-kinds';
+import { VEHICLE_FIELDS } from '../../../src-main/core/catalogue/vehicle-fields';
 import type { DisplayQuantity } from '../../../src-main/core/units';
+import { formField } from '../forms/catalogue-field';
 import type { PartTable } from './part-kinds';
 
-// The form fields of each record kind, in the order a technician reads a spec sheet. Every
-// number field names its unit; quantities with a metric/imperial pair follow the settings.
+// The form fields of each record kind, read from the core's field catalogues, in the order a
+// technician reads a spec sheet. Every number field names its unit; quantities with a
+// metric/imperial pair follow the settings.
 
 export type FieldType = 'text' | 'number' | 'integer' | 'select' | 'flag' | 'notes';
 
@@ -40,96 +48,60 @@ export const KIND_LABELS: Readonly<Record<string, string>> = { car: 'Car', truck
 export const DRIVE_LAYOUT_LABELS: Readonly<Record<string, string>> = { '': 'not recorded (taken as 4WD)', '4wd': '4WD (all wheels driven)', '2wd': '2WD (one axle driven)' };
 export const WATER_LABELS: Readonly<Record<string, string>> = { '': 'not recorded (taken as sea water)', fresh: 'Fresh water', sea: 'Sea water' };
 
-const NAME: FieldDef = { key: 'name', label: 'Name', type: 'text', column: true };
-// Packs, motors and controllers are weighed in grams or ounces, vehicles in kilograms or pounds.
-const MASS: FieldDef = { key: 'massKg', label: 'Mass', type: 'number', quantity: 'massSmallKg', inputDecimals: 1, nullable: true };
-const VEHICLE_MASS: FieldDef = { key: 'massKg', label: 'Mass', type: 'number', quantity: 'massKg', nullable: true };
-const NOTES: FieldDef = { key: 'notes', label: 'Notes', type: 'notes' };
+/** What the parts table shows of each kind, besides every field on the form. */
+const COLUMNS: Readonly<Record<PartTable, readonly string[]>> = {
+  batteries: ['name', 'chemistry', 'cellsSeries', 'capacityMah', 'cRatingContinuous', 'cRatingBurst', 'cycleCount'],
+  motors: ['name', 'kv', 'resistanceOhm', 'noLoadCurrentA', 'maxCurrentA', 'maxPowerW'],
+  controllers: ['name', 'maxVoltageV', 'maxCells', 'continuousCurrentA', 'burstCurrentA'],
+  propellers: ['name', 'diameterMm', 'pitchMm', 'blades', 'thrustCoefficient', 'powerCoefficient'],
+  vehicles: ['name', 'kind', 'owner', 'className', 'massKg'],
+};
+
+const OPTION_LABELS: Readonly<Record<string, Readonly<Record<string, string>>>> = {
+  chemistry: CHEMISTRY_LABELS,
+  kind: KIND_LABELS,
+  driveLayout: DRIVE_LAYOUT_LABELS,
+  water: WATER_LABELS,
+};
+
+/**
+ * A vehicle's form reads who and what before the physics; the file keeps the catalogue's order.
+ * Every field has its place: one missing here (or one too many) does not compile.
+ */
+const VEHICLE_FORM_PLACES = {
+  name: 1,
+  kind: 2,
+  owner: 3,
+  className: 4,
+  massKg: 5,
+  dragAreaM2: 6,
+  rollingCoefficient: 7,
+  tractionCoefficient: 8,
+  driveLayout: 9,
+  drivenWeightShare: 10,
+  water: 11,
+  notes: 12,
+} as const satisfies Record<keyof typeof VEHICLE_FIELDS, number>;
+
+const VEHICLE_FORM_ORDER = Object.entries(VEHICLE_FORM_PLACES)
+  .sort(([, a], [, b]) => a - b)
+  .map(([key]) => key);
+
+function formFields(table: PartTable, order: readonly string[]): FieldDef[] {
+  const catalogue: FieldCatalogue = FIELD_CATALOGUES[table];
+  return order.flatMap((key) => {
+    const spec = catalogue[key];
+    const optionLabels = OPTION_LABELS[key];
+    return spec ? [formField(key, spec, { ...(optionLabels ? { optionLabels } : {}), ...(COLUMNS[table].includes(key) ? { column: true } : {}) })] : [];
+  });
+}
 
 export const PART_FIELDS: Readonly<Record<PartTable, readonly FieldDef[]>> = {
-  batteries: [
-    NAME,
-    { key: 'chemistry', label: 'Chemistry', type: 'select', options: CHEMISTRIES, optionLabels: CHEMISTRY_LABELS, column: true },
-    { key: 'cellsSeries', label: 'Cells in series', unit: 'S', type: 'integer', column: true },
-    { key: 'cellsParallel', label: 'Cells in parallel', unit: 'P', type: 'integer' },
-    { key: 'capacityMah', label: 'Capacity', unit: 'mAh', type: 'number', column: true },
-    { key: 'cRatingContinuous', label: 'Continuous C rating', unit: 'C', type: 'number', nullable: true, column: true, hint: 'as printed by the maker' },
-    { key: 'cRatingBurst', label: 'Burst C rating', unit: 'C', type: 'number', nullable: true, column: true },
-    { key: 'cellResistanceOhm', label: 'Cell resistance, measured', unit: 'mΩ', scale: 1000, type: 'number', nullable: true, hint: 'per cell; leave empty if never measured' },
-    MASS,
-    { key: 'cycleCount', label: 'Cycles', unit: 'count', type: 'integer', column: true },
-    { key: 'retired', label: 'Retired (no longer used in new builds)', type: 'flag' },
-    NOTES,
-  ],
-  motors: [
-    NAME,
-    { key: 'kv', label: 'Kv', unit: 'rpm/V', type: 'number', column: true, hint: 'rpm per volt, no-load' },
-    { key: 'resistanceOhm', label: 'Winding resistance', unit: 'mΩ', scale: 1000, type: 'number', nullable: true, column: true, hint: 'phase to phase' },
-    { key: 'noLoadCurrentA', label: 'No-load current', unit: 'A', type: 'number', nullable: true, column: true },
-    { key: 'maxCurrentA', label: 'Rated current', unit: 'A', type: 'number', nullable: true, column: true },
-    { key: 'maxPowerW', label: 'Rated power', unit: 'W', type: 'number', nullable: true, column: true },
-    { key: 'maxVoltageV', label: 'Rated voltage', unit: 'V', type: 'number', nullable: true },
-    { key: 'maxRpm', label: 'Rated speed', unit: 'rpm', type: 'number', nullable: true },
-    { key: 'poles', label: 'Poles', unit: 'count', type: 'integer', nullable: true },
-    MASS,
-    NOTES,
-  ],
-  controllers: [
-    NAME,
-    { key: 'maxVoltageV', label: 'Maximum input voltage', unit: 'V', type: 'number', nullable: true, column: true },
-    { key: 'maxCells', label: 'Maximum cells', unit: 'S', type: 'integer', nullable: true, column: true, hint: 'used at 4.2 V per cell when no voltage is given' },
-    { key: 'continuousCurrentA', label: 'Continuous current', unit: 'A', type: 'number', nullable: true, column: true },
-    { key: 'burstCurrentA', label: 'Burst current', unit: 'A', type: 'number', nullable: true, column: true },
-    { key: 'resistanceOhm', label: 'Own resistance', unit: 'mΩ', scale: 1000, type: 'number', nullable: true },
-    MASS,
-    NOTES,
-  ],
-  propellers: [
-    NAME,
-    { key: 'diameterMm', label: 'Diameter', quantity: 'lengthMm', type: 'number', column: true },
-    { key: 'pitchMm', label: 'Pitch', quantity: 'lengthMm', type: 'number', nullable: true, column: true },
-    { key: 'blades', label: 'Blades', unit: 'count', type: 'integer', column: true },
-    { key: 'thrustCoefficient', label: 'Thrust coefficient C_T', unit: 'no unit', type: 'number', nullable: true, column: true, hint: 'T = C_T·ρ·n²·D⁴ (n in rev/s). Static values of small 2-blade propellers are typically 0.08–0.15 (from memory); take it from the maker\'s data or published propeller test tables.' },
-    { key: 'powerCoefficient', label: 'Power coefficient C_P', unit: 'no unit', type: 'number', nullable: true, column: true, hint: 'P = C_P·ρ·n³·D⁵ (n in rev/s). Static values are typically 0.03–0.08, higher for high-pitch propellers (from memory); from the same tables as C_T.' },
-    { key: 'maxRpm', label: 'Propeller rpm limit', unit: 'rpm', type: 'number', nullable: true, hint: "the maker's limit, often printed as a constant ÷ diameter; leave empty if none" },
-    NOTES,
-  ],
-  vehicles: [
-    NAME,
-    { key: 'kind', label: 'Kind', type: 'select', options: VEHICLE_KINDS, optionLabels: KIND_LABELS, column: true },
-    { key: 'owner', label: 'Owner', type: 'text', column: true },
-    { key: 'className', label: 'Class', type: 'text', column: true },
-    { ...VEHICLE_MASS, column: true },
-    {
-      key: 'dragAreaM2',
-      label: 'Drag area Cd·A',
-      quantity: 'areaM2',
-      inputDecimals: 4,
-      type: 'number',
-      nullable: true,
-      hint: 'Drag coefficient × frontal area. A 1/10 car or truck is about 0.02–0.06 m² (0.2–0.65 ft²): Cd near 0.8–1.0 for a boxy body times its frontal area (from memory).',
-    },
-    {
-      key: 'rollingCoefficient',
-      label: 'Rolling coefficient C_rr',
-      unit: 'no unit',
-      type: 'number',
-      nullable: true,
-      hint: 'Rolling resistance ÷ weight. About 0.02–0.04 for rubber tyres on pavement or carpet, 0.05–0.1 on dirt or grass (from memory).',
-    },
-    {
-      key: 'tractionCoefficient',
-      label: 'Traction coefficient μ',
-      unit: 'no unit',
-      type: 'number',
-      nullable: true,
-      hint: 'Grip: the most drive force ÷ weight before the tyres spin. About 0.7–1.0 on pavement or carpet, 0.4–0.7 on loose dirt (from memory). It sets the launch current, so round up.',
-    },
-    { key: 'driveLayout', label: 'Drive', type: 'select', options: ['', ...DRIVE_LAYOUTS], optionLabels: DRIVE_LAYOUT_LABELS, nullable: true, hint: 'cars and trucks' },
-    { key: 'drivenWeightShare', label: 'Weight on driven wheels', unit: '%', scale: 100, percent: true, type: 'number', nullable: true, emptyText: '4WD 100 %, 2WD 70 %', hint: 'share of the weight on the driven wheels' },
-    { key: 'water', label: 'Water', type: 'select', options: ['', ...WATER_TYPES], optionLabels: WATER_LABELS, nullable: true, hint: 'boats: sea water (1025 kg/m³) loads a propeller more than fresh' },
-    NOTES,
-  ],
+  batteries: formFields('batteries', Object.keys(BATTERY_FIELDS)),
+  motors: formFields('motors', Object.keys(MOTOR_FIELDS)),
+  controllers: formFields('controllers', Object.keys(CONTROLLER_FIELDS)),
+  propellers: formFields('propellers', Object.keys(PROPELLER_FIELDS)),
+  vehicles: formFields('vehicles', VEHICLE_FORM_ORDER),
 };
 
 export function fieldOf(table: PartTable, key: string): FieldDef | undefined {

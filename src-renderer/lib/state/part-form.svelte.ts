@@ -50,7 +50,7 @@ export class PartFormState {
 
   private reset(record: PartRecord | null): void {
     this.record = record;
-    this.base = toDraft(this.fields, record as Record<string, unknown> | null, this.units, NEW_DEFAULTS[this.table]);
+    this.base = toDraft(this.fields, record, this.units, NEW_DEFAULTS[this.table]);
     this.draft = { ...this.base };
     this.errors = {};
     this.formError = null;
@@ -140,7 +140,7 @@ export class PartFormState {
   async rebase(): Promise<void> {
     if (this.record === null) return;
     const latest = await partApi.get(this.client, this.table, this.record.id);
-    const fresh = toDraft(this.fields, latest as unknown as Record<string, unknown>, this.units, NEW_DEFAULTS[this.table]);
+    const fresh = toDraft(this.fields, latest, this.units, NEW_DEFAULTS[this.table]);
     const merged: Draft = { ...fresh };
     for (const key of Object.keys(this.draft)) if (this.draft[key] !== this.base[key]) merged[key] = this.draft[key]!;
     this.record = latest;

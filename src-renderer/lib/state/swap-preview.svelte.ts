@@ -3,7 +3,7 @@ import type { BuildVerdict, Gearing } from '../../../src-main/core/domain';
 import type { UnitSystem } from '../../../src-main/core/units';
 import { asApiError, type Client } from '../api/client';
 import type { BuildSheet } from './build-sheet.svelte';
-import { fromDraftValue, toDraftValue, errorFieldKey, messageForField, fieldLabel, problemSummary } from '../forms/draft';
+import { fromDraftValue, recordValue, toDraftValue, errorFieldKey, messageForField, fieldLabel, problemSummary } from '../forms/draft';
 import { draftProblems, type Problems } from '../forms/draft-problems';
 import { gearingSchema } from '../../../src-main/service/schemas/build-schemas';
 import { partSchemasByTable } from '../../../src-main/service/schemas/part-schemas-by-table';
@@ -106,14 +106,11 @@ export class SwapPreviewState {
     return defs.filter((d) => d.type === 'number' || d.type === 'integer');
   }
 
-  private targetRecord(): { table: PartTable; record: { id: string; version: number } & Record<string, unknown> } | null {
+  private targetRecord(): { table: PartTable; record: { id: string; version: number } } | null {
     const [table, id] = this.recordTarget.split(':') as [PartTable, string];
     const s = this.sheet;
     if (!s || !id) return null;
-    const all: ({ id: string; version: number } & Record<string, unknown>)[] = [
-      ...(s.batteries as unknown as ({ id: string; version: number } & Record<string, unknown>)[]),
-      ...([s.motor, s.controller, s.propeller, s.vehicle].filter((x) => x !== null) as unknown as ({ id: string; version: number } & Record<string, unknown>)[]),
-    ];
+    const all: { id: string; version: number }[] = [...s.batteries, ...[s.motor, s.controller, s.propeller, s.vehicle].filter((x) => x !== null)];
     const record = all.find((r) => r.id === id);
     return record ? { table, record } : null;
   }
@@ -123,7 +120,7 @@ export class SwapPreviewState {
     const t = this.targetRecord();
     const def = this.recordFields().find((d) => d.key === this.recordField);
     if (!t || !def) return '';
-    return String(toDraftValue(def, t.record[def.key], this.units));
+    return String(toDraftValue(def, recordValue(t.record, def.key), this.units));
   }
 
   private buildChanges(): Record<string, unknown> | null {

@@ -1,3 +1,4 @@
+import { BATTERY_FIELDS } from '../../../src-main/core/catalogue/battery-fields';
 import type { Battery, Build, Controller, Motor, Propeller, Vehicle } from '../../../src-main/core/domain';
 import { fieldLabel as engineWords } from '../../../src-main/core/field-labels';
 import type { UnitSystem } from '../../../src-main/core/units';
@@ -38,6 +39,9 @@ const PART_OF: Readonly<Record<string, { table: 'vehicles' | 'motors' | 'control
   battery: { table: 'batteries', one: 'pack' },
 };
 
+/** A pack field the catalogue lists, so the pack that lacks it can be found. */
+const isBatteryField = (key: string): key is keyof typeof BATTERY_FIELDS => Object.hasOwn(BATTERY_FIELDS, key);
+
 function routeOf(table: 'vehicles' | 'motors' | 'controllers' | 'propellers' | 'batteries', id: string): Route {
   if (table === 'vehicles') return { name: 'vehicles', id };
   return { name: 'parts', slug: table === 'batteries' ? 'packs' : table, id };
@@ -54,7 +58,7 @@ export function missingInput(path: string, sheet: SheetParts, batteryIds: readon
     let record: { id: string; name: string } | null = null;
     if (head === 'battery') {
       const packs = sheet.batteries.filter((b) => batteryIds.includes(b.id));
-      record = packs.find((b) => (b as unknown as Record<string, unknown>)[key] === null) ?? packs[0] ?? null;
+      record = packs.find((b) => isBatteryField(key) && b[key] === null) ?? packs[0] ?? null;
     } else record = sheet[head as 'vehicle' | 'motor' | 'controller' | 'propeller'];
     if (!record) return plain(`the build's ${part.one}`);
     return {
