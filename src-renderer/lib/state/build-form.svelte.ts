@@ -4,7 +4,8 @@ import type { UnitSystem } from '../../../src-main/core/units';
 import { asApiError, type Client } from '../api/client';
 import { draftChanges, draftToRecord, errorFieldKey, fieldLabel, messageForField, problemSummary, toDraft, type Draft } from '../forms/draft';
 import { draftProblems, type Problems } from '../forms/draft-problems';
-import { buildCreateSchema } from '../../../src-main/service/schemas/build-schemas';
+import { buildCreateSchema, buildPatchSchema } from '../../../src-main/service/schemas/build-schemas';
+import { typedInput } from '../api/typed-input';
 import type { PreviewRequest } from './over-confirm.svelte';
 import { BUILD_FIELD_LIST, GEARING_KEYS, flattenBuild, nestBuild, suppliesEqual, type SupplyDraft } from '../builds/build-fields';
 
@@ -130,12 +131,12 @@ export class BuildFormState {
     try {
       if (this.record === null) {
         const fields = nestBuild(draftToRecord(BUILD_FIELD_LIST, this.draft, this.units));
-        const payload = { ...fields, supplies: this.suppliesInput() };
+        const payload = typedInput(buildCreateSchema, { ...fields, supplies: this.suppliesInput() });
         if (this.confirmWrite && !(await this.confirmWrite({ create: payload }))) {
           this.notice = 'Not saved: nothing was written.';
           return null;
         }
-        const result = (await this.client.callUntyped('builds.create', payload)) as { record: Build; verdict: BuildVerdict | null };
+        const result = await this.client.call('builds.create', payload);
         this.reset(result.record);
         return result;
       }
@@ -150,15 +151,12 @@ export class BuildFormState {
         this.notice = 'Nothing changed.';
         return { record: this.record, verdict: null };
       }
-      const update = { id: this.record.id, expectedVersion: this.record.version, changes, reason: this.reason.trim() };
+      const update = { id: this.record.id, expectedVersion: this.record.version, changes: typedInput(buildPatchSchema, changes, 'changes.'), reason: this.reason.trim() };
       if (this.confirmWrite && !(await this.confirmWrite({ build: update }))) {
         this.notice = 'Not saved: nothing was written.';
         return null;
       }
-      const result = (await this.client.callUntyped('builds.update', update)) as {
-        record: Build;
-        verdict: BuildVerdict | null;
-      };
+      const result = await this.client.call('builds.update', update);
       this.reason = '';
       this.reset(result.record);
       return result;

@@ -122,8 +122,8 @@ export class BuildSheetState {
     }
     this.printing = true;
     try {
-      const result = (await this.client.callUntyped('desktop.printToPdf', { suggestedName })) as { saved?: boolean; path?: string } | null;
-      if (result?.saved && result.path) this.printMessage = `Saved ${result.path}`;
+      const result = await this.client.call('desktop.printToPdf', { suggestedName });
+      if (result.saved && result.path) this.printMessage = `Saved ${result.path}`;
     } catch (error) {
       this.printMessage = asApiError(error).message;
     } finally {

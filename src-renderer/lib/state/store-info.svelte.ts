@@ -32,7 +32,7 @@ export class StoreInfoState {
     this.demoBusy = true;
     this.demoMessage = null;
     try {
-      await this.client.callUntyped('demo.load', {});
+      await this.client.call('demo.load', {});
       await this.load();
       return true;
     } catch (error) {

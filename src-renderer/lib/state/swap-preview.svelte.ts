@@ -5,7 +5,9 @@ import { asApiError, type Client } from '../api/client';
 import type { BuildSheet } from './build-sheet.svelte';
 import { fromDraftValue, toDraftValue, errorFieldKey, messageForField, fieldLabel, problemSummary } from '../forms/draft';
 import { draftProblems, type Problems } from '../forms/draft-problems';
-import { gearingSchema } from '../../../src-main/service/schemas/build-schemas';
+import type { ApiInput } from '../../../src-main/service/handlers';
+import { typedInput } from '../api/typed-input';
+import { buildPatchSchema, gearingSchema } from '../../../src-main/service/schemas/build-schemas';
 import { partSchemasByTable } from '../../../src-main/service/schemas/part-schemas-by-table';
 import { BUILD_FIELDS, GEARING_KEYS } from '../builds/build-fields';
 import { PART_FIELDS, type FieldDef } from '../parts/part-fields';
@@ -148,7 +150,7 @@ export class SwapPreviewState {
   }
 
   /** What the preview or save call takes. */
-  private request(): { build: Record<string, unknown> } | { part: Record<string, unknown> } | null {
+  private request(): { build: ApiInput<'builds.update'> } | { part: { kind: PartTable; id: string; expectedVersion: number; changes: Record<string, unknown>; reason: string } } | null {
     const b = this.sheet?.build;
     if (!b) return null;
     if (this.mode === 'record') {
@@ -158,7 +160,7 @@ export class SwapPreviewState {
       return { part: { kind: t.table, id: t.record.id, expectedVersion: t.record.version, changes: { [def.key]: fromDraftValue(def, this.recordValue, this.units) }, reason: this.reason.trim() } };
     }
     const changes = this.buildChanges();
-    return changes ? { build: { id: b.id, expectedVersion: b.version, changes, reason: this.reason.trim() } } : null;
+    return changes ? { build: { id: b.id, expectedVersion: b.version, changes: typedInput(buildPatchSchema, changes, 'build.changes.'), reason: this.reason.trim() } } : null;
   }
 
   private fail(error: unknown): void {
@@ -189,18 +191,29 @@ export class SwapPreviewState {
     return false;
   }
 
+  /** The request, or undefined when the change was refused before sending (the error says why). */
+  private checkedRequest(): ReturnType<SwapPreviewState['request']> | undefined {
+    try {
+      return this.request();
+    } catch (error) {
+      this.fail(error);
+      return undefined;
+    }
+  }
+
   async preview(): Promise<void> {
     this.error = null;
     this.fieldError = null;
     if (!this.check()) return;
-    const req = this.request();
+    const req = this.checkedRequest();
+    if (req === undefined) return;
     if (!req) {
       this.error = { kind: 'invalid', message: this.mode === 'record' ? 'Pick a part, a field and a new value first.' : 'Pick a replacement first.' };
       return;
     }
     this.busy = true;
     try {
-      this.result = (await this.client.callUntyped('builds.preview', req)) as PreviewResult;
+      this.result = await this.client.call('builds.preview', req);
     } catch (error) {
       this.result = null;
       this.fail(error);
@@ -212,15 +225,15 @@ export class SwapPreviewState {
   /** Writes the change for real, with the reason, through the same operation an edit uses. */
   async save(): Promise<boolean> {
     if (!this.check()) return false;
-    const req = this.request();
+    const req = this.checkedRequest();
     if (!req) return false;
     this.busy = true;
     this.error = null;
     try {
       if ('build' in req) {
-        await this.client.callUntyped('builds.update', req.build);
+        await this.client.call('builds.update', req.build);
       } else {
-        const p = req.part as { kind: PartTable; id: string; expectedVersion: number; changes: Record<string, unknown>; reason: string };
+        const p = req.part;
         await partApi.update(this.client, p.kind, p.id, p.expectedVersion, p.changes, p.reason);
       }
       this.saved = true;
