@@ -11,6 +11,7 @@ import { buildPatchSchema, gearingSchema } from '../../../src-main/service/schem
 import { partSchemasByTable } from '../../../src-main/service/schemas/part-schemas-by-table';
 import { BUILD_FIELDS, GEARING_KEYS } from '../builds/build-fields';
 import { PART_FIELDS, type FieldDef } from '../parts/part-fields';
+import { Loader } from './loader.svelte';
 import { partApi } from '../parts/part-api';
 import type { PartTable } from '../parts/part-kinds';
 
@@ -32,7 +33,14 @@ export const GEARING_DEFS: readonly FieldDef[] = GEARING_KEYS.map((k) => BUILD_F
  * edited. The preview runs the real write and rolls it back; nothing is stored until Save.
  */
 export class SwapPreviewState {
-  sheet = $state.raw<BuildSheet | null>(null);
+  /** The build as read when the screen opened; the what-if is made against that version. */
+  readonly source = new Loader<BuildSheet>(
+    () => this.client.call('builds.get', { id: this.id }),
+    (sheet) => {
+      this.slot = sheet.build.supplies.length > 0 ? 'pack:0:0' : 'motorId';
+    },
+  );
+  sheet = $derived(this.source.value);
   mode = $state<SwapMode>('part');
   slot = $state<Slot>('motorId');
   replacementId = $state('');
@@ -56,14 +64,8 @@ export class SwapPreviewState {
   ) {}
 
   async load(): Promise<void> {
-    try {
-      const sheet = await this.client.call('builds.get', { id: this.id });
-      this.sheet = sheet;
-      this.resetGearing();
-      this.slot = sheet.build.supplies.length > 0 ? 'pack:0:0' : 'motorId';
-    } catch (error) {
-      this.error = asApiError(error);
-    }
+    if (await this.source.load()) this.resetGearing();
+    else this.error = this.source.error;
   }
 
   resetGearing(): void {
