@@ -62,12 +62,12 @@ export function partOps(client: Client): { readonly [T in PartTable]: PartOps<T>
 /**
  * The operations a form uses without knowing its kind at compile time. Reads and archiving take
  * the same input for every kind; a new record or a change is typed by checking it against its
- * kind's own schema first (see typed-input.ts).
+ * kind's own schema first (see typed-input.ts); a refusal comes back as a rejected call, like the service's.
  */
 export const partApi = {
   list: (client: Client, table: PartTable, includeArchived: boolean): Promise<PartRecord[]> => partOps(client)[table].list({ includeArchived }),
   get: (client: Client, table: PartTable, id: string): Promise<PartRecord> => partOps(client)[table].get({ id }),
-  create(client: Client, table: PartTable, fields: Record<string, unknown>): Promise<PartRecord> {
+  async create(client: Client, table: PartTable, fields: Record<string, unknown>): Promise<PartRecord> {
     const ops = partOps(client);
     switch (table) {
       case 'batteries':
@@ -82,7 +82,7 @@ export const partApi = {
         return ops.vehicles.create(typedInput(partSchemasByTable.vehicles.create, fields));
     }
   },
-  update(client: Client, table: PartTable, id: string, expectedVersion: number, changes: Record<string, unknown>, reason: string): Promise<PartWriteResult> {
+  async update(client: Client, table: PartTable, id: string, expectedVersion: number, changes: Record<string, unknown>, reason: string): Promise<PartWriteResult> {
     const ops = partOps(client);
     const at = 'changes.';
     switch (table) {

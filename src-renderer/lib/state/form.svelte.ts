@@ -15,7 +15,7 @@ import type { PreviewRequest } from './over-confirm.svelte';
  * A screen's form supplies what differs: how to read the record, how a record becomes a draft,
  * how its fields are checked, and any state beside the fields (a build's supplies).
  */
-export abstract class FormState<R extends { version: number }> {
+export abstract class FormState<R> {
   record = $state.raw<R | null>(null);
   /** The draft of the record as read: what `draft` is compared with. */
   base = $state<Draft>({});
@@ -85,6 +85,14 @@ export abstract class FormState<R extends { version: number }> {
     } catch (error) {
       this.formError = asApiError(error);
     }
+  }
+
+  /**
+   * A newer stored record arrived from elsewhere (the same user on another screen): shown at
+   * once on an untouched form; a form with edits keeps them as typed.
+   */
+  refresh(record: R): void {
+    if (!this.dirty) this.reset(record);
   }
 
   /** Switches units while keeping unsaved edits out of harm's way: only an untouched form is re-read. */
