@@ -1,7 +1,8 @@
 import type { ApiError } from '../../../src-main/service/contract';
 import type { UnitSystem } from '../../../src-main/core/units';
 import { asApiError } from '../api/client';
-import { errorFieldKey, fieldLabel, messageForField, problemSummary, type Draft } from '../forms/draft';
+import { problemSummary, type Draft } from '../forms/draft';
+import { placeError } from '../forms/placed-error';
 import type { Problems } from '../forms/draft-problems';
 import type { FieldDef } from '../parts/part-fields';
 import type { PreviewRequest } from './over-confirm.svelte';
@@ -109,13 +110,10 @@ export abstract class FormState<R> {
 
   /** A service error, placed beside the field it names and summarised with the field's label. */
   protected fail(error: unknown): void {
-    const e = asApiError(error);
-    const key = errorFieldKey(e.field);
-    const def = key ? this.fields.find((f) => f.key === key) : undefined;
-    const slot = key ? this.errorSlot(key) : null;
-    this.errors = slot ? { [slot]: messageForField(e.message, e.field) } : {};
-    // The summary names the field by its label, as the user sees it.
-    this.formError = def ? { ...e, message: `${fieldLabel(def, this.units)}: ${messageForField(e.message, e.field)}` } : e;
+    const placed = placeError(error, (key) => this.fields.find((f) => f.key === key), this.units);
+    const slot = placed.key ? this.errorSlot(placed.key) : null;
+    this.errors = slot && placed.beside !== null ? { [slot]: placed.beside } : {};
+    this.formError = placed.summary;
   }
 
   /**

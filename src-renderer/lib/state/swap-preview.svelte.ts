@@ -1,9 +1,10 @@
 import type { ApiError } from '../../../src-main/service/contract';
 import type { BuildVerdict, Gearing } from '../../../src-main/core/domain';
 import type { UnitSystem } from '../../../src-main/core/units';
-import { asApiError, type Client } from '../api/client';
+import type { Client } from '../api/client';
 import type { BuildSheet } from './build-sheet.svelte';
-import { fromDraftValue, toDraftValue, errorFieldKey, messageForField, fieldLabel, problemSummary } from '../forms/draft';
+import { fromDraftValue, toDraftValue, problemSummary } from '../forms/draft';
+import { placeError } from '../forms/placed-error';
 import { draftProblems, type Problems } from '../forms/draft-problems';
 import type { ApiInput } from '../../../src-main/service/handlers';
 import { typedInput } from '../api/typed-input';
@@ -166,11 +167,11 @@ export class SwapPreviewState {
   }
 
   private fail(error: unknown): void {
-    const e = asApiError(error);
-    const key = errorFieldKey(e.field);
-    const def = [...GEARING_DEFS, ...this.recordFields()].find((d) => d.key === key || d.key === `gearing.${key?.replace(/^gearing\./, '')}`);
-    this.error = def ? { ...e, message: `${fieldLabel(def, this.units)}: ${messageForField(e.message, e.field)}` } : e;
-    this.fieldError = def && e.field ? messageForField(e.message, e.field) : null;
+    // A gearing field is named `gearing.pinionTeeth` by a build change and `pinionTeeth` inside the gearing.
+    const defOf = (key: string) => [...GEARING_DEFS, ...this.recordFields()].find((d) => d.key === key || d.key === `gearing.${key.replace(/^gearing\./, '')}`);
+    const placed = placeError(error, defOf, this.units);
+    this.error = placed.summary;
+    this.fieldError = placed.key !== null && defOf(placed.key) ? placed.beside : null;
   }
 
   /** Every typed value that cannot be used, before anything is sent; true when all are fine. */
