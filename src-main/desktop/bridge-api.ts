@@ -2,11 +2,20 @@
 // (`import type { RigbookBridge } from '.../desktop/bridge-api'`) so both sides agree.
 import type { CallResult, ServiceEvent } from '../service/contract';
 
+/**
+ * The calls the desktop shell answers itself, before the service sees them: what each takes
+ * and what it answers. The renderer's client is typed from this and the handler map.
+ */
+export interface ShellCalls {
+  /** Asks where to save, then writes the current page as a PDF; `saved` is false when the user cancelled. */
+  'desktop.printToPdf': { input: { suggestedName?: string; landscape?: boolean }; output: { saved: boolean; path?: string } };
+}
+
 /** The property name on `window`. */
 export const BRIDGE_KEY = 'rigbook';
 
 export interface RigbookBridge {
-  /** Calls a handler by name; shell-level names start with `desktop.` (see shell-calls.ts). */
+  /** Calls a handler by name; shell-level names start with `desktop.` (see ShellCalls). */
   call(name: string, args: unknown): Promise<CallResult>;
   /** Listens for change events; returns the function that stops listening. */
   onEvent(listener: (event: ServiceEvent) => void): () => void;

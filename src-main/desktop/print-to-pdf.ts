@@ -3,10 +3,12 @@ import { join } from 'node:path';
 import { app, BrowserWindow, dialog, type WebContents } from 'electron';
 import * as v from 'valibot';
 import type { CallResult } from '../service/contract';
+import type { ShellCalls } from './bridge-api';
 import { pdfFileName } from './pdf-file-name';
 import { storeFileClash } from '../store/file-identity';
 
-export const PRINT_TO_PDF = 'desktop.printToPdf';
+export const PRINT_TO_PDF = 'desktop.printToPdf' satisfies keyof ShellCalls;
+type PrintResult = ShellCalls[typeof PRINT_TO_PDF]['output'];
 
 const PrintArgs = v.optional(
   v.object({
@@ -37,11 +39,11 @@ export async function printToPdf(context: ShellCallContext, args: unknown): Prom
     filters: [{ name: 'PDF', extensions: ['pdf'] }],
   };
   const choice = owner ? await dialog.showSaveDialog(owner, dialogOptions) : await dialog.showSaveDialog(dialogOptions);
-  if (choice.canceled || !choice.filePath) return { ok: true, value: { saved: false } };
+  if (choice.canceled || !choice.filePath) return { ok: true, value: { saved: false } satisfies PrintResult };
 
   const clash = storeFileClash(choice.filePath, context.storePath);
   if (clash) return { ok: false, error: { kind: 'invalid', message: `${choice.filePath} ${clash}; the build sheet was not saved. Choose another file.` } };
   const pdf = await context.sender.printToPDF({ printBackground: true, pageSize: 'A4', landscape: options.landscape ?? false });
   await writeFile(choice.filePath, pdf);
-  return { ok: true, value: { saved: true, path: choice.filePath } };
+  return { ok: true, value: { saved: true, path: choice.filePath } satisfies PrintResult };
 }

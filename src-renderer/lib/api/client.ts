@@ -1,5 +1,6 @@
 import type { ApiError, ServiceEvent } from '../../../src-main/service/contract';
 import type { ApiInput, ApiOutput, HandlerName } from '../../../src-main/service/handlers';
+import type { ShellCalls } from '../../../src-main/desktop/bridge-api';
 import type { Transport } from './transport';
 
 /** A failed call, carrying the field the service named so a form can show it beside the input. */
@@ -13,13 +14,13 @@ export class ApiCallError extends Error {
   }
 }
 
+/** Every name the renderer may call: the service's handlers and the desktop shell's own calls. */
+export type CallName = HandlerName | keyof ShellCalls;
+export type CallInput<K extends CallName> = K extends HandlerName ? ApiInput<K> : K extends keyof ShellCalls ? ShellCalls[K]['input'] : never;
+export type CallOutput<K extends CallName> = K extends HandlerName ? ApiOutput<K> : K extends keyof ShellCalls ? ShellCalls[K]['output'] : never;
+
 export interface Client {
-  call<K extends HandlerName>(name: K, args: ApiInput<K>): Promise<ApiOutput<K>>;
-  /**
-   * A call by a name the handler map does not type: the desktop shell's own `desktop.*` calls,
-   * and handlers another part of the app may not have yet.
-   */
-  callUntyped(name: string, args: unknown): Promise<unknown>;
+  call<K extends CallName>(name: K, args: CallInput<K>): Promise<CallOutput<K>>;
   onEvent(listener: (event: ServiceEvent) => void): () => void;
   readonly kind: Transport['kind'];
 }
@@ -47,13 +48,9 @@ export function createClient(transport: Transport): Client {
     async call(name, args) {
       const result = await transport.call(name, args);
       if (!result.ok) throw new ApiCallError(result.error);
-      // The service's handler map guarantees the value's shape for this name.
-      return result.value as ApiOutput<typeof name>;
-    },
-    async callUntyped(name, args) {
-      const result = await transport.call(name, args);
-      if (!result.ok) throw new ApiCallError(result.error);
-      return result.value;
+      // The one place the wire's value meets its type: the handler map (or the shell's own
+      // table) guarantees the value's shape for this name.
+      return result.value as CallOutput<typeof name>;
     },
     onEvent,
   };

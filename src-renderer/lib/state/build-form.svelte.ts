@@ -1,14 +1,15 @@
-import type { ApiError } from '../../../src-main/service/contract';
 import type { Build, BuildVerdict } from '../../../src-main/core/domain';
 import type { UnitSystem } from '../../../src-main/core/units';
-import { asApiError, type Client } from '../api/client';
-import { draftChanges, draftToRecord, errorFieldKey, fieldLabel, messageForField, problemSummary, toDraft, type Draft } from '../forms/draft';
+import type { Client } from '../api/client';
+import { typedInput } from '../api/typed-input';
+import { draftChanges, draftToRecord, toDraft, type Draft } from '../forms/draft';
 import { draftProblems, type Problems } from '../forms/draft-problems';
-import { buildCreateSchema } from '../../../src-main/service/schemas/build-schemas';
-import type { PreviewRequest } from './over-confirm.svelte';
+import { buildCreateSchema, buildPatchSchema } from '../../../src-main/service/schemas/build-schemas';
 import { BUILD_FIELD_LIST, GEARING_KEYS, flattenBuild, nestBuild, suppliesEqual, type SupplyDraft } from '../builds/build-fields';
+import { FormState } from './form.svelte';
 
 const copySupplies = (list: readonly SupplyDraft[]): SupplyDraft[] => list.map((s) => ({ ...(s.id ? { id: s.id } : {}), arrangement: s.arrangement, batteryIds: [...s.batteryIds] }));
+const suppliesOf = (build: Build): SupplyDraft[] => build.supplies.map((s) => ({ id: s.id, arrangement: s.arrangement, batteryIds: [...s.batteryIds] }));
 
 const NEW_BUILD = {
   name: '',
@@ -23,53 +24,61 @@ const NEW_BUILD = {
   notes: '',
 };
 
-/** Creating or editing a build: every field, its supplies of packs, and the service's errors by field. */
-export class BuildFormState {
-  record = $state.raw<Build | null>(null);
-  base = $state<Draft>({});
-  draft = $state<Draft>({});
+/**
+ * Creating or editing a build: every field, and beside them its supplies of packs (see
+ * form.svelte.ts for what every form does).
+ */
+export class BuildFormState extends FormState<Build> {
   supplies = $state<SupplyDraft[]>([]);
   baseSupplies = $state.raw<SupplyDraft[]>([]);
-  reason = $state('');
-  errors = $state<Record<string, string>>({});
-  formError = $state<ApiError | null>(null);
-  saving = $state(false);
-  loaded = $state(false);
-  notice = $state<string | null>(null);
-
-  conflict = $derived(this.formError?.kind === 'conflict');
-  /** Asked before a write that would make a build OVER (see over-confirm.svelte.ts); false keeps the form unsaved. */
-  confirmWrite: ((request: PreviewRequest) => Promise<boolean>) | null = null;
-  dirty = $derived(Object.keys(this.draft).some((k) => this.draft[k] !== this.base[k]) || !suppliesEqual(this.supplies, this.baseSupplies) || this.reason.trim() !== '');
 
   constructor(
     private readonly client: Client,
     readonly id: string | null,
-    private readonly units: UnitSystem,
+    units: UnitSystem,
   ) {
-    if (id === null) this.reset(null);
+    super(BUILD_FIELD_LIST, units, id !== null);
+    this.start();
   }
 
-  private reset(build: Build | null): void {
-    this.record = build;
-    this.base = toDraft(BUILD_FIELD_LIST, build ? flattenBuild(build) : null, this.units, NEW_BUILD);
-    this.draft = { ...this.base };
-    const supplies = build ? build.supplies.map((s) => ({ id: s.id, arrangement: s.arrangement, batteryIds: [...s.batteryIds] })) : [{ arrangement: 'series' as const, batteryIds: [''] }];
-    this.baseSupplies = supplies.map((s) => ({ ...s, batteryIds: [...s.batteryIds] }));
+  protected async read(): Promise<Build> {
+    return (await this.client.call('builds.get', { id: this.record?.id ?? this.id ?? '' })).build;
+  }
+
+  protected draftOf(build: Build | null): Draft {
+    return toDraft(BUILD_FIELD_LIST, build ? flattenBuild(build) : null, this.units, NEW_BUILD);
+  }
+
+  // A typed reason is an edit too: leaving would lose it.
+  protected override otherEdits(): boolean {
+    return !suppliesEqual(this.supplies, this.baseSupplies) || this.reason.trim() !== '';
+  }
+
+  protected override resetOther(build: Build | null): void {
+    const supplies = build ? suppliesOf(build) : [{ arrangement: 'series' as const, batteryIds: [''] }];
+    this.baseSupplies = copySupplies(supplies);
     this.supplies = supplies;
-    this.errors = {};
-    this.formError = null;
-    this.loaded = true;
   }
 
-  async load(): Promise<void> {
-    if (this.id === null) return;
-    try {
-      const sheet = await this.client.call('builds.get', { id: this.id });
-      this.reset(sheet.build);
-    } catch (error) {
-      this.formError = asApiError(error);
-    }
+  /** The newest supplies, unless the user changed them: then theirs stay, whole. */
+  protected override rebaseOther(latest: Build): void {
+    const theirs = suppliesOf(latest);
+    const mine = suppliesEqual(this.supplies, this.baseSupplies) ? theirs : copySupplies(this.supplies);
+    this.baseSupplies = copySupplies(theirs);
+    this.supplies = copySupplies(mine);
+  }
+
+  protected override otherLabels(): Record<string, string> {
+    return { supplies: 'Supplies' };
+  }
+
+  protected override errorSlot(key: string): string {
+    return key.startsWith('supplies') ? 'supplies' : key;
+  }
+
+  /** What the leave guard says while there are unsaved edits. */
+  leaveMessage(): string | null {
+    return this.unsavedMessage(this.record ? `“${this.record.name}”` : 'This new build');
   }
 
   addSupply(): void {
@@ -95,14 +104,6 @@ export class BuildFormState {
       .filter((s) => s.batteryIds.length > 0);
   }
 
-  private fail(error: unknown): void {
-    const e = asApiError(error);
-    const key = errorFieldKey(e.field);
-    const def = key ? BUILD_FIELD_LIST.find((f) => f.key === key) : undefined;
-    this.errors = key ? { [key.startsWith('supplies') ? 'supplies' : key]: messageForField(e.message, e.field) } : {};
-    this.formError = def ? { ...e, message: `${fieldLabel(def, this.units)}: ${messageForField(e.message, e.field)}` } : e;
-  }
-
   /** Every field that cannot be saved as typed, each with its own message (supplies under `supplies`). */
   problems(): Problems {
     return draftProblems(
@@ -116,27 +117,14 @@ export class BuildFormState {
   }
 
   /** Saves; returns the build and its verdict, or null when the save failed (nothing typed is lost). */
-  async save(): Promise<{ record: Build; verdict: BuildVerdict | null } | null> {
-    this.errors = {};
-    this.formError = null;
-    this.notice = null;
-    const problems = this.problems();
-    if (Object.keys(problems).length > 0) {
-      this.errors = problems;
-      this.formError = { kind: 'invalid', message: problemSummary(problems, BUILD_FIELD_LIST, this.units, { supplies: 'Supplies' }) };
-      return null;
-    }
-    this.saving = true;
-    try {
+  save(): Promise<{ record: Build; verdict: BuildVerdict | null } | null> {
+    return this.submit(async () => {
       if (this.record === null) {
         const fields = nestBuild(draftToRecord(BUILD_FIELD_LIST, this.draft, this.units));
-        const payload = { ...fields, supplies: this.suppliesInput() };
-        if (this.confirmWrite && !(await this.confirmWrite({ create: payload }))) {
-          this.notice = 'Not saved: nothing was written.';
-          return null;
-        }
-        const result = (await this.client.callUntyped('builds.create', payload)) as { record: Build; verdict: BuildVerdict | null };
-        this.reset(result.record);
+        const payload = typedInput(buildCreateSchema, { ...fields, supplies: this.suppliesInput() });
+        if (!(await this.confirmed({ create: payload }))) return null;
+        const result = await this.client.call('builds.create', payload);
+        this.saved(result.record);
         return result;
       }
       const flat = draftChanges(BUILD_FIELD_LIST, this.draft, this.base, this.units);
@@ -150,50 +138,11 @@ export class BuildFormState {
         this.notice = 'Nothing changed.';
         return { record: this.record, verdict: null };
       }
-      const update = { id: this.record.id, expectedVersion: this.record.version, changes, reason: this.reason.trim() };
-      if (this.confirmWrite && !(await this.confirmWrite({ build: update }))) {
-        this.notice = 'Not saved: nothing was written.';
-        return null;
-      }
-      const result = (await this.client.callUntyped('builds.update', update)) as {
-        record: Build;
-        verdict: BuildVerdict | null;
-      };
-      this.reason = '';
-      this.reset(result.record);
+      const update = { id: this.record.id, expectedVersion: this.record.version, changes: typedInput(buildPatchSchema, changes, 'changes.'), reason: this.reason.trim() };
+      if (!(await this.confirmed({ build: update }))) return null;
+      const result = await this.client.call('builds.update', update);
+      this.saved(result.record);
       return result;
-    } catch (error) {
-      this.fail(error);
-      return null;
-    } finally {
-      this.saving = false;
-    }
-  }
-
-  /**
-   * After a conflict: read the version someone else saved and put the user's own edits back on
-   * top (fields they changed, and the supplies if they changed them), so saving again applies
-   * exactly what they changed.
-   */
-  async rebase(): Promise<void> {
-    if (this.record === null) return;
-    try {
-      const latest = (await this.client.call('builds.get', { id: this.record.id })).build;
-      const fresh = toDraft(BUILD_FIELD_LIST, flattenBuild(latest), this.units, NEW_BUILD);
-      const merged: Draft = { ...fresh };
-      for (const key of Object.keys(this.draft)) if (this.draft[key] !== this.base[key]) merged[key] = this.draft[key]!;
-      const theirSupplies = latest.supplies.map((s) => ({ id: s.id, arrangement: s.arrangement, batteryIds: [...s.batteryIds] }));
-      const mySupplies = suppliesEqual(this.supplies, this.baseSupplies) ? theirSupplies : copySupplies(this.supplies);
-      this.record = latest;
-      this.base = fresh;
-      this.draft = merged;
-      this.baseSupplies = copySupplies(theirSupplies);
-      this.supplies = copySupplies(mySupplies);
-      this.formError = null;
-      this.errors = {};
-      this.notice = 'Loaded the latest version; your changes are kept on top. Check them and save again.';
-    } catch (error) {
-      this.fail(error);
-    }
+    });
   }
 }

@@ -3,14 +3,17 @@ import { asApiError, type Client } from '../api/client';
 import { isLithium } from '../../../src-main/core/chemistry';
 import { DEFAULT_TIGHT_THRESHOLD } from '../../../src-main/core/domain';
 import { runTrace, type RunTrace } from '../../../src-main/core/run-trace';
+import { Loader } from './loader.svelte';
 
 export type BuildSheet = ApiOutput<'builds.get'>;
 
 /** One build with its parts and stored verdict; re-read when the service re-checks it. */
 export class BuildSheetState {
-  sheet = $state.raw<BuildSheet | null>(null);
-  error = $state<string | null>(null);
-  notFound = $state(false);
+  readonly source = new Loader(() => this.client.call('builds.get', { id: this.id }));
+  /** The last sheet read: it stays on screen while a newer one is read, and after a failed re-read. */
+  sheet = $derived(this.source.value);
+  error = $derived(this.source.error?.message ?? null);
+  notFound = $derived(this.source.error?.kind === 'not-found');
   printing = $state(false);
   printMessage = $state<string | null>(null);
 
@@ -22,23 +25,16 @@ export class BuildSheetState {
   ) {}
 
   async load(): Promise<void> {
-    try {
-      this.sheet = await this.client.call('builds.get', { id: this.id });
-      this.error = null;
-    } catch (error) {
-      const e = asApiError(error);
-      this.notFound = e.kind === 'not-found';
-      this.error = e.message;
-    }
+    await this.source.load();
   }
 
   follow(): () => void {
-    return this.client.onEvent((event) => {
-      const mine =
+    return this.source.follow(
+      this.client,
+      (event) =>
         (event.type === 'verdicts-changed' && event.buildIds.includes(this.id)) ||
-        (event.type === 'records-changed' && event.kind === 'builds' && event.ids.includes(this.id));
-      if (mine) void this.load();
-    });
+        (event.type === 'records-changed' && event.kind === 'builds' && event.ids.includes(this.id)),
+    );
   }
 
   /** The full-throttle run of one supply of a car or truck, from the same core the verdict came from. */
@@ -122,8 +118,8 @@ export class BuildSheetState {
     }
     this.printing = true;
     try {
-      const result = (await this.client.callUntyped('desktop.printToPdf', { suggestedName })) as { saved?: boolean; path?: string } | null;
-      if (result?.saved && result.path) this.printMessage = `Saved ${result.path}`;
+      const result = await this.client.call('desktop.printToPdf', { suggestedName });
+      if (result.saved && result.path) this.printMessage = `Saved ${result.path}`;
     } catch (error) {
       this.printMessage = asApiError(error).message;
     } finally {

@@ -1,10 +1,13 @@
 import type { Status, VehicleKind } from '../../../src-main/core/domain';
 import type { ServiceEvent } from '../../../src-main/service/contract';
 import { decodeColumns } from '../../../src-main/core/column-table';
-import { asApiError, type Client } from '../api/client';
+import type { Client } from '../api/client';
+import { Loader } from './loader.svelte';
 import type { BuildSummary } from '../builds/build-summary';
 import { DEFAULT_LIST_QUERY, type ListQuery } from '../builds/list-query';
 import { countByStatus, haystackOf, isEmptyFilter, matchingPositions, narrows, ownersOf, sortSummaries, type BuildFilter, type SortDir, type SortKey } from '../builds/build-filter';
+
+const NONE: BuildSummary[] = [];
 
 /** Runs work when the page is idle (after the next frame where idle callbacks are missing). */
 function later(work: (deadline?: { timeRemaining(): number }) => void): void {
@@ -18,10 +21,22 @@ function later(work: (deadline?: { timeRemaining(): number }) => void): void {
  * shows without a reload.
  */
 export class BuildsListState {
-  // Raw: 10 000 summaries must not become deep proxies.
-  all = $state.raw<BuildSummary[]>([]);
-  loaded = $state(false);
-  error = $state<string | null>(null);
+  // The loader keeps them raw: 10 000 summaries must not become deep proxies. Only its newest
+  // read answers (see loader.svelte.ts), so switching between the active and the archived list
+  // never shows the list asked for before.
+  readonly source = new Loader<BuildSummary[]>(
+    // The compact column form: about a fifth of the row objects' size at 10 000 builds.
+    async () => decodeColumns(await this.client.call('builds.listColumns', this.archived ? { includeArchived: true } : {})),
+    (rows) => {
+      // For the benchmark: the time from here to the first row on screen is a budget.
+      performance.mark('rigbook:builds-data');
+      this.#haystacks = new Map();
+      this.#prepareSearch(rows);
+    },
+  );
+  all = $derived(this.source.value ?? NONE);
+  loaded = $derived(this.source.loaded);
+  error = $derived(this.source.error?.message ?? null);
   sortKey = $state<SortKey>('status');
   sortDir = $state<SortDir>(1);
   text = $state('');
@@ -67,29 +82,13 @@ export class BuildsListState {
   selectedIndex = $derived(this.selectedId === null ? -1 : this.visible.findIndex((s) => s.id === this.selectedId));
   filtering = $derived(this.text.trim() !== '' || this.statuses.length > 0 || this.kinds.length > 0 || this.owner !== '' || this.partId !== '');
 
-  #timer: ReturnType<typeof setTimeout> | null = null;
   #pendingChanged = new Set<string>();
+  #marking = new Set<string>();
 
   constructor(private readonly client: Client) {}
 
   async load(): Promise<void> {
-    try {
-      const archived = this.archived;
-      // The compact column form: about a fifth of the row objects' size at 10 000 builds.
-      const rows = decodeColumns(await this.client.call('builds.listColumns', archived ? { includeArchived: true } : {}));
-      // A newer load for the other list may have been asked for meanwhile.
-      if (archived !== this.archived) return;
-      // For the benchmark: the time from here to the first row on screen is a budget.
-      performance.mark('rigbook:builds-data');
-      this.#haystacks = new Map();
-      this.all = rows;
-      this.error = null;
-      this.#prepareSearch(rows);
-    } catch (error) {
-      this.error = asApiError(error).message;
-    } finally {
-      this.loaded = true;
-    }
+    await this.source.load();
   }
 
   #filter(sorted: readonly BuildSummary[], filter: BuildFilter): readonly BuildSummary[] {
@@ -134,30 +133,33 @@ export class BuildsListState {
     later(step);
   }
 
-  /** Follows the service's change events; returns the function that stops. */
+  /**
+   * Follows the service's change events, one re-read for a burst of them (a fleet import sends
+   * many); the builds whose verdicts changed are marked once it is shown. Returns the function that stops.
+   */
   follow(): () => void {
-    const stop = this.client.onEvent((event) => this.onEvent(event));
+    const stop = this.source.follow(this.client, (event) => this.#affects(event), {
+      settleMs: 120,
+      // The builds noted until the re-read starts are marked once it is shown; later ones wait for the next.
+      before: () => {
+        this.#marking = new Set(this.#pendingChanged);
+        this.#pendingChanged.clear();
+      },
+      after: () => (this.recentlyChanged = this.#marking),
+    });
     return () => {
       stop();
-      if (this.#timer) clearTimeout(this.#timer);
       this.#preparing += 1;
     };
   }
 
-  onEvent(event: ServiceEvent): void {
-    if (event.type === 'verdicts-changed') for (const id of event.buildIds) this.#pendingChanged.add(id);
-    else if (event.type !== 'records-changed' || !['builds', 'vehicles', 'batteries', 'motors', 'controllers', 'propellers'].includes(event.kind)) return;
-    // One re-read for a burst of events (a fleet import sends many).
-    if (this.#timer) clearTimeout(this.#timer);
-    this.#timer = setTimeout(() => void this.refresh(), 120);
-  }
-
-  private async refresh(): Promise<void> {
-    this.#timer = null;
-    const changed = new Set(this.#pendingChanged);
-    this.#pendingChanged.clear();
-    await this.load();
-    this.recentlyChanged = changed;
+  /** Whether an event changes what the list shows; notes the builds whose verdicts changed. */
+  #affects(event: ServiceEvent): boolean {
+    if (event.type === 'verdicts-changed') {
+      for (const id of event.buildIds) this.#pendingChanged.add(id);
+      return true;
+    }
+    return event.type === 'records-changed' && ['builds', 'vehicles', 'batteries', 'motors', 'controllers', 'propellers'].includes(event.kind);
   }
 
   sortBy(key: SortKey): void {

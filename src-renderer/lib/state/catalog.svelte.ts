@@ -1,6 +1,8 @@
 import type { Battery, Controller, Motor, Propeller, Vehicle } from '../../../src-main/core/domain';
 import type { Client } from '../api/client';
+import { partOps } from '../parts/part-api';
 import type { PartTable } from '../parts/part-kinds';
+import { Loader } from './loader.svelte';
 
 export interface CatalogRecords {
   batteries: Battery[];
@@ -11,18 +13,27 @@ export interface CatalogRecords {
 }
 
 const TABLES: readonly PartTable[] = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles'];
+const ALL = { includeArchived: true };
+const isTable = (kind: string): kind is PartTable => (TABLES as readonly string[]).includes(kind);
 
 /**
  * Every part and vehicle, archived ones included (old builds and history still name them), for
- * pickers and filters. Re-read when records of a kind change.
+ * pickers and filters. A kind is re-read when its records change.
  */
 export class CatalogState {
-  batteries = $state.raw<Battery[]>([]);
-  motors = $state.raw<Motor[]>([]);
-  controllers = $state.raw<Controller[]>([]);
-  propellers = $state.raw<Propeller[]>([]);
-  vehicles = $state.raw<Vehicle[]>([]);
-  loaded = $state(false);
+  readonly sources: { readonly [T in PartTable]: Loader<CatalogRecords[T]> } = {
+    batteries: new Loader(() => partOps(this.client).batteries.list(ALL)),
+    motors: new Loader(() => partOps(this.client).motors.list(ALL)),
+    controllers: new Loader(() => partOps(this.client).controllers.list(ALL)),
+    propellers: new Loader(() => partOps(this.client).propellers.list(ALL)),
+    vehicles: new Loader(() => partOps(this.client).vehicles.list(ALL)),
+  };
+  batteries = $derived(this.sources.batteries.value ?? []);
+  motors = $derived(this.sources.motors.value ?? []);
+  controllers = $derived(this.sources.controllers.value ?? []);
+  propellers = $derived(this.sources.propellers.value ?? []);
+  vehicles = $derived(this.sources.vehicles.value ?? []);
+  loaded = $derived(TABLES.every((t) => this.sources[t].loaded));
 
   names = $derived(
     new Map<string, string>(
@@ -33,34 +44,12 @@ export class CatalogState {
   constructor(private readonly client: Client) {}
 
   async load(tables: readonly PartTable[] = TABLES): Promise<void> {
-    await Promise.all(tables.map((t) => this.loadTable(t)));
-    this.loaded = true;
-  }
-
-  private async loadTable(table: PartTable): Promise<void> {
-    const args = { includeArchived: true };
-    switch (table) {
-      case 'batteries':
-        this.batteries = await this.client.call('batteries.list', args);
-        break;
-      case 'motors':
-        this.motors = await this.client.call('motors.list', args);
-        break;
-      case 'controllers':
-        this.controllers = await this.client.call('controllers.list', args);
-        break;
-      case 'propellers':
-        this.propellers = await this.client.call('propellers.list', args);
-        break;
-      case 'vehicles':
-        this.vehicles = await this.client.call('vehicles.list', args);
-        break;
-    }
+    await Promise.all(tables.map((t) => this.sources[t].load()));
   }
 
   follow(): () => void {
     return this.client.onEvent((event) => {
-      if (event.type === 'records-changed' && (TABLES as readonly string[]).includes(event.kind)) void this.load([event.kind as PartTable]);
+      if (event.type === 'records-changed' && isTable(event.kind)) void this.sources[event.kind].load();
     });
   }
 

@@ -1,15 +1,27 @@
 import type { ApiInput, ApiOutput } from '../../../src-main/service/handlers';
-import { asApiError, type Client } from '../api/client';
+import type { Client } from '../api/client';
+import { Loader } from './loader.svelte';
 
 export type HistoryEntry = ApiOutput<'history.list'>[number];
 export type HistoryQuery = Omit<NonNullable<ApiInput<'history.list'>>, 'limit' | 'beforeId'>;
 
+const NONE: HistoryEntry[] = [];
+
 /** A timeline: the newest entries first, older ones paged in on request. */
 export class HistoryState {
-  entries = $state.raw<HistoryEntry[]>([]);
-  loaded = $state(false);
+  /** The first page; a re-read starts the timeline again from it. */
+  readonly source = new Loader<HistoryEntry[]>(
+    () => this.client.call('history.list', { ...this.query, limit: this.pageSize }),
+    (page) => {
+      this.#older = NONE;
+      this.more = page.length === this.pageSize;
+    },
+  );
+  #older = $state.raw<HistoryEntry[]>(NONE);
+  entries = $derived([...(this.source.value ?? NONE), ...this.#older]);
+  loaded = $derived(this.source.loaded);
+  error = $derived(this.source.error?.message ?? null);
   more = $state(false);
-  error = $state<string | null>(null);
 
   constructor(
     private readonly client: Client,
@@ -18,30 +30,19 @@ export class HistoryState {
   ) {}
 
   async load(): Promise<void> {
-    try {
-      const page = await this.client.call('history.list', { ...this.query, limit: this.pageSize });
-      this.entries = page;
-      this.more = page.length === this.pageSize;
-      this.error = null;
-    } catch (error) {
-      this.error = asApiError(error).message;
-    } finally {
-      this.loaded = true;
-    }
+    await this.source.load();
   }
 
   async loadMore(): Promise<void> {
     const last = this.entries[this.entries.length - 1];
     if (!last) return;
     const page = await this.client.call('history.list', { ...this.query, limit: this.pageSize, beforeId: last.id });
-    this.entries = [...this.entries, ...page];
+    this.#older = [...this.#older, ...page];
     this.more = page.length === this.pageSize;
   }
 
   /** Every write appends history, and every write sends an event: re-read the first page. */
   follow(): () => void {
-    return this.client.onEvent((event) => {
-      if (event.type === 'records-changed' || event.type === 'verdicts-changed') void this.load();
-    });
+    return this.source.follow(this.client, (event) => event.type === 'records-changed' || event.type === 'verdicts-changed');
   }
 }

@@ -1,8 +1,9 @@
+import type { ApiInput } from '../../../src-main/service/handlers';
 import type { Client } from '../api/client';
 import { newlyOver, type NewlyOver, type ShiftPreview } from '../verdict/verdict-shift';
 
 /** A write as `builds.preview` takes it: a build edit, a new build, or a part edit. */
-export type PreviewRequest = { build: Record<string, unknown> } | { create: Record<string, unknown> } | { part: Record<string, unknown> };
+export type PreviewRequest = ApiInput<'builds.preview'>;
 
 export interface PendingConfirm {
   warnings: NewlyOver[];
@@ -25,7 +26,7 @@ export class OverConfirmState {
   async confirm(request: PreviewRequest): Promise<boolean> {
     let preview: ShiftPreview;
     try {
-      preview = (await this.client.callUntyped('builds.preview', request)) as ShiftPreview;
+      preview = await this.client.call('builds.preview', request);
     } catch {
       return true;
     }

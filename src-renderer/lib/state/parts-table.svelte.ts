@@ -1,13 +1,17 @@
-import { asApiError, type Client } from '../api/client';
+import type { Client } from '../api/client';
 import { partApi, type PartRecord } from '../parts/part-api';
 import type { PartTable } from '../parts/part-kinds';
+import { Loader } from './loader.svelte';
+
+const NONE: PartRecord[] = [];
 
 /** One kind's records for the table, with or without the archived ones. */
 export class PartsTableState {
-  rows = $state.raw<PartRecord[]>([]);
   includeArchived = $state(false);
-  loaded = $state(false);
-  error = $state<string | null>(null);
+  readonly source = new Loader(() => partApi.list(this.client, this.table, this.includeArchived));
+  rows = $derived(this.source.value ?? NONE);
+  loaded = $derived(this.source.loaded);
+  error = $derived(this.source.error?.message ?? null);
 
   constructor(
     private readonly client: Client,
@@ -15,19 +19,10 @@ export class PartsTableState {
   ) {}
 
   async load(): Promise<void> {
-    try {
-      this.rows = await partApi.list(this.client, this.table, this.includeArchived);
-      this.error = null;
-    } catch (error) {
-      this.error = asApiError(error).message;
-    } finally {
-      this.loaded = true;
-    }
+    await this.source.load();
   }
 
   follow(): () => void {
-    return this.client.onEvent((event) => {
-      if (event.type === 'records-changed' && event.kind === this.table) void this.load();
-    });
+    return this.source.follow(this.client, (event) => event.type === 'records-changed' && event.kind === this.table);
   }
 }

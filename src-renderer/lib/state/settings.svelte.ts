@@ -4,6 +4,9 @@ import { asApiError, type Client } from '../api/client';
 import type { ApiError } from '../../../src-main/service/contract';
 import type { NUMBER_LOCALE_TAGS } from '../../../src-main/core/number-text';
 import { setNumberLocale } from '../format/number-locale.svelte';
+import { Loader } from './loader.svelte';
+
+type Settings = { units: UnitSystem; numberLocale: string; tightThreshold: number; demoOffered: boolean };
 
 /** The user's preferences as stored: unit system and the default tight threshold. */
 export class SettingsState {
@@ -12,20 +15,21 @@ export class SettingsState {
   numberLocale = $state('');
   tightThreshold = $state(DEFAULT_TIGHT_THRESHOLD);
   demoOffered = $state(false);
-  loaded = $state(false);
+  readonly source = new Loader<Settings>(
+    () => this.client.call('settings.get', {}),
+    (s) => this.apply(s),
+  );
+  loaded = $derived(this.source.value !== null);
   saving = $state(false);
   error = $state<ApiError | null>(null);
 
   constructor(private readonly client: Client) {}
 
   async load(): Promise<void> {
-    const s = await this.client.call('settings.get', {});
-    this.apply(s);
-    this.loaded = true;
+    await this.source.load();
   }
 
-  /** Returns true when saved; on failure the stored values stay and the error says why. */
-  private apply(s: { units: UnitSystem; numberLocale: string; tightThreshold: number; demoOffered: boolean }): void {
+  private apply(s: Settings): void {
     this.units = s.units;
     this.numberLocale = s.numberLocale;
     setNumberLocale(s.numberLocale);
@@ -33,6 +37,7 @@ export class SettingsState {
     this.demoOffered = s.demoOffered;
   }
 
+  /** Returns true when saved; on failure the stored values stay and the error says why. */
   async save(patch: { units?: UnitSystem; numberLocale?: (typeof NUMBER_LOCALE_TAGS)[number]; tightThreshold?: number; demoOffered?: boolean }): Promise<boolean> {
     this.saving = true;
     this.error = null;

@@ -1,10 +1,12 @@
 import { ApiCallError, asApiError, type Client } from '../api/client';
+import { Loader } from './loader.svelte';
 
 /** Whether the store holds anything yet, and the first-start offer of the demo fleet. */
 export class StoreInfoState {
-  empty = $state(false);
-  loaded = $state(false);
-  counts = $state<Record<string, number>>({});
+  readonly source = new Loader(() => this.client.call('store.info', {}));
+  empty = $derived(this.source.value?.empty ?? false);
+  loaded = $derived(this.source.value !== null);
+  counts = $derived(this.source.value?.counts ?? {});
   demoAvailable = $state(true);
   demoBusy = $state(false);
   demoMessage = $state<string | null>(null);
@@ -12,16 +14,11 @@ export class StoreInfoState {
   constructor(private readonly client: Client) {}
 
   async load(): Promise<void> {
-    const info = await this.client.call('store.info', {});
-    this.empty = info.empty;
-    this.counts = info.counts;
-    this.loaded = true;
+    await this.source.load();
   }
 
   follow(): () => void {
-    return this.client.onEvent((event) => {
-      if (event.type === 'records-changed') void this.load();
-    });
+    return this.source.follow(this.client, (event) => event.type === 'records-changed');
   }
 
   /**
@@ -32,7 +29,7 @@ export class StoreInfoState {
     this.demoBusy = true;
     this.demoMessage = null;
     try {
-      await this.client.callUntyped('demo.load', {});
+      await this.client.call('demo.load', {});
       await this.load();
       return true;
     } catch (error) {

@@ -1,14 +1,18 @@
 import type { ApiError } from '../../../src-main/service/contract';
 import type { BuildVerdict, Gearing } from '../../../src-main/core/domain';
 import type { UnitSystem } from '../../../src-main/core/units';
-import { asApiError, type Client } from '../api/client';
+import type { Client } from '../api/client';
 import type { BuildSheet } from './build-sheet.svelte';
-import { fromDraftValue, recordValue, toDraftValue, errorFieldKey, messageForField, fieldLabel, problemSummary } from '../forms/draft';
+import { fromDraftValue, recordValue, toDraftValue, problemSummary } from '../forms/draft';
+import { placeError } from '../forms/placed-error';
 import { draftProblems, type Problems } from '../forms/draft-problems';
-import { gearingSchema } from '../../../src-main/service/schemas/build-schemas';
+import type { ApiInput } from '../../../src-main/service/handlers';
+import { typedInput } from '../api/typed-input';
+import { buildPatchSchema, gearingSchema } from '../../../src-main/service/schemas/build-schemas';
 import { partSchemasByTable } from '../../../src-main/service/schemas/part-schemas-by-table';
 import { BUILD_FIELDS, GEARING_KEYS } from '../builds/build-fields';
 import { PART_FIELDS, type FieldDef } from '../parts/part-fields';
+import { Loader } from './loader.svelte';
 import { partApi } from '../parts/part-api';
 import type { PartTable } from '../parts/part-kinds';
 
@@ -30,7 +34,14 @@ export const GEARING_DEFS: readonly FieldDef[] = GEARING_KEYS.map((k) => BUILD_F
  * edited. The preview runs the real write and rolls it back; nothing is stored until Save.
  */
 export class SwapPreviewState {
-  sheet = $state.raw<BuildSheet | null>(null);
+  /** The build as read when the screen opened; the what-if is made against that version. */
+  readonly source = new Loader<BuildSheet>(
+    () => this.client.call('builds.get', { id: this.id }),
+    (sheet) => {
+      this.slot = sheet.build.supplies.length > 0 ? 'pack:0:0' : 'motorId';
+    },
+  );
+  sheet = $derived(this.source.value);
   mode = $state<SwapMode>('part');
   slot = $state<Slot>('motorId');
   replacementId = $state('');
@@ -54,14 +65,8 @@ export class SwapPreviewState {
   ) {}
 
   async load(): Promise<void> {
-    try {
-      const sheet = await this.client.call('builds.get', { id: this.id });
-      this.sheet = sheet;
-      this.resetGearing();
-      this.slot = sheet.build.supplies.length > 0 ? 'pack:0:0' : 'motorId';
-    } catch (error) {
-      this.error = asApiError(error);
-    }
+    if (await this.source.load()) this.resetGearing();
+    else this.error = this.source.error;
   }
 
   resetGearing(): void {
@@ -145,7 +150,7 @@ export class SwapPreviewState {
   }
 
   /** What the preview or save call takes. */
-  private request(): { build: Record<string, unknown> } | { part: Record<string, unknown> } | null {
+  private request(): { build: ApiInput<'builds.update'> } | { part: { kind: PartTable; id: string; expectedVersion: number; changes: Record<string, unknown>; reason: string } } | null {
     const b = this.sheet?.build;
     if (!b) return null;
     if (this.mode === 'record') {
@@ -155,15 +160,15 @@ export class SwapPreviewState {
       return { part: { kind: t.table, id: t.record.id, expectedVersion: t.record.version, changes: { [def.key]: fromDraftValue(def, this.recordValue, this.units) }, reason: this.reason.trim() } };
     }
     const changes = this.buildChanges();
-    return changes ? { build: { id: b.id, expectedVersion: b.version, changes, reason: this.reason.trim() } } : null;
+    return changes ? { build: { id: b.id, expectedVersion: b.version, changes: typedInput(buildPatchSchema, changes, 'build.changes.'), reason: this.reason.trim() } } : null;
   }
 
   private fail(error: unknown): void {
-    const e = asApiError(error);
-    const key = errorFieldKey(e.field);
-    const def = [...GEARING_DEFS, ...this.recordFields()].find((d) => d.key === key || d.key === `gearing.${key?.replace(/^gearing\./, '')}`);
-    this.error = def ? { ...e, message: `${fieldLabel(def, this.units)}: ${messageForField(e.message, e.field)}` } : e;
-    this.fieldError = def && e.field ? messageForField(e.message, e.field) : null;
+    // A gearing field is named `gearing.pinionTeeth` by a build change and `pinionTeeth` inside the gearing.
+    const defOf = (key: string) => [...GEARING_DEFS, ...this.recordFields()].find((d) => d.key === key || d.key === `gearing.${key.replace(/^gearing\./, '')}`);
+    const placed = placeError(error, defOf, this.units);
+    this.error = placed.summary;
+    this.fieldError = placed.key !== null && defOf(placed.key) ? placed.beside : null;
   }
 
   /** Every typed value that cannot be used, before anything is sent; true when all are fine. */
@@ -186,18 +191,29 @@ export class SwapPreviewState {
     return false;
   }
 
+  /** The request, or undefined when the change was refused before sending (the error says why). */
+  private checkedRequest(): ReturnType<SwapPreviewState['request']> | undefined {
+    try {
+      return this.request();
+    } catch (error) {
+      this.fail(error);
+      return undefined;
+    }
+  }
+
   async preview(): Promise<void> {
     this.error = null;
     this.fieldError = null;
     if (!this.check()) return;
-    const req = this.request();
+    const req = this.checkedRequest();
+    if (req === undefined) return;
     if (!req) {
       this.error = { kind: 'invalid', message: this.mode === 'record' ? 'Pick a part, a field and a new value first.' : 'Pick a replacement first.' };
       return;
     }
     this.busy = true;
     try {
-      this.result = (await this.client.callUntyped('builds.preview', req)) as PreviewResult;
+      this.result = await this.client.call('builds.preview', req);
     } catch (error) {
       this.result = null;
       this.fail(error);
@@ -209,15 +225,15 @@ export class SwapPreviewState {
   /** Writes the change for real, with the reason, through the same operation an edit uses. */
   async save(): Promise<boolean> {
     if (!this.check()) return false;
-    const req = this.request();
+    const req = this.checkedRequest();
     if (!req) return false;
     this.busy = true;
     this.error = null;
     try {
       if ('build' in req) {
-        await this.client.callUntyped('builds.update', req.build);
+        await this.client.call('builds.update', req.build);
       } else {
-        const p = req.part as { kind: PartTable; id: string; expectedVersion: number; changes: Record<string, unknown>; reason: string };
+        const p = req.part;
         await partApi.update(this.client, p.kind, p.id, p.expectedVersion, p.changes, p.reason);
       }
       this.saved = true;

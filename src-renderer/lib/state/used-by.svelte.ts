@@ -1,10 +1,14 @@
 import type { Client } from '../api/client';
 import type { BuildSummary } from '../builds/build-summary';
+import { Loader } from './loader.svelte';
+
+const NONE: BuildSummary[] = [];
 
 /** The builds that use one part, as the service finds them through its part → builds index. */
 export class UsedByState {
-  builds = $state.raw<BuildSummary[]>([]);
-  loaded = $state(false);
+  readonly source = new Loader(() => this.client.call('builds.list', { partId: this.partId }));
+  builds = $derived(this.source.value ?? NONE);
+  loaded = $derived(this.source.value !== null);
 
   constructor(
     private readonly client: Client,
@@ -12,13 +16,10 @@ export class UsedByState {
   ) {}
 
   async load(): Promise<void> {
-    this.builds = await this.client.call('builds.list', { partId: this.partId });
-    this.loaded = true;
+    await this.source.load();
   }
 
   follow(): () => void {
-    return this.client.onEvent((event) => {
-      if (event.type === 'verdicts-changed' || (event.type === 'records-changed' && event.kind === 'builds')) void this.load();
-    });
+    return this.source.follow(this.client, (event) => event.type === 'verdicts-changed' || (event.type === 'records-changed' && event.kind === 'builds'));
   }
 }
