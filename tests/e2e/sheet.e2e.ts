@@ -121,6 +121,7 @@ test('a stage opens its part, and the supply choice sits on the strip', async ({
 });
 
 test('imperial units on the strip and the figures', async ({ page, shell }) => {
+  test.setTimeout(120_000);
   const fleet = await seedFleet((name, args) => shell.api(name, args));
   await openApp(page, shell, '#/settings');
   await page.getByRole('radio', { name: /Imperial/ }).check();
