@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { currentBands, forceChartData, groundModelOf, propChartData, propModelOf } from '../../src-renderer/lib/charts/sheet-chart-data';
-import { bandDatasets, runBandsConfig } from '../../src-renderer/lib/charts/sheet-chart-configs';
+import { bandDatasets, niceCeil, runBandsConfig } from '../../src-renderer/lib/charts/sheet-chart-configs';
 import { runTrace } from '../../src-main/core/run-trace';
 import { battery, finding, quadContext, supplyOf, truckContext } from '../unit/core/fixtures';
 
@@ -80,5 +80,14 @@ describe('sheet chart data', () => {
     // Full throttle is the last throttle step: the curve ends at the static point.
     expect(d.throttle[d.throttle.length - 1]).toBeCloseTo(1, 12);
     expect(d.currentA[d.currentA.length - 1]).toBeCloseTo(d.marks[0]!.currentA, 9);
+  });
+
+  it('axis ends are round numbers at or above the data', () => {
+    expect(niceCeil(41158.3)).toBe(50000);
+    expect(niceCeil(318.2)).toBe(500);
+    expect(niceCeil(161)).toBe(200);
+    expect(niceCeil(37.4)).toBe(50);
+    expect(niceCeil(25)).toBe(25);
+    expect(niceCeil(75.07)).toBe(100);
   });
 });

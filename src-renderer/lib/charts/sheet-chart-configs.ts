@@ -39,10 +39,18 @@ export function bandDatasets(bands: readonly CurrentBand[], x0: number, x1: numb
   return out;
 }
 
+/** The next round axis end at or above a value: 1, 2, 2.5 or 5 times a power of ten. */
+export function niceCeil(value: number): number {
+  if (!(value > 0) || !Number.isFinite(value)) return 1;
+  const power = 10 ** Math.floor(Math.log10(value));
+  for (const step of [1, 2, 2.5, 5, 10]) if (step * power >= value * (1 - 1e-12)) return step * power;
+  return 10 * power;
+}
+
 /** The top of a current axis: room above the highest current, and the lowest rating in view. */
 export function currentAxisMax(peakA: number, bands: readonly CurrentBand[]): number {
   const lowest = bands.length > 0 ? Math.min(...bands.map((b) => b.lowA)) : 0;
-  return Math.max(peakA * 1.25, lowest * 1.15, 1);
+  return niceCeil(Math.max(peakA * 1.25, lowest * 1.15, 1));
 }
 
 const legend = { position: 'bottom' as const, labels: { boxWidth: 18, boxHeight: 2, filter: (item: { text: string }) => item.text !== '' } };
@@ -85,7 +93,7 @@ export function forceConfig(d: ForceChartData, units: UnitSystem): ChartConfigur
   const forceUnit = displayUnit('forceN', units);
   const sx = d.speedKmh.map((v) => toDisplay(v, 'speedKmh', units));
   const f = (n: number) => toDisplay(n, 'forceN', units);
-  const x1 = sx[sx.length - 1] ?? 0;
+  const x1 = niceCeil(sx[sx.length - 1] ?? 0);
   const datasets: LineSet[] = [
     { type: 'line', label: `Drive force at the wheels (${forceUnit})`, data: xy(sx, d.driveN.map(f)), borderColor: SERIES.current.color, borderWidth: 2.5, pointRadius: 0 },
     { type: 'line', label: `Road load (${forceUnit})`, data: xy(sx, d.roadN.map(f)), borderColor: SERIES.power.color, borderDash: SERIES.power.dash, borderWidth: 2, pointRadius: 0 },
@@ -114,7 +122,7 @@ export function forceConfig(d: ForceChartData, units: UnitSystem): ChartConfigur
 /** One motor's current and the thrust of all motors against propeller rpm, with the current ratings per motor as bands. */
 export function propCurrentConfig(d: PropChartData, bands: readonly CurrentBand[], units: UnitSystem): ChartConfiguration<'line' | 'scatter'> {
   const forceUnit = displayUnit('forceN', units);
-  const x1 = Math.max(...d.propellerRpm, ...d.marks.map((m) => m.propellerRpm));
+  const x1 = niceCeil(Math.max(...d.propellerRpm, ...d.marks.map((m) => m.propellerRpm)));
   const datasets: LineSet[] = [
     { type: 'line', label: 'Current per motor (A)', data: xy(d.propellerRpm, d.currentA), borderColor: SERIES.current.color, borderWidth: 2.5, pointRadius: 0, yAxisID: 'y' },
   ];
@@ -146,10 +154,11 @@ export function tipSpeedConfig(d: PropChartData, limitMps: number | null, units:
   const unit = displayUnit('speedMps', units);
   const s = (v: number) => toDisplay(v, 'speedMps', units);
   const unloaded = d.marks[1];
-  const x1 = unloaded?.propellerRpm ?? Math.max(...d.propellerRpm);
+  const xEnd = unloaded?.propellerRpm ?? Math.max(...d.propellerRpm);
+  const x1 = niceCeil(xEnd);
   const datasets: LineSet[] = [
     // Tip speed rises in proportion to rpm: a straight line from standstill to the unloaded speed.
-    { type: 'line', label: `Tip speed (${unit})`, data: [{ x: 0, y: 0 }, { x: x1, y: s(unloaded?.tipSpeedMps ?? 0) }], borderColor: SERIES.current.color, borderWidth: 2.5, pointRadius: 0 },
+    { type: 'line', label: `Tip speed (${unit})`, data: [{ x: 0, y: 0 }, { x: xEnd, y: s(unloaded?.tipSpeedMps ?? 0) }], borderColor: SERIES.current.color, borderWidth: 2.5, pointRadius: 0 },
   ];
   if (limitMps !== null) {
     datasets.push({ type: 'line', label: `Tip speed limit ${fixed(s(limitMps), 0)} ${unit}`, data: [{ x: 0, y: s(limitMps) }, { x: x1, y: s(limitMps) }], borderColor: '#b42318', borderDash: [8, 4], borderWidth: 1.5, pointRadius: 0 });
@@ -166,7 +175,7 @@ export function tipSpeedConfig(d: PropChartData, limitMps: number | null, units:
       plugins: { legend, tooltip: { callbacks: { title: (items) => `${Math.round(items[0]?.parsed.x ?? 0)} rpm` } } },
       scales: {
         x: { type: 'linear', min: 0, max: x1, title: { display: true, text: 'Propeller speed (rpm), full charge' }, grid: GRID },
-        y: { type: 'linear', min: 0, max: Math.max(s(unloaded?.tipSpeedMps ?? 0), s(limitMps ?? 0)) * 1.1 || 1, title: { display: true, text: `Tip speed (${unit})` }, grid: GRID },
+        y: { type: 'linear', min: 0, max: niceCeil(Math.max(s(unloaded?.tipSpeedMps ?? 0), s(limitMps ?? 0)) * 1.1), title: { display: true, text: `Tip speed (${unit})` }, grid: GRID },
       },
     },
   };
