@@ -106,8 +106,8 @@ test('imperial units on the sheet, the check rows, a class limit and the forms, 
 
   await page.evaluate((id) => (window.location.hash = `#/builds/${id}`), build.id);
   const supply = page.getByTestId('supply').first();
-  await expect(supply.locator('[data-group="drivetrain"]')).toContainText('mph');
-  await expect(supply.locator('[data-group="drivetrain"]')).not.toContainText('km/h');
+  await expect(supply.locator('[data-group="output"]')).toContainText('mph');
+  await expect(supply.locator('[data-group="output"]')).not.toContainText('km/h');
   const classRow = supply.locator('[data-rule="class-stock-speed"]');
   await expect(classRow).toContainText('/ 24.9 mph');
   await expect(classRow).not.toContainText('km/h');

@@ -47,11 +47,18 @@ test('screens of the fleet: list, greyscale badges, sheet, parts, vehicles, hist
   await page.evaluate((id) => (window.location.hash = `#/builds/${id}`), fleet.builds.monster6s!);
   const sheet = page.getByTestId('build-sheet');
   await expect(sheet.getByRole('heading', { name: 'Monster 6S' })).toBeVisible();
-  // Motor curves (two), the full-throttle run and the currents against their limits.
-  await expect(sheet.locator('canvas')).toHaveCount(4);
+  // What the build asks: the full-throttle run with the current ratings as bands, and drive force against road load.
+  await expect(sheet.locator('canvas')).toHaveCount(2);
+  await expect(sheet.locator('[data-chart-view="asks"]')).toBeVisible();
   await expect(sheet).toContainText('rpm per volt at no load');
   await expect(sheet.locator('[data-rule="motor-power"]')).toContainText("Follow the part maker's ratings");
   await shot(page, 'build-sheet', true);
+  // The motor curves remain one view among several.
+  await sheet.getByRole('button', { name: 'Motor curves' }).click();
+  await expect(sheet.locator('[data-chart-view="motor"] canvas')).toHaveCount(2);
+  await shot(page, 'build-sheet-motor-curves');
+  await sheet.getByRole('button', { name: 'Currents against ratings' }).click();
+  await expect(sheet.locator('[data-chart-view="limits"] canvas')).toHaveCount(1);
 
   // A lithium pack over its rating: the fire caution shows.
   await page.evaluate((id) => (window.location.hash = `#/builds/${id}`), fleet.builds.glider!);
@@ -112,8 +119,8 @@ test('swap preview of a gearing change, side by side', async ({ page, shell }) =
 test('the printable build sheet: no navigation, black on white, cautions and the printed date', async ({ page, shell }) => {
   const fleet = await seedFleet((name, args) => shell.api(name, args));
   await openApp(page, shell, `#/builds/${fleet.builds.monster8s}`);
-  // Motor current and power, torque and efficiency, the full-throttle run, currents against limits.
-  await expect(page.getByTestId('build-sheet').locator('canvas')).toHaveCount(4);
+  // The full-throttle run and drive force against road load on screen; the printed sheet leaves the charts out.
+  await expect(page.getByTestId('build-sheet').locator('canvas')).toHaveCount(2);
   await page.emulateMedia({ media: 'print' });
   await expect(page.getByRole('navigation', { name: 'Screens' })).toBeHidden();
   await expect(page.getByRole('button', { name: 'Print' })).toBeHidden();
@@ -121,6 +128,12 @@ test('the printable build sheet: no navigation, black on white, cautions and the
   await expect(page.locator('.printhead')).toContainText(/printed \d{4}-\d{2}-\d{2} \d{2}:\d{2}/);
   await expect(page.getByRole('heading', { name: 'Safety' })).toBeVisible();
   await expect(page.getByText('Lithium packs can burn')).toBeVisible();
+  // The power path and the checks print; the charts and the figure table one level down do not.
+  await expect(page.getByTestId('power-path')).toBeVisible();
+  await expect(page.getByTestId('path-stage')).toHaveCount(5);
+  await expect(page.getByTestId('supply').getByTestId('finding').first()).toBeVisible();
+  await expect(page.locator('canvas').first()).toBeHidden();
+  await expect(page.getByText(/owner Ravi Lindqvist/)).toBeVisible();
   const background = await page.evaluate(() => getComputedStyle(document.body).backgroundColor);
   expect(background).toBe('rgb(255, 255, 255)');
   const ink = await page.evaluate(() => getComputedStyle(document.querySelector('h1')!).color);

@@ -4,6 +4,7 @@ import {
   BarElement,
   CategoryScale,
   Chart,
+  Filler,
   Legend,
   LinearScale,
   LineController,
@@ -13,7 +14,7 @@ import {
   Tooltip,
 } from 'chart.js';
 
-Chart.register(LineController, LineElement, PointElement, LinearScale, ScatterController, BarController, BarElement, CategoryScale, Legend, Tooltip);
+Chart.register(Filler, LineController, LineElement, PointElement, LinearScale, ScatterController, BarController, BarElement, CategoryScale, Legend, Tooltip);
 
 Chart.defaults.font.family = "system-ui, -apple-system, 'Segoe UI', Roboto, sans-serif";
 Chart.defaults.font.size = 11;
