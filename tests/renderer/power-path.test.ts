@@ -86,7 +86,10 @@ describe('power path', () => {
 
   it('groups every figure once, by stage', () => {
     const truck = figuresByStage('truck');
-    expect(truck.map((g) => g.title)).toEqual(['Packs', 'Speed controller (supply current)', 'Motor', 'Gearing', 'Wheels']);
+    // Stages come from the figure catalogue: the supply current is the packs' figure (their
+    // checks and the controller's both read it); no figure belongs to the controller alone.
+    expect(truck.map((g) => g.title)).toEqual(['Packs', 'Motor', 'Gearing', 'Wheels']);
+    expect(truck.find((g) => g.id === 'supply')!.figures.map((f) => f.key)).toContain('continuousCurrentA');
     const keys = truck.flatMap((g) => g.figures.map((f) => f.key));
     expect(new Set(keys).size).toBe(keys.length);
     expect(truck.find((g) => g.id === 'drive')!.figures.map((f) => f.key)).toContain('finalDriveRatio');

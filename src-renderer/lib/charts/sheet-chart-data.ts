@@ -4,7 +4,7 @@
 
 import type { BuildContext, Finding, PackShare, SupplyVerdict } from '../../../src-main/core/domain';
 import { buildInputs } from '../../../src-main/core/build-inputs';
-import { groundRunModel } from '../../../src-main/core/operating-model';
+import { groundRunModel } from '../../../src-main/core/ground-operating-point';
 import { loadedTopSpeed } from '../../../src-main/core/ground-load';
 import { motorParams, noLoadOmega, torqueAt, type MotorParams } from '../../../src-main/core/motor';
 import { roadLoad } from '../../../src-main/core/road-load';

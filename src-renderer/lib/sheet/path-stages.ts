@@ -1,66 +1,23 @@
-// Which stage of the power path each figure and each check belongs to. Kept in one small table
-// keyed by figure key and rule id, so the sheet's grouping can follow a catalogue field later
-// without touching the components.
+// Which stage of the power path each figure and each check belongs to, read from the core's
+// catalogues: a figure's stage is its catalogue entry's, a rule's is the part whose rating it
+// holds the figure against (a pack's current check sits on the packs, the controller's on the
+// controller). Nothing here is a list of its own.
 
-export const STAGES = ['supply', 'controller', 'motor', 'drive', 'output'] as const;
-export type Stage = (typeof STAGES)[number];
+import { FIGURE_STAGES, FIGURES, isFigureKey, type FigureStage } from '../../../src-main/core/catalogue/figures';
+import { isRuleId, RULES } from '../../../src-main/core/catalogue/rules';
 
-/** Figure key → stage. A figure not listed here falls under the supply (see stageOfFigure). */
-export const FIGURE_STAGE: Readonly<Record<string, Stage>> = {
-  packVoltageNominalV: 'supply',
-  packVoltageFullV: 'supply',
-  packVoltageCutoffV: 'supply',
-  capacityMah: 'supply',
-  packResistanceOhm: 'supply',
-  loadedVoltageV: 'supply',
-  peakPowerW: 'supply',
-  peakPowerNoSagW: 'supply',
-  // The supply current is what the controller passes on; it is judged there and at the packs.
-  peakCurrentA: 'controller',
-  continuousCurrentA: 'controller',
-  runRmsCurrentA: 'controller',
-  runAverageCurrentA: 'controller',
-  steadyCurrentA: 'controller',
-  noLoadRpm: 'motor',
-  noLoadRpmFull: 'motor',
-  loadedRpm: 'motor',
-  loadedRpmFull: 'motor',
-  torqueConstantNmPerA: 'motor',
-  motorPeakCurrentA: 'motor',
-  motorContinuousCurrentA: 'motor',
-  motorPeakPowerW: 'motor',
-  finalDriveRatio: 'drive',
-  rolloutMm: 'drive',
-  propellerRpmStatic: 'drive',
-  propellerRpmUnloaded: 'drive',
-  tipSpeedStaticMps: 'drive',
-  tipSpeedMps: 'drive',
-  tipSpeedLimitMps: 'drive',
-  fluidDensityKgM3: 'drive',
-  theoreticalSpeedKmh: 'output',
-  loadedTopSpeedKmh: 'output',
-  runLengthS: 'output',
-  drivenWeightShare: 'output',
-  pitchSpeedKmh: 'output',
-  thrustN: 'output',
-};
+export const STAGES = FIGURE_STAGES;
+export type Stage = FigureStage;
 
-/** Rule id → stage, for the built-in rules and the pack checks. */
-export const RULE_STAGE: Readonly<Record<string, Stage>> = {
-  'battery-continuous': 'supply',
-  'battery-burst': 'supply',
-  'supply-match': 'supply',
-  'pack-retired': 'supply',
-  'pack-repeated': 'supply',
-  'controller-voltage': 'controller',
-  'controller-continuous': 'controller',
-  'controller-burst': 'controller',
-  'motor-voltage': 'motor',
-  'motor-speed': 'motor',
-  'motor-current': 'motor',
-  'motor-power': 'motor',
-  'prop-tip-speed': 'drive',
-};
+/** The record a rating comes from → the stage that part stands on. */
+const PART_STAGE: ReadonlyMap<string, Stage> = new Map([
+  ['battery', 'supply'],
+  ['supply', 'supply'],
+  ['controller', 'controller'],
+  ['motor', 'motor'],
+  ['propeller', 'drive'],
+  ['build', 'drive'],
+]);
 
 const UNIT_STAGE: Readonly<Record<string, Stage>> = {
   V: 'supply',
@@ -73,10 +30,16 @@ const UNIT_STAGE: Readonly<Record<string, Stage>> = {
 };
 
 export function stageOfFigure(key: string): Stage {
-  return FIGURE_STAGE[key] ?? 'supply';
+  return isFigureKey(key) ? FIGURES[key].stage : 'supply';
 }
 
-/** A class rule has no fixed stage: it is placed by the unit of what it limits. */
+/** A built-in rule stands where its rating comes from; a class rule has no part, so it is placed by the unit of what it limits. */
 export function stageOfRule(rule: string, unit: string): Stage {
-  return RULE_STAGE[rule] ?? UNIT_STAGE[unit] ?? 'supply';
+  if (isRuleId(rule)) {
+    const spec = RULES[rule];
+    const part = PART_STAGE.get(spec.limit[0]?.split('.')[0] ?? '');
+    if (part !== undefined) return part;
+    if (spec.figure !== null) return FIGURES[spec.figure].stage;
+  }
+  return UNIT_STAGE[unit] ?? 'supply';
 }

@@ -1,4 +1,5 @@
 import type { Battery, Controller, Figures, Finding, Motor, Propeller, Status, SupplyVerdict, Vehicle } from '../../../src-main/core/domain';
+import type { FigureKey } from '../../../src-main/core/catalogue/figures';
 import { compareStatus } from '../../../src-main/core/status';
 import { displayUnit, quantityOfUnit, toDisplay, type UnitSystem } from '../../../src-main/core/units';
 import { DRIVETRAIN_FIGURES, MOTOR_FIGURES, PROPELLER_FIGURES, SUPPLY_FIGURES, figureText, type FigureDef } from '../figures/figure-groups';
@@ -120,7 +121,7 @@ export function decidingChecks(v: Pick<SupplyVerdict, 'status' | 'findings'>): F
   return worstFirst(v.findings.filter((f) => f.status !== 'clear'));
 }
 
-function findFigure(key: string): FigureDef | undefined {
+function findFigure(key: FigureKey): FigureDef | undefined {
   for (const g of [SUPPLY_FIGURES, MOTOR_FIGURES, DRIVETRAIN_FIGURES, PROPELLER_FIGURES]) {
     const d = g.figures.find((f) => f.key === key);
     if (d) return d;
@@ -129,7 +130,7 @@ function findFigure(key: string): FigureDef | undefined {
 }
 
 /** A figure with a short description after it, or null where the figure has no value. */
-function described(key: string, words: string, figures: Figures, system: UnitSystem): string | null {
+function described(key: FigureKey, words: string, figures: Figures, system: UnitSystem): string | null {
   const def = findFigure(key);
   if (!def || typeof figures[key] !== 'number') return null;
   return `${figureText(def, figures, system)} ${words}`;
