@@ -281,6 +281,14 @@ describe('JSON as scripts write it', () => {
     expect(readJsonText('{"kv":1,"k\\u0076":2}')).toMatchObject({ ok: false, place: 'kv' });
   });
 
+  it('a file with a field named twice and broken after it is unreadable, as JSON.parse finds it, not a repeated name', () => {
+    // JSON.parse (ECMA-404's grammar) is the reference: it throws on this text.
+    const text = '[{"":"a","":1 x}]';
+    expect(() => JSON.parse(text)).toThrow();
+    expect(scanJson(text)).toMatchObject({ kind: 'syntax' });
+    expect(readJsonText(text)).toMatchObject({ ok: false, unreadable: true });
+  });
+
   it('the syntax-error locator works 20 000 levels deep without recursion', () => {
     const depth = 20_000;
     expect(scanJson(`${'['.repeat(depth)}${']'.repeat(depth)}`)).toBeNull();

@@ -45,6 +45,9 @@ export function scanJson(text: string): ScanStop | null {
   let i = 0;
   const n = text.length;
   const stack: Frame[] = [];
+  // A field named twice is remembered and the walk goes on: a file that is also broken further
+  // down must be reported as unreadable (as JSON.parse would), not as a mere repeated name.
+  let duplicate: ScanStop | null = null;
   const end = (): never => {
     throw new Stop({ kind: 'end' });
   };
@@ -110,9 +113,9 @@ export function scanJson(text: string): ScanStop | null {
     const escaped = string();
     const name = escaped ? (JSON.parse(text.slice(start, i)) as string) : text.slice(start + 1, i - 1);
     const frame = stack[stack.length - 1] as Frame & { object: true };
-    if (frame.keys.has(name)) {
+    if (frame.keys.has(name) && duplicate === null) {
       frame.key = name;
-      throw new Stop({ kind: 'duplicate', place: placeOf('', ...framePath(stack)), key: name, at: start });
+      duplicate = { kind: 'duplicate', place: placeOf('', ...framePath(stack)), key: name, at: start };
     }
     frame.keys.add(name);
     frame.key = name;
@@ -157,7 +160,7 @@ export function scanJson(text: string): ScanStop | null {
         const top = stack[stack.length - 1];
         if (top === undefined) {
           if (i < n) fail('the end of the file');
-          return null;
+          return duplicate;
         }
         if (text[i] === ',') {
           i++;
