@@ -2,6 +2,7 @@ import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { ApiError } from '../service/contract';
 import { AUTO_BACKUPS_KEPT, openServiceHost } from '../service/open-service-host';
+import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import { resolveDbPath } from '../store/data-location';
 import { CliFailure, type CliIo } from './cli-io';
 import { EXIT } from './exit-codes';
@@ -32,7 +33,7 @@ export async function withStore<T>(io: CliIo, dbPath: string, options: StoreOpti
   if (options.mustExist && !existed) throw new CliFailure(EXIT.store, `There is no store at ${dbPath} (give another with --db PATH or RIGBOOK_DB).`);
   let host: Host;
   try {
-    host = await openServiceHost({ dbPath, ...(options.autoBackup ? { autoBackup: { keep: AUTO_BACKUPS_KEPT, minIntervalHours: 0 } } : {}) });
+    host = await openServiceHost({ dbPath, demoFleet, ...(options.autoBackup ? { autoBackup: { keep: AUTO_BACKUPS_KEPT, minIntervalHours: 0 } } : {}) });
   } catch (error) {
     const storage = describeStorageError(error, dbPath);
     const cause = error instanceof Error ? error.message : String(error);

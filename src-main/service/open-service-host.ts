@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { userInfo } from 'node:os';
-import { openStore } from '../store/open-database';
+import { openStore, type OpenedStore } from '../store/open-database';
 import { backupFolderFor, newestRollingBackupAt, rollingBackup } from '../store/backup';
 import type { EventListener, ServiceHost } from './contract';
 import { dispatch } from './dispatch';
@@ -23,6 +23,8 @@ export interface HostOptions {
    * off the path to the first paint; `autoBackupDone` then says where it went.
    */
   autoBackup?: { keep: number; minIntervalHours?: number; afterStartMs?: number };
+  /** The fleet `demo.load` offers; the shells pass the invented demo, so production service code never imports fixtures. */
+  demoFleet?: () => unknown;
 }
 
 export function randomId(prefix: string): string {
@@ -46,7 +48,7 @@ export const AUTO_BACKUP_AFTER_START_MS = 5000;
 /** Opens the store (migrating it) and returns the one surface both shells and the command line use. */
 export async function openServiceHost(
   options: HostOptions,
-): Promise<ServiceHost & { ctx: ServiceContext; autoBackupPath: string | null; autoBackupDone: Promise<string | null> }> {
+): Promise<ServiceHost & { ctx: ServiceContext; raw: OpenedStore['raw']; autoBackupPath: string | null; autoBackupDone: Promise<string | null> }> {
   // A store created just now holds nothing worth a copy.
   const existed = options.dbPath !== ':memory:' && existsSync(options.dbPath);
   // The file's identity is taken before SQLite opens it: a restore that swaps the file in the
@@ -103,6 +105,7 @@ export async function openServiceHost(
     newId: options.newId ?? randomId,
     raw: store.raw,
     ...(storeFile ? { storeFile } : {}),
+    ...(options.demoFleet ? { demoFleet: options.demoFleet } : {}),
     emit: (event) => {
       for (const listener of listeners) {
         try {
@@ -116,6 +119,7 @@ export async function openServiceHost(
   await recheckIfEngineChanged(ctx);
   return {
     ctx,
+    raw: store.raw,
     autoBackupPath,
     autoBackupDone,
     dbPath: store.path,

@@ -1,6 +1,6 @@
 // The one object the desktop preload puts on `window`. The renderer imports this type-only
-// (`import type { RigbookBridge } from '.../desktop/bridge-api'`) so both sides agree.
-import type { CallResult, ServiceEvent } from '../service/contract';
+// (`import type { RigbookBridge } from '$service/bridge-api'`) so both sides agree.
+import type { CallResult, ServiceEvent } from './contract';
 
 /** The property name on `window`. */
 export const BRIDGE_KEY = 'rigbook';
