@@ -5,7 +5,7 @@ import { AUTO_BACKUPS_KEPT, openServiceHost } from '../service/open-service-host
 import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import { resolveDbPath } from '../store/data-location';
 import { CliFailure, type CliIo } from './cli-io';
-import { EXIT } from './exit-codes';
+import { EXIT } from '../shell-common/exit-codes';
 import { progressPrinter } from './progress-line';
 import { describeStorageError } from '../store/storage-errors';
 

@@ -5,7 +5,7 @@ import { AUTO_BACKUP_AFTER_START_MS, AUTO_BACKUPS_KEPT, openServiceHost } from '
 import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import { startLocalServer } from './local-server';
 import { LOCAL_HELP, parseLocalArgs } from './command-line';
-import { EXIT } from '../cli/exit-codes';
+import { EXIT } from '../shell-common/exit-codes';
 import { describeStorageError } from '../store/storage-errors';
 
 // Entry of the loopback shell: `node dist-main/local-main.cjs [--db PATH] [--port N]` (--help lists the options).
