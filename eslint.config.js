@@ -7,7 +7,7 @@ import globals from 'globals';
 import ts from 'typescript-eslint';
 
 export default ts.config(
-  { ignores: ['node_modules/', 'dist-main/', 'dist-renderer/', 'release/', '.tsbuild/', 'tests/artifacts/', 'test-results/', 'playwright-report/'] },
+  { ignores: ['node_modules/', 'dist-main/', 'dist-renderer/', 'release/', '.tsbuild/', 'tests/artifacts/', 'test-results/', 'playwright-report/', '.dev/'] },
   js.configs.recommended,
   ...ts.configs.recommended,
   ...svelte.configs.recommended,

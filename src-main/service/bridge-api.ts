@@ -6,7 +6,7 @@ import type { CallResult, ServiceEvent } from './contract';
 export const BRIDGE_KEY = 'rigbook';
 
 export interface RigbookBridge {
-  /** Calls a handler by name; shell-level names start with `desktop.` (see shell-calls.ts). */
+  /** Calls a handler by name; shell-level names start with `desktop.` and the desktop relay answers them itself (desktop/call-relay.ts). */
   call(name: string, args: unknown): Promise<CallResult>;
   /** Listens for change events; returns the function that stops listening. */
   onEvent(listener: (event: ServiceEvent) => void): () => void;

@@ -38,10 +38,6 @@ export function smart(value: number | null | undefined): string {
   return String(Number(value.toPrecision(3)));
 }
 
-export function withUnit(text: string, unit: string): string {
-  return text === MISSING || unit === '' ? text : `${text} ${unit}`;
-}
-
 export function percent(ratio: number | null | undefined, decimals = 0): string {
   if (ratio === null || ratio === undefined || !Number.isFinite(ratio)) return MISSING;
   return `${fixed(ratio * 100, decimals)} %`;

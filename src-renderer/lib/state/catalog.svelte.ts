@@ -2,14 +2,6 @@ import type { Battery, Controller, Motor, Propeller, Vehicle } from '../../../sr
 import type { Client } from '../api/client';
 import type { PartTable } from '../parts/part-kinds';
 
-export interface CatalogRecords {
-  batteries: Battery[];
-  motors: Motor[];
-  controllers: Controller[];
-  propellers: Propeller[];
-  vehicles: Vehicle[];
-}
-
 const TABLES: readonly PartTable[] = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles'];
 
 /**
