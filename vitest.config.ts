@@ -1,14 +1,17 @@
 import { defineConfig, type TestProjectInlineConfiguration } from 'vitest/config';
 import { svelte } from '@sveltejs/vite-plugin-svelte';
+import { RENDERER_ALIASES } from './vite.config';
 
 /**
- * The slow project: fuzzing, crash, power-cut and store-file reliability, and every test that
- * starts another process (the command line as a child, the launcher, Electron).
+ * The slow project: fuzzing, crash, power-cut and store-file reliability, the history's growth
+ * at scale, and every test that starts another process (the command line as a child, the
+ * launcher, Electron).
  */
 const SLOW = [
   'tests/fuzz/**/*.test.ts',
   'tests/reliability/**/*.test.ts',
   'tests/start/**/*.test.ts',
+  'tests/store/history-growth.test.ts',
   'tests/desktop/electron-runtime.test.ts',
   'tests/setup/test-needs.test.ts',
   'tests/cli/check.test.ts',
@@ -23,7 +26,7 @@ const watching = !argv.includes('run') && !argv.includes('--run') && !argv.some(
 export default defineConfig({
   plugins: [svelte({ configFile: false })],
   // Svelte 5 components resolve their browser build under test, not the server one.
-  resolve: { conditions: ['browser'] },
+  resolve: { conditions: ['browser'], alias: RENDERER_ALIASES },
   test: {
     environment: 'node',
     pool: 'forks',
