@@ -37,6 +37,8 @@ describe('the arrows of the architecture', () => {
     expect(problem('src-renderer/lib/a.ts', "import type { ApiOutput } from '$service/handlers';")).toEqual([null]);
     expect(problem('src-renderer/lib/a.ts', "import { handlers } from '$service/handlers';")).toEqual([expect.stringMatching(/only as `import type`/)]);
     expect(problem('src-renderer/lib/a.ts', "import { runWrite } from '$service/run-write';")).toEqual([expect.stringMatching(/only the service contract/)]);
+    expect(problem('src-renderer/lib/a.ts', "import { x } from '../../src-main/core/units';")).toEqual([expect.stringMatching(/through \$core/)]);
+    expect(problem('src-renderer/lib/a.ts', "import type { ApiError } from '../../src-main/service/contract';")).toEqual([expect.stringMatching(/through \$service/)]);
     expect(problem('src-renderer/lib/a.ts', "import { x } from '$core/units';")).toEqual([null]);
     expect(problem('src-renderer/views/A.svelte', "<script lang=\"ts\">\n  import { x } from '../../src-main/store/schema';\n</script>\n<p>x</p>")).toEqual([
       expect.stringMatching(/renderer may not import store/),

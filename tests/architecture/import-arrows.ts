@@ -131,6 +131,9 @@ export function arrowProblem(imp: FoundImport): string | null {
     if (!allowed) return `${what}: the page sees only the service contract, the handler types and the edge schemas`;
     if (allowed.typeOnly && !imp.typeOnly) return `${what}: only as \`import type\` (the page must not bundle it)`;
   }
+  // One spelling per target, so a move of the core or the service touches only the aliases.
+  if (fromLayer === 'renderer' && toLayer === 'core' && !imp.specifier.startsWith('$core/')) return `${what}: the page reaches the core through $core/…`;
+  if (fromLayer === 'renderer' && toLayer === 'service' && !imp.specifier.startsWith('$service/')) return `${what}: the page reaches the service contract through $service/…`;
   return null;
 }
 

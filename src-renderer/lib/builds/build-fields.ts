@@ -1,4 +1,4 @@
-import type { Build, Supply } from '../../../src-main/core/domain';
+import type { Build, Supply } from '$core/domain';
 import type { FieldDef } from '../parts/part-fields';
 
 // The build form's scalar fields. Gearing fields carry their nested path as the key, which is

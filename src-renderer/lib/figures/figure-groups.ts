@@ -1,7 +1,7 @@
-import type { Figures, VehicleKind } from '../../../src-main/core/domain';
-import type { DisplayQuantity, UnitSystem } from '../../../src-main/core/units';
+import type { Figures, VehicleKind } from '$core/domain';
+import type { DisplayQuantity, UnitSystem } from '$core/units';
 import { MISSING, fixed } from '../format/number';
-import { displayUnit, toDisplay } from '../../../src-main/core/units';
+import { displayUnit, toDisplay } from '$core/units';
 import { thrustAsMass } from '../format/units';
 
 export interface FigureDef {

@@ -1,4 +1,4 @@
-import { numberForInput } from '../../../src-main/core/number-text';
+import { numberForInput } from '$core/number-text';
 import { numberLocale } from './number-locale.svelte';
 
 // Numbers as the screens show them: a fixed count of decimals per figure, a thin space before

@@ -1,6 +1,6 @@
 import { PART_FIELDS } from '../parts/part-fields';
 import { fieldLabel } from '../forms/draft';
-import type { UnitSystem } from '../../../src-main/core/units';
+import type { UnitSystem } from '$core/units';
 
 // Plain names for the fields a history entry lists. Values in history are stored units, so
 // the unit named is the stored one (mm, kg, ohm), not the display preference.

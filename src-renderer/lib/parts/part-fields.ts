@@ -1,5 +1,5 @@
-import { CHEMISTRIES, DRIVE_LAYOUTS, VEHICLE_KINDS, WATER_TYPES } from '../../../src-main/core/domain';
-import type { DisplayQuantity } from '../../../src-main/core/units';
+import { CHEMISTRIES, DRIVE_LAYOUTS, VEHICLE_KINDS, WATER_TYPES } from '$core/domain';
+import type { DisplayQuantity } from '$core/units';
 import type { PartTable } from './part-kinds';
 
 // The form fields of each record kind, in the order a technician reads a spec sheet. Every

@@ -1,10 +1,10 @@
-import type { ApiError } from '../../../src-main/service/contract';
-import type { Build, BuildVerdict } from '../../../src-main/core/domain';
-import type { UnitSystem } from '../../../src-main/core/units';
+import type { ApiError } from '$service/contract';
+import type { Build, BuildVerdict } from '$core/domain';
+import type { UnitSystem } from '$core/units';
 import { asApiError, type Client } from '../api/client';
 import { draftChanges, draftToRecord, errorFieldKey, fieldLabel, messageForField, problemSummary, toDraft, type Draft } from '../forms/draft';
 import { draftProblems, type Problems } from '../forms/draft-problems';
-import { buildCreateSchema } from '../../../src-main/service/schemas/build-schemas';
+import { buildCreateSchema } from '$service/schemas/build-schemas';
 import type { PreviewRequest } from './over-confirm.svelte';
 import { BUILD_FIELD_LIST, GEARING_KEYS, flattenBuild, nestBuild, suppliesEqual, type SupplyDraft } from '../builds/build-fields';
 

@@ -1,6 +1,6 @@
-import type { Status, VehicleKind } from '../../../src-main/core/domain';
-import type { ServiceEvent } from '../../../src-main/service/contract';
-import { decodeColumns } from '../../../src-main/core/column-table';
+import type { Status, VehicleKind } from '$core/domain';
+import type { ServiceEvent } from '$service/contract';
+import { decodeColumns } from '$core/column-table';
 import { asApiError, type Client } from '../api/client';
 import type { BuildSummary } from '../builds/build-summary';
 import { DEFAULT_LIST_QUERY, type ListQuery } from '../builds/list-query';

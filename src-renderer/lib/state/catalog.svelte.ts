@@ -1,4 +1,4 @@
-import type { Battery, Controller, Motor, Propeller, Vehicle } from '../../../src-main/core/domain';
+import type { Battery, Controller, Motor, Propeller, Vehicle } from '$core/domain';
 import type { Client } from '../api/client';
 import type { PartTable } from '../parts/part-kinds';
 

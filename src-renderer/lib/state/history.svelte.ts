@@ -1,4 +1,4 @@
-import type { ApiInput, ApiOutput } from '../../../src-main/service/handlers';
+import type { ApiInput, ApiOutput } from '$service/handlers';
 import { asApiError, type Client } from '../api/client';
 
 export type HistoryEntry = ApiOutput<'history.list'>[number];

@@ -1,5 +1,5 @@
-import type { ApiError } from '../../../src-main/service/contract';
-import type { UnitSystem } from '../../../src-main/core/units';
+import type { ApiError } from '$service/contract';
+import type { UnitSystem } from '$core/units';
 import { asApiError, type Client } from '../api/client';
 import { draftChanges, draftToRecord, errorFieldKey, fieldLabel, messageForField, problemSummary, toDraft, type Draft } from '../forms/draft';
 import { PART_FIELDS, type FieldDef } from '../parts/part-fields';
@@ -7,7 +7,7 @@ import { partApi, type PartRecord, type PartWriteResult } from '../parts/part-ap
 import { PART_KINDS, type PartTable } from '../parts/part-kinds';
 import type { PreviewRequest } from './over-confirm.svelte';
 import { draftProblems, type Problems } from '../forms/draft-problems';
-import { partSchemasByTable } from '../../../src-main/service/schemas/part-schemas-by-table';
+import { partSchemasByTable } from '$service/schemas/part-schemas-by-table';
 
 const NEW_DEFAULTS: Readonly<Record<PartTable, Record<string, unknown>>> = {
   batteries: { chemistry: 'lipo', cellsSeries: 4, cellsParallel: 1, cycleCount: 0, retired: false, notes: '' },

@@ -1,12 +1,12 @@
-import type { ApiError } from '../../../src-main/service/contract';
-import type { BuildVerdict, Gearing } from '../../../src-main/core/domain';
-import type { UnitSystem } from '../../../src-main/core/units';
+import type { ApiError } from '$service/contract';
+import type { BuildVerdict, Gearing } from '$core/domain';
+import type { UnitSystem } from '$core/units';
 import { asApiError, type Client } from '../api/client';
 import type { BuildSheet } from './build-sheet.svelte';
 import { fromDraftValue, toDraftValue, errorFieldKey, messageForField, fieldLabel, problemSummary } from '../forms/draft';
 import { draftProblems, type Problems } from '../forms/draft-problems';
-import { gearingSchema } from '../../../src-main/service/schemas/build-schemas';
-import { partSchemasByTable } from '../../../src-main/service/schemas/part-schemas-by-table';
+import { gearingSchema } from '$service/schemas/build-schemas';
+import { partSchemasByTable } from '$service/schemas/part-schemas-by-table';
 import { BUILD_FIELDS, GEARING_KEYS } from '../builds/build-fields';
 import { PART_FIELDS, type FieldDef } from '../parts/part-fields';
 import { partApi } from '../parts/part-api';

@@ -1,4 +1,4 @@
-import type { Finding } from '../../../src-main/core/domain';
+import type { Finding } from '$core/domain';
 
 // What can happen when a figure is over, in the plain words a workshop poster would use.
 // The finding's own message says what to change; these say why it matters.
