@@ -11,8 +11,8 @@ import { formatNumber, formatPercent, JSON_SIGNIFICANT_DIGITS, roundSignificant 
 export const OVER_CAUTION =
   "Over means a part is used past its rating: it can overheat or fail, and a lithium pack can swell and catch fire. Before running it, follow the part maker's ratings and manuals and your local rules.";
 
-/** The finding fields the check output carries, in this order. */
-const FINDING_FIELDS = ['rule', 'status', 'value', 'limit', 'unit', 'margin', 'message'] as const;
+/** The finding fields the check output carries. */
+type FindingField = 'rule' | 'status' | 'value' | 'limit' | 'unit' | 'margin' | 'message';
 
 
 export interface CheckJson {
@@ -26,7 +26,7 @@ export interface CheckJson {
       batteryIds: string[];
       status: Status;
       figures: Figures;
-      findings: Pick<Finding, (typeof FINDING_FIELDS)[number]>[];
+      findings: Pick<Finding, FindingField>[];
       packShares: PackShare[];
       assumptions: string[];
     }[];

@@ -1,7 +1,7 @@
 import type { ParseArgsConfig } from 'node:util';
 import { FILE_ENCODINGS, type FileEncoding } from '../service/fleet/decode-file-bytes';
 import { CliFailure, type CliIo } from './cli-io';
-import { EXIT } from './exit-codes';
+import { EXIT } from '../shell-common/exit-codes';
 
 export type OptionSpec = NonNullable<ParseArgsConfig['options']>;
 

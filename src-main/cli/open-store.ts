@@ -2,9 +2,10 @@ import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { ApiError } from '../service/contract';
 import { AUTO_BACKUPS_KEPT, openServiceHost } from '../service/open-service-host';
+import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import { resolveDbPath } from '../store/data-location';
 import { CliFailure, type CliIo } from './cli-io';
-import { EXIT } from './exit-codes';
+import { EXIT } from '../shell-common/exit-codes';
 import { progressPrinter } from './progress-line';
 import { describeStorageError } from '../store/storage-errors';
 import { isPostgresUrl, redactUrl, withoutSecret } from '../store/store-location';
@@ -51,7 +52,7 @@ export async function withStore<T>(io: CliIo, dbPath: string, options: StoreOpti
   if (options.mustExist && !existed) throw new CliFailure(EXIT.store, `There is no store at ${dbPath} (give another with --db PATH or RIGBOOK_DB).`);
   let host: Host;
   try {
-    host = await openServiceHost({ dbPath, ...(options.autoBackup ? { autoBackup: { keep: AUTO_BACKUPS_KEPT, minIntervalHours: 0 } } : {}) });
+    host = await openServiceHost({ dbPath, demoFleet, ...(options.autoBackup ? { autoBackup: { keep: AUTO_BACKUPS_KEPT, minIntervalHours: 0 } } : {}) });
   } catch (error) {
     const storage = describeStorageError(error, dbPath);
     const cause = withoutSecret(error instanceof Error ? error.message : String(error), dbPath);

@@ -2,7 +2,7 @@ import { readFileSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { decodeFileBytes, type FileEncoding } from '../service/fleet/decode-file-bytes';
 import { CliFailure, type CliIo } from './cli-io';
-import { EXIT } from './exit-codes';
+import { EXIT } from '../shell-common/exit-codes';
 
 export interface InputFile {
   /** How messages name it: the argument as the person typed it, or "standard input" for `-`. */

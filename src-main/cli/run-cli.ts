@@ -7,7 +7,7 @@ import { demoCommand } from './commands/demo';
 import { exportCommand } from './commands/export';
 import { importCommand } from './commands/import';
 import { restoreCommand } from './commands/restore';
-import { EXIT, EXIT_CODES_HELP } from './exit-codes';
+import { EXIT, EXIT_CODES_HELP } from '../shell-common/exit-codes';
 import { storePath } from './open-store';
 import { describeStorageError } from '../store/storage-errors';
 import { RIGBOOK_VERSION } from './version';

@@ -3,7 +3,7 @@ import { basename, dirname, join, resolve } from 'node:path';
 import { storeFileClash } from '../store/file-identity';
 import { describeStorageError } from '../store/storage-errors';
 import { CliFailure, type CliIo } from './cli-io';
-import { EXIT } from './exit-codes';
+import { EXIT } from '../shell-common/exit-codes';
 
 /**
  * Writes beside the target and renames, so an interrupted export never leaves half a file.

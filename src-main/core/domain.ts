@@ -66,7 +66,7 @@ export interface Supply {
   batteryIds: string[];
 }
 
-export interface Gearing extends RecordOf<typeof GEARING_FIELDS> {}
+export type Gearing = RecordOf<typeof GEARING_FIELDS>;
 
 export interface Build extends RecordMeta, RecordOf<typeof BUILD_FIELDS> {}
 

@@ -3,7 +3,7 @@
 
 import type { BuildInputs } from './build-inputs';
 import { groundOperatingPoint } from './ground-operating-point';
-import { lacking, type Known } from './known';
+import type { Known } from './known';
 import { allOf, baseNeeds, lackingAll, type Operation } from './operation';
 import { propellerOperatingPoint } from './propeller-operating-point';
 import type { SupplyModel } from './supply';

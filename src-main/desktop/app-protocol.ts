@@ -1,7 +1,7 @@
 import { readFile } from 'node:fs/promises';
 import { protocol } from 'electron';
-import { CONTENT_SECURITY_POLICY } from '../local/content-security-policy';
-import { contentTypeFor } from '../local/content-type';
+import { CONTENT_SECURITY_POLICY } from '../shell-common/content-security-policy';
+import { contentTypeFor } from '../shell-common/content-type';
 import { resolveAppFile } from './protocol-path';
 import { APP_SCHEME } from './url-policy';
 

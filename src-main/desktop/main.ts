@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import { app, BrowserWindow, dialog, ipcMain, Menu, session } from 'electron';
 import type { ServiceHost } from '../service/contract';
 import { AUTO_BACKUP_AFTER_START_MS, AUTO_BACKUPS_KEPT, openServiceHost } from '../service/open-service-host';
+import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import { defaultDataDir } from '../store/data-location';
 import { handleAppProtocol, registerAppScheme } from './app-protocol';
 import { backUpInteractively } from './back-up';
@@ -78,7 +79,7 @@ function run(dbPath: string): void {
     .then(async () => {
       denyAllPermissions(session.defaultSession);
       handleAppProtocol(RENDERER_DIR);
-      const opened = await openServiceHost({ dbPath, autoBackup: { keep: AUTO_BACKUPS_KEPT, afterStartMs: AUTO_BACKUP_AFTER_START_MS } });
+      const opened = await openServiceHost({ dbPath, demoFleet, autoBackup: { keep: AUTO_BACKUPS_KEPT, afterStartMs: AUTO_BACKUP_AFTER_START_MS } });
       host = opened;
       wireIpc(opened);
       Menu.setApplicationMenu(

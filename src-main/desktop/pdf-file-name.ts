@@ -5,7 +5,6 @@ const MAX_STEM = 100;
 
 export function pdfFileName(suggested: string | undefined): string {
   const cleaned = (suggested ?? '')
-    // eslint-disable-next-line no-control-regex
     .replace(/[\u0000-\u001f\u007f<>:"/\\|?*]+/g, '-')
     .replace(/\s+/g, ' ')
     .replace(/\.pdf$/i, '')

@@ -2,7 +2,7 @@
 // with two functions; neither ipcRenderer nor the IPC event object reaches the page.
 import { contextBridge, ipcRenderer, type IpcRendererEvent } from 'electron';
 import type { CallResult, ServiceEvent } from '../service/contract';
-import { BRIDGE_KEY, type RigbookBridge } from './bridge-api';
+import { BRIDGE_KEY, type RigbookBridge } from '../service/bridge-api';
 import { CALL_CHANNEL, EVENT_CHANNEL } from './channels';
 
 const bridge = {

@@ -3,7 +3,7 @@ import { join } from 'node:path';
 import { app, BrowserWindow, dialog, type WebContents } from 'electron';
 import * as v from 'valibot';
 import type { CallResult } from '../service/contract';
-import type { ShellCalls } from './bridge-api';
+import type { ShellCalls } from '../service/bridge-api';
 import { pdfFileName } from './pdf-file-name';
 import { storeFileClash } from '../store/file-identity';
 

@@ -1,6 +1,6 @@
 import path from 'node:path';
 import { isAppUrl } from './url-policy';
-import { resolveRequestPath, type ResolvedAppFile } from '../local/static-path';
+import { resolveRequestPath, type ResolvedAppFile } from '../shell-common/static-path';
 
 export type { ResolvedAppFile };
 

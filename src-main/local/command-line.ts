@@ -1,5 +1,5 @@
 import { parseArgs } from 'node:util';
-import { EXIT } from '../cli/exit-codes';
+import { EXIT } from '../shell-common/exit-codes';
 
 export const LOCAL_HELP = `Usage: node dist-main/local-main.cjs [--db PATH] [--port N]
 

@@ -2,7 +2,7 @@ import { randomBytes } from 'node:crypto';
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import type { ServiceHost } from '../service/contract';
-import { CONTENT_SECURITY_POLICY } from './content-security-policy';
+import { CONTENT_SECURITY_POLICY } from '../shell-common/content-security-policy';
 import { hostAllowed, originAllowed, tokenMatches } from './request-guard';
 import { readStatic } from './static-files';
 import { pageCallRefusal } from '../service/page-call-policy';

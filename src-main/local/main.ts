@@ -2,9 +2,10 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { resolveDbPath } from '../store/data-location';
 import { AUTO_BACKUP_AFTER_START_MS, AUTO_BACKUPS_KEPT, openServiceHost } from '../service/open-service-host';
+import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import { startLocalServer } from './local-server';
 import { LOCAL_HELP, parseLocalArgs } from './command-line';
-import { EXIT } from '../cli/exit-codes';
+import { EXIT } from '../shell-common/exit-codes';
 import { describeStorageError } from '../store/storage-errors';
 import { redactUrl, withoutSecret } from '../store/store-location';
 
@@ -32,7 +33,7 @@ async function main(): Promise<void> {
   const { port } = command;
   const dbPath = resolveDbPath(command.db);
   chosenStore = dbPath;
-  const host = await openServiceHost({ dbPath, autoBackup: { keep: AUTO_BACKUPS_KEPT, afterStartMs: AUTO_BACKUP_AFTER_START_MS } });
+  const host = await openServiceHost({ dbPath, demoFleet, autoBackup: { keep: AUTO_BACKUPS_KEPT, afterStartMs: AUTO_BACKUP_AFTER_START_MS } });
   const server = await startLocalServer({ host, rendererDir: rendererDir(), port, token: process.env.RIGBOOK_TOKEN });
   process.stdout.write(`Rigbook is serving on ${server.url} (this computer only)\nStore: ${redactUrl(dbPath)}\nOpen: ${server.openUrl}\n`);
   const stop = async () => {

@@ -5,11 +5,6 @@ import { timingSafeEqual } from 'node:crypto';
 // address (defeats DNS rebinding), a browser's Origin must be our own (defeats cross-site
 // posts), and every API call must carry the token printed at start (defeats everything else).
 
-export interface GuardConfig {
-  port: number;
-  token: string;
-}
-
 export function allowedHosts(port: number): string[] {
   return [`127.0.0.1:${port}`, `localhost:${port}`];
 }

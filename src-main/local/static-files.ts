@@ -1,6 +1,6 @@
 import { readFile } from 'node:fs/promises';
-import { contentTypeFor } from './content-type';
-import { resolveRequestPath } from './static-path';
+import { contentTypeFor } from '../shell-common/content-type';
+import { resolveRequestPath } from '../shell-common/static-path';
 
 export async function readStatic(rootDir: string, urlPath: string): Promise<{ body: Buffer; type: string } | null> {
   const resolved = resolveRequestPath(rootDir, urlPath);

@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { userInfo } from 'node:os';
-import { openStore } from '../store/open-database';
+import { openStore, type OpenedStore } from '../store/open-database';
 import { backupFolderFor, newestRollingBackupAt, rollingBackup } from '../store/backup';
 import type { EventListener, ServiceEvent, ServiceHost } from './contract';
 import { dispatch } from './dispatch';
@@ -29,6 +29,8 @@ export interface HostOptions {
    * off the path to the first paint; `autoBackupDone` then says where it went.
    */
   autoBackup?: { keep: number; minIntervalHours?: number; afterStartMs?: number };
+  /** The fleet `demo.load` offers; the shells pass the invented demo, so production service code never imports fixtures. */
+  demoFleet?: () => unknown;
 }
 
 export function randomId(prefix: string): string {
@@ -49,7 +51,7 @@ export const AUTO_BACKUPS_KEPT = 5;
 /** How long after start the shells take that copy: after the window's first list, off its path. */
 export const AUTO_BACKUP_AFTER_START_MS = 5000;
 
-export type OpenedServiceHost = ServiceHost & { ctx: ServiceContext; autoBackupPath: string | null; autoBackupDone: Promise<string | null> };
+export type OpenedServiceHost = ServiceHost & { ctx: ServiceContext; raw: OpenedStore['raw'] | null; autoBackupPath: string | null; autoBackupDone: Promise<string | null> };
 
 /** Opens the store (migrating it) and returns the one surface both shells and the command line use. */
 export async function openServiceHost(options: HostOptions): Promise<OpenedServiceHost> {
@@ -110,11 +112,13 @@ export async function openServiceHost(options: HostOptions): Promise<OpenedServi
     newId: options.newId ?? randomId,
     raw: store.raw,
     ...(storeFile ? { storeFile } : {}),
+    ...(options.demoFleet ? { demoFleet: options.demoFleet } : {}),
     emit: (event) => tell(listeners, event),
   };
   await recheckIfEngineChanged(ctx);
   return {
     ctx,
+    raw: store.raw,
     autoBackupPath,
     autoBackupDone,
     dbPath: store.path,
@@ -162,6 +166,7 @@ async function openPostgresServiceHost(options: HostOptions): Promise<OpenedServ
     db: store.db,
     engine: 'postgres',
     actor: options.actor ?? osUser(),
+    ...(options.demoFleet ? { demoFleet: options.demoFleet } : {}),
     now: options.now ?? (() => new Date()),
     newId: options.newId ?? randomId,
     emit: (event) => {
@@ -179,6 +184,7 @@ async function openPostgresServiceHost(options: HostOptions): Promise<OpenedServ
   const openFeed = feed;
   return {
     ctx,
+    raw: null,
     autoBackupPath: null,
     autoBackupDone: Promise.resolve(null),
     dbPath: store.label,

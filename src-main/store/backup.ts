@@ -3,6 +3,7 @@
 // it may replace the store.
 
 import Database from 'better-sqlite3';
+import type { SqliteFileHandle } from './sqlite-file-handle';
 import { closeSync, existsSync, fsyncSync, mkdirSync, openSync, readdirSync, readSync, renameSync, rmSync, statSync } from 'node:fs';
 import { storeFileClash } from './file-identity';
 import { basename, dirname, join } from 'node:path';
@@ -40,7 +41,7 @@ export function settleCopy(path: string): string {
  * only then renamed into place, so a failed backup never leaves a half file or spoils an
  * older backup of the same name.
  */
-export async function backUpStore(raw: Database.Database, destination: string, onProgress?: (done: number, total: number) => void): Promise<{ path: string; bytes: number }> {
+export async function backUpStore(raw: SqliteFileHandle, destination: string, onProgress?: (done: number, total: number) => void): Promise<{ path: string; bytes: number }> {
   refuseStoreFile(destination, raw.name);
   mkdirSync(dirname(destination), { recursive: true });
   const partial = join(dirname(destination), `.${basename(destination)}.partial-${process.pid}`);
@@ -182,7 +183,7 @@ export function newestRollingBackupAt(folder: string): Date | null {
 }
 
 /** A copy at start, keeping the newest `keep` of them; older automatic copies are removed, nothing else is. */
-export async function rollingBackup(raw: Database.Database, folder: string, keep: number, now = new Date()): Promise<string> {
+export async function rollingBackup(raw: SqliteFileHandle, folder: string, keep: number, now = new Date()): Promise<string> {
   const path = join(folder, `${AUTO_BACKUP_PREFIX}${timestampForFile(now)}.sqlite`);
   await backUpStore(raw, path);
   const autos = readdirSync(folder)

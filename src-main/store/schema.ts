@@ -1,4 +1,4 @@
-import type { Generated, Insertable, Selectable, Updateable } from 'kysely';
+import type { Generated, Insertable, Selectable } from 'kysely';
 import type { BATTERY_FIELDS } from '../core/catalogue/battery-fields';
 import type { BUILD_FIELDS, GEARING_FIELDS } from '../core/catalogue/build-fields';
 import type { CONTROLLER_FIELDS } from '../core/catalogue/controller-fields';
@@ -144,23 +144,9 @@ export interface Db {
   settings: SettingTable;
 }
 
-export type BatteryRow = Selectable<BatteryTable>;
-export type NewBatteryRow = Insertable<BatteryTable>;
-export type BatteryPatch = Updateable<BatteryTable>;
-export type MotorRow = Selectable<MotorTable>;
-export type ControllerRow = Selectable<ControllerTable>;
-export type PropellerRow = Selectable<PropellerTable>;
-export type VehicleRow = Selectable<VehicleTable>;
-export type ClassRuleRow = Selectable<ClassRuleTable>;
 export type BuildRow = Selectable<BuildTable>;
-export type NewBuildRow = Insertable<BuildTable>;
-export type BuildPatch = Updateable<BuildTable>;
-export type SupplyRow = Selectable<SupplyTable>;
-export type SupplyPackRow = Selectable<SupplyPackTable>;
-export type VerdictRow = Selectable<VerdictTable>;
 export type NewVerdictRow = Insertable<VerdictTable>;
 export type HistoryRow = Selectable<HistoryTable>;
-export type NewHistoryRow = Insertable<HistoryTable>;
 
 /** The part tables that share one shape of repository. */
 export type PartTableName = 'batteries' | 'motors' | 'controllers' | 'propellers' | 'vehicles' | 'classRules';

@@ -1,6 +1,7 @@
 import { writeFileSync } from 'node:fs';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { openServiceHost } from '../../src-main/service/open-service-host';
+import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import { dumpStore } from '../fleet/store-dump';
 import { generateFleet } from '../../demo-fixtures/generate-fleet';
 import { tempDir } from '../helpers/temp-dir';
@@ -20,7 +21,7 @@ vi.mock('../../src-main/service/open-service-host', async (importOriginal) => {
     ...real,
     openServiceHost: async (options: Parameters<typeof real.openServiceHost>[0]) => {
       const host = await real.openServiceHost(options);
-      if (state.fullStore) host.ctx.raw!.pragma(`max_page_count = ${Number(host.ctx.raw!.pragma('page_count', { simple: true })) + 4}`);
+      if (state.fullStore) host.raw!.pragma(`max_page_count = ${Number(host.raw!.pragma('page_count', { simple: true })) + 4}`);
       return host;
     },
   };
@@ -46,14 +47,14 @@ async function storeWithDemo(): Promise<{ dir: string; store: string }> {
   const t = tempDir('rigbook-cli-full-');
   temps.push(t.remove);
   const store = t.file('rigbook.sqlite');
-  const host = await openServiceHost({ dbPath: store, actor: 'tester' });
+  const host = await openServiceHost({ demoFleet, dbPath: store, actor: 'tester' });
   await host.call('demo.load', {});
   await host.close();
   return { dir: t.dir, store };
 }
 
 async function dumpOf(store: string) {
-  const host = await openServiceHost({ dbPath: store, actor: 'tester' });
+  const host = await openServiceHost({ demoFleet, dbPath: store, actor: 'tester' });
   try {
     return await dumpStore(host.ctx.db);
   } finally {

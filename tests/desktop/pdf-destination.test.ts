@@ -2,6 +2,7 @@ import { readFileSync, symlinkSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { openServiceHost } from '../../src-main/service/open-service-host';
+import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import { tempDir } from '../helpers/temp-dir';
 
 // The build sheet's PDF is written where the shell's save dialog says. The dialog is the OS's
@@ -26,7 +27,7 @@ describe('desktop.printToPdf destination', () => {
     const t = tempDir('rigbook-pdf-');
     temps.push(t.remove);
     const store = t.file('rigbook.sqlite');
-    const host = await openServiceHost({ dbPath: store, actor: 'tester' });
+    const host = await openServiceHost({ dbPath: store, actor: 'tester', demoFleet });
     await host.call('demo.load', {});
     await host.close();
     const before = readFileSync(store);

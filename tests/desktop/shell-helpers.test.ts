@@ -1,7 +1,7 @@
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { dbPathFromArgv } from '../../src-main/desktop/command-line';
-import { contentTypeFor } from '../../src-main/local/content-type';
+import { contentTypeFor } from '../../src-main/shell-common/content-type';
 import { menuTemplate } from '../../src-main/desktop/menu';
 import { pdfFileName } from '../../src-main/desktop/pdf-file-name';
 import { defaultDataDir } from '../../src-main/store/data-location';

@@ -1,4 +1,4 @@
-import { test, expect, SCREENSHOT_DIR } from './local-shell';
+import { test, expect } from './local-shell';
 import { openApp } from './app-helpers';
 
 test('add a pack through its form, see it listed, reload, still there', async ({ page, shell }) => {

@@ -3,6 +3,7 @@ import { existsSync, readdirSync, readFileSync, writeFileSync, copyFileSync } fr
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import { openServiceHost } from '../../src-main/service/open-service-host';
+import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import { backUpStore, checkStoreFile, rollingBackup } from '../../src-main/store/backup';
 import { lockStore, RestoreRefused } from '../../src-main/store/restore-file';
 import { restoreStore } from '../../src-main/service/restore-store';
@@ -85,7 +86,7 @@ describe('store.backup', () => {
 
 describe('restore', () => {
   async function storeWithRecords(file: string) {
-    const host = await openServiceHost({ dbPath: file, actor: 'tester' });
+    const host = await openServiceHost({ demoFleet, dbPath: file, actor: 'tester' });
     await host.call('demo.load', {});
     await host.close();
   }
@@ -95,7 +96,7 @@ describe('restore', () => {
     const backup = t.file('backup.sqlite');
     await storeWithRecords(backup);
     const target = t.file('rigbook.sqlite');
-    const host = await openServiceHost({ dbPath: target, actor: 'tester' });
+    const host = await openServiceHost({ demoFleet, dbPath: target, actor: 'tester' });
     await host.call('batteries.create', { name: 'Only in the old store', chemistry: 'lipo', cellsSeries: 2, capacityMah: 3000 });
     await host.close();
 
@@ -173,7 +174,7 @@ describe('rolling backup at start', () => {
   it('keeps the newest few copies in backups/ beside the store and removes only older automatic ones', async () => {
     const t = temp();
     const file = t.file('rigbook.sqlite');
-    const first = await openServiceHost({ dbPath: file, autoBackup: { keep: 3 } });
+    const first = await openServiceHost({ demoFleet, dbPath: file, autoBackup: { keep: 3 } });
     // A store created just now is not copied.
     expect(first.autoBackupPath).toBeNull();
     expect(await first.call('demo.load', {})).toMatchObject({ ok: true });
@@ -188,7 +189,7 @@ describe('rolling backup at start', () => {
     expect(names).toEqual(['auto-2026-01-04T00-00-00-000Z.sqlite', 'auto-2026-01-05T00-00-00-000Z.sqlite', 'auto-2026-01-06T00-00-00-000Z.sqlite', 'rigbook-manual.sqlite']);
     expect(count(join(t.dir, 'backups', names[0]!), 'builds')).toBe(16);
 
-    const again = await openServiceHost({ dbPath: file, autoBackup: { keep: 3 } });
+    const again = await openServiceHost({ demoFleet, dbPath: file, autoBackup: { keep: 3 } });
     expect(again.autoBackupPath).not.toBeNull();
     expect(checkStoreFile(again.autoBackupPath!)).toMatchObject({ ok: true });
     await again.close();
@@ -198,7 +199,7 @@ describe('rolling backup at start', () => {
     const t = temp();
     const file = t.file('rigbook.sqlite');
     let clock = new Date('2026-12-02T08:00:00Z');
-    const open = () => openServiceHost({ dbPath: file, autoBackup: { keep: 5 }, now: () => clock });
+    const open = () => openServiceHost({ demoFleet, dbPath: file, autoBackup: { keep: 5 }, now: () => clock });
     const first = await open();
     expect(await first.call('demo.load', {})).toMatchObject({ ok: true });
     await first.close();

@@ -4,6 +4,8 @@ import type { Status } from '../../src-main/core/domain';
 import type { FleetFile } from '../../src-main/service/fleet/fleet-format';
 import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import { forEachEngine } from '../helpers/store-engines';
+import { openServiceHost } from '../../src-main/service/open-service-host';
+import { tempDir } from '../helpers/temp-dir';
 
 let f: ServiceFixture;
 forEachEngine((engine) => {
@@ -124,5 +126,18 @@ forEachEngine((engine) => {
       expect(merged.ok).toBe(true);
       expect((await f.call('builds.list', { includeArchived: true })).length).toBe(2 + Object.keys(EXPECTED).length);
     });
+  });
+
+  it('comes from the shell: a host opened without a demo fleet refuses and writes nothing', async () => {
+    const temp = tempDir();
+    const host = await openServiceHost({ dbPath: temp.file('store.sqlite'), actor: 'tester' });
+    try {
+      const result = await host.call('demo.load', {});
+      expect(result).toMatchObject({ ok: false, error: { kind: 'not-found' } });
+      expect(await host.call('builds.list', {})).toEqual({ ok: true, value: [] });
+    } finally {
+      await host.close();
+      temp.remove();
+    }
   });
 });

@@ -136,7 +136,7 @@ describe('ids a spreadsheet cannot mangle', () => {
   it('a row whose id matches no record but equals a stored id as a number (001 vs 1) is refused with that hint, never added', async () => {
     const pack = await f.call('batteries.create', { name: 'Old club pack', chemistry: 'lipo', cellsSeries: 2, capacityMah: 4000 });
     // A store from before ids had to start with a letter.
-    f.host.ctx.raw!.prepare('update batteries set id = ? where id = ?').run('001', pack.id);
+    f.host.raw!.prepare('update batteries set id = ? where id = ?').run('001', pack.id);
     const { text } = await f.call('fleet.exportCsv', { kind: 'batteries' });
     expect(text).toContain('\r\n001,Old club pack,');
     const before = await dumpStore(f.db);

@@ -1,4 +1,5 @@
 import { openServiceHost } from '../../src-main/service/open-service-host';
+import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import type { ApiInput, ApiOutput, HandlerName } from '../../src-main/service/handlers';
 import type { ApiError, ServiceEvent } from '../../src-main/service/contract';
 import { SQLITE, type StoreEngine } from './store-engines';
@@ -12,6 +13,7 @@ export async function serviceFixture(engine: StoreEngine = SQLITE) {
   const host = await openServiceHost({
     dbPath,
     actor: 'tester',
+    demoFleet,
     now: () => new Date((tick += 1000)),
     newId: (prefix) => `${prefix}-${++seq}`,
   });

@@ -2,7 +2,7 @@ import { EventEmitter } from 'node:events';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
-import { CONTENT_SECURITY_POLICY } from '../../src-main/local/content-security-policy';
+import { CONTENT_SECURITY_POLICY } from '../../src-main/shell-common/content-security-policy';
 import { tempDir } from '../helpers/temp-dir';
 
 // What tests/desktop does not cover yet: the content of the one CSP both shells send, the

@@ -84,7 +84,7 @@ describe('durability', () => {
     const t = tempDir('rigbook-pragmas-');
     const host = await openServiceHost({ dbPath: t.file('store.sqlite'), actor: 'tester' });
     try {
-      const raw = host.ctx.raw!;
+      const raw = host.raw!;
       // Read back from SQLite, not from the code that sets them: 2 is FULL.
       expect(raw.pragma('journal_mode', { simple: true })).toBe('wal');
       expect(raw.pragma('synchronous', { simple: true })).toBe(2);

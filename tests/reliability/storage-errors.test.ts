@@ -44,8 +44,8 @@ async function soundAndUnchanged(host: Host, before: Record<string, unknown[]>):
 
 /** Leaves the store a few pages to grow: SQLite then fails a large write with SQLITE_FULL, as on a full disk. */
 function nearlyFull(host: Host): void {
-  const pages = Number(host.ctx.raw!.pragma('page_count', { simple: true }));
-  host.ctx.raw!.pragma(`max_page_count = ${pages + 4}`);
+  const pages = Number(host.raw!.pragma('page_count', { simple: true }));
+  host.raw!.pragma(`max_page_count = ${pages + 4}`);
 }
 
 describe('disk full', () => {
@@ -86,10 +86,10 @@ describe('read-only store', () => {
     const host = await seeded(t.file('rigbook.sqlite'));
     const before = await dumpStore(host.ctx.db);
     // SQLite's own read-only switch: writes fail with SQLITE_READONLY, as on a read-only file.
-    host.ctx.raw!.pragma('query_only = 1');
+    host.raw!.pragma('query_only = 1');
     const result = await host.call('batteries.create', { name: 'Not saved', chemistry: 'lipo', cellsSeries: 2, capacityMah: 2000 });
     expect(result).toMatchObject({ ok: false, error: { kind: 'read-only', message: expect.stringMatching(/cannot be written: the file or its folder is read-only/) } });
-    host.ctx.raw!.pragma('query_only = 0');
+    host.raw!.pragma('query_only = 0');
     await soundAndUnchanged(host, before);
   });
 });

@@ -2,6 +2,7 @@ import { existsSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import { openServiceHost } from '../../src-main/service/open-service-host';
+import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import { checkStoreFile } from '../../src-main/store/backup';
 import { tempDir } from '../helpers/temp-dir';
 
@@ -13,11 +14,11 @@ describe('the copy at start, taken after the start', () => {
     const t = tempDir();
     temps.push(t);
     const file = t.file('rigbook.sqlite');
-    const first = await openServiceHost({ dbPath: file });
+    const first = await openServiceHost({ demoFleet, dbPath: file });
     expect(await first.call('demo.load', {})).toMatchObject({ ok: true });
     await first.close();
 
-    const host = await openServiceHost({ dbPath: file, autoBackup: { keep: 5, afterStartMs: 50 } });
+    const host = await openServiceHost({ demoFleet, dbPath: file, autoBackup: { keep: 5, afterStartMs: 50 } });
     // Open and answering before any copy exists: the copy is off the path to the first list.
     expect(host.autoBackupPath).toBeNull();
     expect(existsSync(join(t.dir, 'backups'))).toBe(false);
@@ -32,9 +33,9 @@ describe('the copy at start, taken after the start', () => {
     const t = tempDir();
     temps.push(t);
     const file = t.file('rigbook.sqlite');
-    const first = await openServiceHost({ dbPath: file });
+    const first = await openServiceHost({ demoFleet, dbPath: file });
     await first.close();
-    const host = await openServiceHost({ dbPath: file, autoBackup: { keep: 5, afterStartMs: 60_000 } });
+    const host = await openServiceHost({ demoFleet, dbPath: file, autoBackup: { keep: 5, afterStartMs: 60_000 } });
     await host.close();
     expect(await host.autoBackupDone).toBeNull();
     expect(existsSync(join(t.dir, 'backups')) ? readdirSync(join(t.dir, 'backups')) : []).toEqual([]);

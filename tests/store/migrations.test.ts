@@ -1,6 +1,5 @@
 import Database from 'better-sqlite3';
 import { existsSync } from 'node:fs';
-// eslint-disable-next-line @typescript-eslint/no-explicit-any -- any database: the names are read from sqlite_master
 import { Migrator, sql, type Kysely, type Migration } from "kysely";
 import { afterEach, describe, expect, it } from 'vitest';
 import { openStore } from '../../src-main/store/open-database';
@@ -15,6 +14,7 @@ function fresh() {
 }
 afterEach(() => temps.splice(0).forEach((t) => t.remove()));
 
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- any database: the names are read from sqlite_master
 async function tableNames(db: Kysely<any>): Promise<string[]> {
   const rows = await sql<{ name: string }>`select name from sqlite_master where type = 'table' and name not like 'sqlite_%' and name not like 'kysely_%' order by name`.execute(db);
   return rows.rows.map((r) => r.name);

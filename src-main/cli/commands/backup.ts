@@ -3,7 +3,7 @@ import { resolve } from 'node:path';
 import { backupFolderFor } from '../../store/backup';
 import { timestampForFile } from '../../store/open-database';
 import { flagValue, type Command } from '../command';
-import { EXIT } from '../exit-codes';
+import { EXIT } from '../../shell-common/exit-codes';
 import { callOrFail, refuseUnlessFile, withStore } from '../open-store';
 
 export const backupCommand: Command = {

@@ -4,7 +4,7 @@ import { inspectFleet } from '../../service/fleet/inspect-fleet';
 import { readJsonText } from '../../service/fleet/read-fleet-text';
 import { checkJson, checkText } from '../check-output';
 import { encodingOption, ENCODING_HELP, flagValue, type Command } from '../command';
-import { EXIT } from '../exit-codes';
+import { EXIT } from '../../shell-common/exit-codes';
 import { readInputFile } from '../read-input-file';
 import { JSON_SIGNIFICANT_DIGITS, TEXT_SIGNIFICANT_DIGITS } from '../format-number';
 

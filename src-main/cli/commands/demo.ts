@@ -1,6 +1,6 @@
 import type { ImportReport } from '../../service/fleet/import-fleet';
 import { flagValue, type Command } from '../command';
-import { EXIT } from '../exit-codes';
+import { EXIT } from '../../shell-common/exit-codes';
 import { importReportText } from '../import-report-text';
 import { callOrFail, withStore } from '../open-store';
 

@@ -3,7 +3,7 @@ import { fleetText } from '../../service/fleet/export-fleet';
 import { CSV_KIND_NAMES } from '../../service/fleet/csv-columns';
 import { CliFailure } from '../cli-io';
 import { textValue, type Command } from '../command';
-import { EXIT } from '../exit-codes';
+import { EXIT } from '../../shell-common/exit-codes';
 import { callOrFail, withStore } from '../open-store';
 import { writeOutputFile } from '../write-output-file';
 import { countOf } from '../import-report-text';

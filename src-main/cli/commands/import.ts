@@ -2,7 +2,7 @@ import type { ImportReport } from '../../service/fleet/import-fleet';
 import { CSV_KIND_ALIASES, CSV_KIND_NAMES, type CsvKindName } from '../../service/fleet/csv-columns';
 import { CliFailure } from '../cli-io';
 import { encodingOption, ENCODING_HELP, flagValue, textValue, type Command } from '../command';
-import { EXIT } from '../exit-codes';
+import { EXIT } from '../../shell-common/exit-codes';
 import { importReportText, problemsText } from '../import-report-text';
 import { AUTO_BACKUPS_KEPT, callOrFail, withStore } from '../open-store';
 import { backupFolderFor, rollingBackup } from '../../store/backup';

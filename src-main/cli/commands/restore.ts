@@ -4,7 +4,7 @@ import { RestoreRefused } from '../../store/restore-file';
 import { describeStorageError } from '../../store/storage-errors';
 import { CliFailure } from '../cli-io';
 import { flagValue, type Command } from '../command';
-import { EXIT } from '../exit-codes';
+import { EXIT } from '../../shell-common/exit-codes';
 import { refuseUnlessFile } from '../open-store';
 
 export const restoreCommand: Command = {

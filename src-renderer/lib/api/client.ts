@@ -1,6 +1,6 @@
-import type { ApiError, ServiceEvent } from '../../../src-main/service/contract';
-import type { ApiInput, ApiOutput, HandlerName } from '../../../src-main/service/handlers';
-import type { ShellCalls } from '../../../src-main/desktop/bridge-api';
+import type { ApiError, ServiceEvent } from '$service/contract';
+import type { ApiInput, ApiOutput, HandlerName } from '$service/handlers';
+import type { ShellCalls } from '$service/bridge-api';
 import type { Transport } from './transport';
 
 /** A failed call, carrying the field the service named so a form can show it beside the input. */

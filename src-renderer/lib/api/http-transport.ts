@@ -1,4 +1,4 @@
-import type { CallResult, ServiceEvent } from '../../../src-main/service/contract';
+import type { CallResult, ServiceEvent } from '$service/contract';
 import type { Transport } from './transport';
 
 const TOKEN_KEY = 'rigbook.token';

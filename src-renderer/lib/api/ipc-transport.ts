@@ -1,4 +1,4 @@
-import type { RigbookBridge } from '../../../src-main/desktop/bridge-api';
+import type { RigbookBridge } from '$service/bridge-api';
 import type { Transport } from './transport';
 
 export function ipcTransport(bridge: RigbookBridge): Transport {

@@ -1,4 +1,4 @@
-import type { CallResult, ServiceEvent } from '../../../src-main/service/contract';
+import type { CallResult, ServiceEvent } from '$service/contract';
 
 /** How the renderer reaches the handler map: IPC in the desktop shell, HTTP on loopback. */
 export interface Transport {

@@ -1,6 +1,6 @@
 import * as v from 'valibot';
-import { ServiceError } from '../../../src-main/service/contract';
-import { validate } from '../../../src-main/service/validate';
+import { ServiceError } from '$service/contract';
+import { validate } from '$service/validate';
 import { ApiCallError } from './client';
 
 /**

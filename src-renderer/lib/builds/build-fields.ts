@@ -1,6 +1,6 @@
-import type { Build, Supply } from '../../../src-main/core/domain';
-import { BUILD_FIELDS as BUILD_CATALOGUE, GEARING_FIELDS as GEARING_CATALOGUE } from '../../../src-main/core/catalogue/build-fields';
-import type { FieldCatalogue } from '../../../src-main/core/catalogue/field-spec';
+import type { Build, Supply } from '$core/domain';
+import { BUILD_FIELDS as BUILD_CATALOGUE, GEARING_FIELDS as GEARING_CATALOGUE } from '$core/catalogue/build-fields';
+import type { FieldCatalogue } from '$core/catalogue/field-spec';
 import { formField } from '../forms/catalogue-field';
 import type { FieldDef } from '../parts/part-fields';
 

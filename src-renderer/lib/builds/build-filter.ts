@@ -1,4 +1,4 @@
-import type { Status, VehicleKind } from '../../../src-main/core/domain';
+import type { Status, VehicleKind } from '$core/domain';
 import { statusRank } from '../verdict/status-words';
 import type { BuildSummary } from './build-summary';
 import { collator, compareText, textOrderKey } from './text-order';

@@ -1,4 +1,4 @@
 // The builds list's row type, as `builds.list` returns it.
-import type { ApiOutput } from '../../../src-main/service/handlers';
+import type { ApiOutput } from '$service/handlers';
 
 export type BuildSummary = ApiOutput<'builds.list'>[number];

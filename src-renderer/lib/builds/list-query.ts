@@ -1,6 +1,6 @@
 // The builds list's filters, sort and search as the query of its address (`#/builds?v=over&q=4s`),
 // so a reload, a bookmark or the browser's Back opens the list as it was left.
-import { STATUSES, VEHICLE_KINDS, type Status, type VehicleKind } from '../../../src-main/core/domain';
+import { STATUSES, VEHICLE_KINDS, type Status, type VehicleKind } from '$core/domain';
 import { SORT_KEYS, type SortDir, type SortKey } from './build-filter';
 
 export interface ListQuery {

@@ -1,7 +1,7 @@
 import { Chart, type ChartConfiguration } from 'chart.js';
-import type { Finding } from '../../../src-main/core/domain';
-import type { RunTrace } from '../../../src-main/core/run-trace';
-import { displayUnit, toDisplay, type UnitSystem } from '../../../src-main/core/units';
+import type { Finding } from '$core/domain';
+import type { RunTrace } from '$core/run-trace';
+import { displayUnit, toDisplay, type UnitSystem } from '$core/units';
 import type { MotorChartData } from './motor-chart-data';
 import { ruleName } from '../verdict/rule-names';
 

@@ -1,5 +1,5 @@
-import { motorCurve, type MotorCurve } from '../../../src-main/core/motor-curve';
-import type { Controller, Figures, Motor } from '../../../src-main/core/domain';
+import { motorCurve, type MotorCurve } from '$core/motor-curve';
+import type { Controller, Figures, Motor } from '$core/domain';
 
 export interface OperatingMark {
   label: string;

@@ -1,6 +1,6 @@
 import type { ChartConfiguration, ChartDataset } from 'chart.js';
-import type { RunTrace } from '../../../src-main/core/run-trace';
-import { displayUnit, toDisplay, type UnitSystem } from '../../../src-main/core/units';
+import type { RunTrace } from '$core/run-trace';
+import { displayUnit, toDisplay, type UnitSystem } from '$core/units';
 import { SERIES } from './chart-configs';
 import type { CurrentBand, ForceChartData, LimitPart, PropChartData } from './sheet-chart-data';
 import { fixed } from '../format/number';

@@ -2,16 +2,16 @@
 // from: limits are the ratings the checks used (in supply-current terms), marked points are
 // the figures the sheet lists. Kept free of chart.js so it can be checked on its own.
 
-import type { BuildContext, Finding, PackShare, SupplyVerdict } from '../../../src-main/core/domain';
-import { buildInputs } from '../../../src-main/core/build-inputs';
-import { groundRunModel } from '../../../src-main/core/ground-operating-point';
-import { loadedTopSpeed } from '../../../src-main/core/ground-load';
-import { motorParams, noLoadOmega, torqueAt, type MotorParams } from '../../../src-main/core/motor';
-import { roadLoad } from '../../../src-main/core/road-load';
-import type { RunModel } from '../../../src-main/core/run';
-import { staticPropPoint, tipSpeed, type PropellerLoad } from '../../../src-main/core/propeller';
-import { supplyModel } from '../../../src-main/core/supply';
-import { mpsToKmh } from '../../../src-main/core/units';
+import type { BuildContext, Finding, PackShare, SupplyVerdict } from '$core/domain';
+import { buildInputs } from '$core/build-inputs';
+import { groundRunModel } from '$core/ground-operating-point';
+import { loadedTopSpeed } from '$core/ground-load';
+import { motorParams, noLoadOmega, torqueAt, type MotorParams } from '$core/motor';
+import { roadLoad } from '$core/road-load';
+import type { RunModel } from '$core/run';
+import { staticPropPoint, tipSpeed, type PropellerLoad } from '$core/propeller';
+import { supplyModel } from '$core/supply';
+import { mpsToKmh } from '$core/units';
 
 export type LimitPart = 'pack' | 'controller' | 'motor';
 

@@ -1,10 +1,10 @@
 // The build sheet's figure tables, drawn from the core's figure catalogue: a figure added
 // there is listed here under its stage, with its label, unit and decimals.
-import { FIGURE_KEYS, FIGURES, type FigureApplies, type FigureKey, type FigureStage } from '../../../src-main/core/catalogue/figures';
-import type { Figures, VehicleKind } from '../../../src-main/core/domain';
-import type { DisplayQuantity, UnitSystem } from '../../../src-main/core/units';
+import { FIGURE_KEYS, FIGURES, type FigureApplies, type FigureKey, type FigureStage } from '$core/catalogue/figures';
+import type { Figures, VehicleKind } from '$core/domain';
+import type { DisplayQuantity, UnitSystem } from '$core/units';
 import { MISSING, fixed } from '../format/number';
-import { displayUnit, toDisplay } from '../../../src-main/core/units';
+import { displayUnit, toDisplay } from '$core/units';
 import { thrustAsMass } from '../format/units';
 
 export interface FigureDef {

@@ -12,10 +12,6 @@ export function dateTime(iso: string, zone: 'local' | 'utc' = 'local'): string {
   return `${y}-${pad(mo)}-${pad(da)} ${pad(h)}:${pad(mi)}`;
 }
 
-export function dateOnly(iso: string, zone: 'local' | 'utc' = 'local'): string {
-  return dateTime(iso, zone).slice(0, 10);
-}
-
 /**
  * A moment as the reader's own calendar and clock show it (the system's locale and time zone,
  * month by name so the day and month cannot be swapped), for timelines; the timezone-free

@@ -1,10 +1,10 @@
-import { numberMarks, type NumberMarks } from '../../../src-main/core/number-text';
+import { numberMarks, type NumberMarks } from '$core/number-text';
 
 // Which locale's marks numbers are shown and typed with: the setting when one is chosen,
 // else the system's (the browser's language). One value for the whole window, so what a
 // screen prints is what a form reads back.
 
-export { NUMBER_LOCALE_TAGS as NUMBER_LOCALES } from '../../../src-main/core/number-text';
+export { NUMBER_LOCALE_TAGS as NUMBER_LOCALES } from '$core/number-text';
 
 function systemLocale(): string {
   const nav = (globalThis as { navigator?: { language?: string } }).navigator;

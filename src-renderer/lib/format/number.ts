@@ -1,4 +1,4 @@
-import { numberForInput } from '../../../src-main/core/number-text';
+import { numberForInput } from '$core/number-text';
 import { numberLocale } from './number-locale.svelte';
 
 // Numbers as the screens show them: a fixed count of decimals per figure, a thin space before
@@ -36,10 +36,6 @@ export function smart(value: number | null | undefined): string {
   if (a >= 1) return fixed(value, 2);
   if (a === 0) return '0';
   return String(Number(value.toPrecision(3)));
-}
-
-export function withUnit(text: string, unit: string): string {
-  return text === MISSING || unit === '' ? text : `${text} ${unit}`;
 }
 
 export function percent(ratio: number | null | undefined, decimals = 0): string {

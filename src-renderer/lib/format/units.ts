@@ -1,4 +1,4 @@
-import { displayUnit, quantityOfUnit, toDisplay, newtonToGramForce, newtonToOunceForce, type DisplayQuantity, type UnitSystem } from '../../../src-main/core/units';
+import { displayUnit, quantityOfUnit, toDisplay, newtonToGramForce, newtonToOunceForce, type DisplayQuantity, type UnitSystem } from '$core/units';
 import { MISSING, fixed, smart } from './number';
 
 /** A stored value (unit in its field name) shown in the user's unit system, with its symbol. */

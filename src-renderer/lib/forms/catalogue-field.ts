@@ -1,4 +1,4 @@
-import type { FieldSpec } from '../../../src-main/core/catalogue/field-spec';
+import type { FieldSpec } from '$core/catalogue/field-spec';
 import type { FieldDef, FieldType } from '../parts/part-fields';
 
 // A catalogue field as a form shows it: the label, unit, hint and bounds come from the core's

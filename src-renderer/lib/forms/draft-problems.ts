@@ -1,5 +1,5 @@
 import * as v from 'valibot';
-import type { UnitSystem } from '../../../src-main/core/units';
+import type { UnitSystem } from '$core/units';
 import type { FieldDef } from '../parts/part-fields';
 import { issueMessage, readDraftValue, type Draft } from './draft';
 

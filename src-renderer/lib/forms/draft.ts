@@ -1,5 +1,5 @@
-import { displayUnit, fromDisplay, toDisplay, type UnitSystem } from '../../../src-main/core/units';
-import { parseNumberText } from '../../../src-main/core/number-text';
+import { displayUnit, fromDisplay, toDisplay, type UnitSystem } from '$core/units';
+import { parseNumberText } from '$core/number-text';
 import { editable, editableRounded } from '../format/number';
 import { numberLocale } from '../format/number-locale.svelte';
 import type { FieldDef } from '../parts/part-fields';

@@ -1,5 +1,5 @@
-import { storedLabel, type FieldCatalogue } from '../../../src-main/core/catalogue/field-spec';
-import { FIELD_CATALOGUES } from '../../../src-main/core/catalogue/record-kinds';
+import { storedLabel, type FieldCatalogue } from '$core/catalogue/field-spec';
+import { FIELD_CATALOGUES } from '$core/catalogue/record-kinds';
 
 // Plain names for the fields a history entry lists, read from the field catalogues. Values in
 // history are stored units, so the unit named is the stored one (mm, kg, Ω, 0–1 for a fraction),

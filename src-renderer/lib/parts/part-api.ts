@@ -1,5 +1,5 @@
-import type { ApiInput, ApiOutput } from '../../../src-main/service/handlers';
-import { partSchemasByTable } from '../../../src-main/service/schemas/part-schemas-by-table';
+import type { ApiInput, ApiOutput } from '$service/handlers';
+import { partSchemasByTable } from '$service/schemas/part-schemas-by-table';
 import type { Client } from '../api/client';
 import { typedInput } from '../api/typed-input';
 import type { PartTable } from './part-kinds';

@@ -1,11 +1,11 @@
-import { BATTERY_FIELDS } from '../../../src-main/core/catalogue/battery-fields';
-import { CONTROLLER_FIELDS } from '../../../src-main/core/catalogue/controller-fields';
-import type { FieldCatalogue } from '../../../src-main/core/catalogue/field-spec';
-import { MOTOR_FIELDS } from '../../../src-main/core/catalogue/motor-fields';
-import { PROPELLER_FIELDS } from '../../../src-main/core/catalogue/propeller-fields';
-import { FIELD_CATALOGUES } from '../../../src-main/core/catalogue/record-kinds';
-import { VEHICLE_FIELDS } from '../../../src-main/core/catalogue/vehicle-fields';
-import type { DisplayQuantity } from '../../../src-main/core/units';
+import { BATTERY_FIELDS } from '$core/catalogue/battery-fields';
+import { CONTROLLER_FIELDS } from '$core/catalogue/controller-fields';
+import type { FieldCatalogue } from '$core/catalogue/field-spec';
+import { MOTOR_FIELDS } from '$core/catalogue/motor-fields';
+import { PROPELLER_FIELDS } from '$core/catalogue/propeller-fields';
+import { FIELD_CATALOGUES } from '$core/catalogue/record-kinds';
+import { VEHICLE_FIELDS } from '$core/catalogue/vehicle-fields';
+import type { DisplayQuantity } from '$core/units';
 import { formField } from '../forms/catalogue-field';
 import type { PartTable } from './part-kinds';
 

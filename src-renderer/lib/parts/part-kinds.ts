@@ -18,13 +18,6 @@ export const PART_KINDS: Readonly<Record<PartTable, PartKindInfo>> = {
   vehicles: { table: 'vehicles', one: 'vehicle', many: 'Vehicles' },
 };
 
-export const TABLE_OF_SLUG: Readonly<Record<PartSlug, PartTable>> = {
-  packs: 'batteries',
-  motors: 'motors',
-  controllers: 'controllers',
-  propellers: 'propellers',
-};
-
 export const SLUG_OF_TABLE: Readonly<Partial<Record<PartTable, PartSlug>>> = {
   batteries: 'packs',
   motors: 'motors',

@@ -3,8 +3,8 @@
 // holds the figure against (a pack's current check sits on the packs, the controller's on the
 // controller). Nothing here is a list of its own.
 
-import { FIGURE_STAGES, FIGURES, isFigureKey, type FigureStage } from '../../../src-main/core/catalogue/figures';
-import { isRuleId, RULES } from '../../../src-main/core/catalogue/rules';
+import { FIGURE_STAGES, FIGURES, isFigureKey, type FigureStage } from '$core/catalogue/figures';
+import { isRuleId, RULES } from '$core/catalogue/rules';
 
 export const STAGES = FIGURE_STAGES;
 export type Stage = FigureStage;

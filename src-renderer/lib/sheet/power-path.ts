@@ -1,7 +1,7 @@
-import type { Battery, Controller, Figures, Finding, Motor, Propeller, Status, SupplyVerdict, Vehicle } from '../../../src-main/core/domain';
-import type { FigureKey } from '../../../src-main/core/catalogue/figures';
-import { compareStatus } from '../../../src-main/core/status';
-import { displayUnit, quantityOfUnit, toDisplay, type UnitSystem } from '../../../src-main/core/units';
+import type { Battery, Controller, Figures, Finding, Motor, Propeller, Status, SupplyVerdict, Vehicle } from '$core/domain';
+import type { FigureKey } from '$core/catalogue/figures';
+import { compareStatus } from '$core/status';
+import { displayUnit, quantityOfUnit, toDisplay, type UnitSystem } from '$core/units';
 import { DRIVETRAIN_FIGURES, MOTOR_FIGURES, PROPELLER_FIGURES, SUPPLY_FIGURES, figureText, type FigureDef } from '../figures/figure-groups';
 import { MISSING, fixed, smart } from '../format/number';
 import { formatRoute } from '../router/routes';

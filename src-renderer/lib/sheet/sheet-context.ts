@@ -1,5 +1,5 @@
-import type { BuildContext } from '../../../src-main/core/domain';
-import { DEFAULT_TIGHT_THRESHOLD } from '../../../src-main/core/domain';
+import type { BuildContext } from '$core/domain';
+import { DEFAULT_TIGHT_THRESHOLD } from '$core/domain';
 import type { BuildSheet } from '../state/build-sheet.svelte';
 
 /** The evaluation context of a loaded sheet, for charts drawn from the same core as its verdict. */

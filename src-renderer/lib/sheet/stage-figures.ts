@@ -1,4 +1,4 @@
-import type { VehicleKind } from '../../../src-main/core/domain';
+import type { VehicleKind } from '$core/domain';
 import { figureGroupsFor, type FigureDef } from '../figures/figure-groups';
 import { STAGES, stageOfFigure, type Stage } from './path-stages';
 

@@ -1,10 +1,10 @@
-import type { Build, BuildVerdict } from '../../../src-main/core/domain';
-import type { UnitSystem } from '../../../src-main/core/units';
+import type { Build, BuildVerdict } from '$core/domain';
+import type { UnitSystem } from '$core/units';
 import type { Client } from '../api/client';
 import { typedInput } from '../api/typed-input';
 import { draftChanges, draftToRecord, toDraft, type Draft } from '../forms/draft';
 import { draftProblems, type Problems } from '../forms/draft-problems';
-import { buildCreateSchema, buildPatchSchema } from '../../../src-main/service/schemas/build-schemas';
+import { buildCreateSchema, buildPatchSchema } from '$service/schemas/build-schemas';
 import { BUILD_FIELD_LIST, GEARING_KEYS, flattenBuild, nestBuild, suppliesEqual, type SupplyDraft } from '../builds/build-fields';
 import { FormState } from './form.svelte';
 

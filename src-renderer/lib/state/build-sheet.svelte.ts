@@ -1,8 +1,8 @@
-import type { ApiOutput } from '../../../src-main/service/handlers';
+import type { ApiOutput } from '$service/handlers';
 import { asApiError, type Client } from '../api/client';
-import { isLithium } from '../../../src-main/core/chemistry';
-import { DEFAULT_TIGHT_THRESHOLD } from '../../../src-main/core/domain';
-import { runTrace, type RunTrace } from '../../../src-main/core/run-trace';
+import { isLithium } from '$core/chemistry';
+import { DEFAULT_TIGHT_THRESHOLD } from '$core/domain';
+import { runTrace, type RunTrace } from '$core/run-trace';
 import { Loader } from './loader.svelte';
 
 export type BuildSheet = ApiOutput<'builds.get'>;

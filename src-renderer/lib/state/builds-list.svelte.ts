@@ -1,6 +1,6 @@
-import type { Status, VehicleKind } from '../../../src-main/core/domain';
-import type { ServiceEvent } from '../../../src-main/service/contract';
-import { decodeColumns } from '../../../src-main/core/column-table';
+import type { Status, VehicleKind } from '$core/domain';
+import type { ServiceEvent } from '$service/contract';
+import { decodeColumns } from '$core/column-table';
 import type { Client } from '../api/client';
 import { Loader } from './loader.svelte';
 import type { BuildSummary } from '../builds/build-summary';

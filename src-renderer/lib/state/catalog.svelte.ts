@@ -1,10 +1,10 @@
-import type { Battery, Controller, Motor, Propeller, Vehicle } from '../../../src-main/core/domain';
+import type { Battery, Controller, Motor, Propeller, Vehicle } from '$core/domain';
 import type { Client } from '../api/client';
 import { partOps } from '../parts/part-api';
 import type { PartTable } from '../parts/part-kinds';
 import { Loader } from './loader.svelte';
 
-export interface CatalogRecords {
+interface CatalogRecords {
   batteries: Battery[];
   motors: Motor[];
   controllers: Controller[];

@@ -1,5 +1,5 @@
-import type { ApiError } from '../../../src-main/service/contract';
-import type { UnitSystem } from '../../../src-main/core/units';
+import type { ApiError } from '$service/contract';
+import type { UnitSystem } from '$core/units';
 import { asApiError } from '../api/client';
 import { problemSummary, type Draft } from '../forms/draft';
 import { placeError } from '../forms/placed-error';

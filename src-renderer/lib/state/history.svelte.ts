@@ -1,4 +1,4 @@
-import type { ApiInput, ApiOutput } from '../../../src-main/service/handlers';
+import type { ApiInput, ApiOutput } from '$service/handlers';
 import type { Client } from '../api/client';
 import { Loader } from './loader.svelte';
 

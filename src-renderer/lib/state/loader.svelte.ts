@@ -1,4 +1,4 @@
-import type { ApiError, ServiceEvent } from '../../../src-main/service/contract';
+import type { ApiError, ServiceEvent } from '$service/contract';
 import { asApiError, type Client } from '../api/client';
 
 /**

@@ -1,4 +1,4 @@
-import type { ApiInput } from '../../../src-main/service/handlers';
+import type { ApiInput } from '$service/handlers';
 import type { Client } from '../api/client';
 import { newlyOver, type NewlyOver, type ShiftPreview } from '../verdict/verdict-shift';
 

@@ -1,11 +1,11 @@
-import type { UnitSystem } from '../../../src-main/core/units';
+import type { UnitSystem } from '$core/units';
 import type { Client } from '../api/client';
 import { draftChanges, draftToRecord, toDraft, type Draft } from '../forms/draft';
 import { PART_FIELDS } from '../parts/part-fields';
 import { partApi, type PartRecord } from '../parts/part-api';
 import { PART_KINDS, type PartTable } from '../parts/part-kinds';
 import { draftProblems, type Problems } from '../forms/draft-problems';
-import { partSchemasByTable } from '../../../src-main/service/schemas/part-schemas-by-table';
+import { partSchemasByTable } from '$service/schemas/part-schemas-by-table';
 import { FormState } from './form.svelte';
 
 const NEW_DEFAULTS: Readonly<Record<PartTable, Record<string, unknown>>> = {

@@ -1,8 +1,8 @@
-import type { UnitSystem } from '../../../src-main/core/units';
-import { DEFAULT_TIGHT_THRESHOLD } from '../../../src-main/core/domain';
+import type { UnitSystem } from '$core/units';
+import { DEFAULT_TIGHT_THRESHOLD } from '$core/domain';
 import { asApiError, type Client } from '../api/client';
-import type { ApiError } from '../../../src-main/service/contract';
-import type { NUMBER_LOCALE_TAGS } from '../../../src-main/core/number-text';
+import type { ApiError } from '$service/contract';
+import type { NUMBER_LOCALE_TAGS } from '$core/number-text';
 import { setNumberLocale } from '../format/number-locale.svelte';
 import { Loader } from './loader.svelte';
 

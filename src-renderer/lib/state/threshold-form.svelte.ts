@@ -3,7 +3,7 @@ import { ApiCallError } from '../api/client';
 import { readDraftValue, toDraft, type Draft } from '../forms/draft';
 import { draftProblems, type Problems } from '../forms/draft-problems';
 import type { FieldDef } from '../parts/part-fields';
-import { number, record } from '../../../src-main/service/schemas/field-builders';
+import { number, record } from '$service/schemas/field-builders';
 import { FormState } from './form.svelte';
 import type { SettingsState } from './settings.svelte';
 

@@ -2,8 +2,8 @@
 // the command line warn alike. What the screens add: whose word counts, and the cautions every
 // printed sheet carries.
 
-export { CAUTION_TEXT, type CautionTopic } from '../../../src-main/core/catalogue/cautions';
-export { cautionsFor, cautionsOfAll } from '../../../src-main/core/catalogue/rules';
+export { CAUTION_TEXT, type CautionTopic } from '$core/catalogue/cautions';
+export { cautionsFor, cautionsOfAll } from '$core/catalogue/rules';
 
 export const FOLLOW_RATINGS = "Follow the part maker's ratings and manuals, and local rules.";
 

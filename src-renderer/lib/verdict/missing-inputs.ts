@@ -1,7 +1,7 @@
-import { BATTERY_FIELDS } from '../../../src-main/core/catalogue/battery-fields';
-import type { Battery, Build, Controller, Motor, Propeller, Vehicle } from '../../../src-main/core/domain';
-import { fieldLabel as engineWords } from '../../../src-main/core/field-labels';
-import type { UnitSystem } from '../../../src-main/core/units';
+import { BATTERY_FIELDS } from '$core/catalogue/battery-fields';
+import type { Battery, Build, Controller, Motor, Propeller, Vehicle } from '$core/domain';
+import { fieldLabel as engineWords } from '$core/field-labels';
+import type { UnitSystem } from '$core/units';
 import { BUILD_FIELD_LIST } from '../builds/build-fields';
 import { fieldLabel } from '../forms/draft';
 import { PART_FIELDS } from '../parts/part-fields';

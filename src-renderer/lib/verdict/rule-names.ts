@@ -1,4 +1,4 @@
 // Short names for the rule ids, for table rows and chart axes, from the core's rule catalogue.
 // The findings' own messages carry the full sentence.
 
-export { ruleName } from '../../../src-main/core/catalogue/rules';
+export { ruleName } from '$core/catalogue/rules';

@@ -1,4 +1,4 @@
-import { STATUSES, type Status } from '../../../src-main/core/domain';
+import { STATUSES, type Status } from '$core/domain';
 
 /** The core's order, worst first: over, incomplete, tight, clear. */
 export const STATUS_ORDER: readonly Status[] = STATUSES;

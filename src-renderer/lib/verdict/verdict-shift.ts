@@ -1,9 +1,9 @@
 // What a change does to verdicts, read from a preview (before and after), in the two cases a
 // screen must never soften: a build that becomes OVER, and a build that was OVER and now cannot
 // be checked (the change removed the data the check needed, not the problem).
-import type { BuildVerdict, Finding, Status } from '../../../src-main/core/domain';
-import { compareStatus } from '../../../src-main/core/status';
-import { fieldLabel } from '../../../src-main/core/field-labels';
+import type { BuildVerdict, Finding, Status } from '$core/domain';
+import { compareStatus } from '$core/status';
+import { fieldLabel } from '$core/field-labels';
 
 export interface ShiftPreview {
   before: readonly BuildVerdict[];

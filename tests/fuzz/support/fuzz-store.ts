@@ -3,6 +3,7 @@ import { copyFileSync, existsSync, mkdtempSync, readdirSync, rmSync, statSync } 
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { openServiceHost } from '../../../src-main/service/open-service-host';
+import { demoFleet } from '../../../demo-fixtures/demo-fleet';
 import { ok } from '../../reliability/support/store-audit';
 import { seededRandom } from '../../reliability/support/random';
 import { seedSharedFleet } from '../../reliability/support/seed-fleet';
@@ -29,7 +30,7 @@ export function fuzzDir(): { dir: string; remove: () => void } {
 /** A seeded store to copy for each handler: a small fleet with every kind of record. */
 export async function createTemplate(dir: string): Promise<string> {
   const file = path.join(dir, 'template.sqlite');
-  const host = await openServiceHost({ dbPath: file, actor: 'seed' });
+  const host = await openServiceHost({ demoFleet, dbPath: file, actor: 'seed' });
   const fleet = await seedSharedFleet(host, 6, seededRandom(7));
   const vehicle = await ok<{ id: string }>(host, 'vehicles.create', { name: 'Fuzz quad', kind: 'multirotor', massKg: 0.65, dragAreaM2: 0.01, className: 'club' });
   const prop = await ok<{ id: string }>(host, 'propellers.create', { name: 'Fuzz 5x4.3x3', diameterMm: 127, pitchMm: 109, blades: 3, thrustCoefficient: 0.11, powerCoefficient: 0.05 });
@@ -63,7 +64,7 @@ export interface FuzzStore {
 export async function openFuzzStore(template: string, dir: string, name: string): Promise<FuzzStore> {
   const file = path.join(dir, `${name.replace(/[^A-Za-z0-9.-]/g, '_')}.sqlite`);
   copyFileSync(template, file);
-  const host = await openServiceHost({ dbPath: file, actor: 'fuzz' });
+  const host = await openServiceHost({ demoFleet, dbPath: file, actor: 'fuzz' });
   const watcher = new Database(file);
   const fingerprint = tableFingerprinter(watcher);
   return {

@@ -10,11 +10,11 @@ const [dbPath, synchronous] = process.argv.slice(2);
 
 async function main(): Promise<void> {
   const host = await openServiceHost({ dbPath: dbPath!, actor: 'durable-writer' });
-  if (synchronous) host.ctx.raw!.pragma(`synchronous = ${synchronous}`);
+  if (synchronous) host.raw!.pragma(`synchronous = ${synchronous}`);
   const pragmas = {
-    journal_mode: host.ctx.raw!.pragma('journal_mode', { simple: true }),
-    synchronous: host.ctx.raw!.pragma('synchronous', { simple: true }),
-    foreign_keys: host.ctx.raw!.pragma('foreign_keys', { simple: true }),
+    journal_mode: host.raw!.pragma('journal_mode', { simple: true }),
+    synchronous: host.raw!.pragma('synchronous', { simple: true }),
+    foreign_keys: host.raw!.pragma('foreign_keys', { simple: true }),
   };
   process.stdout.write(`${JSON.stringify({ t: 'ready', pragmas })}\n`);
   for (let i = 0; ; i++) {

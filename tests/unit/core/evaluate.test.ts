@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { evaluate } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import type { BuildContext, Finding, SupplyVerdict } from '../../../src-main/core/domain';
+import type { BuildContext, SupplyVerdict } from '../../../src-main/core/domain';
 import { evaluateBuild } from '../../../src-main/core/evaluate';
 import { battery, classRule, controller, finding, motor, quadContext, supplyOf, truckContext, vehicle } from './fixtures';
 

@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { evaluate } from 'mathjs';
 import { describe, expect, it } from 'vitest';
-import type { Battery, BuildContext, Finding, SupplyVerdict } from '../../../src-main/core/domain';
+import type { Battery, BuildContext } from '../../../src-main/core/domain';
 import { evaluateBuild } from '../../../src-main/core/evaluate';
 import { launchCurrent } from '../../../src-main/core/ground-load';
 import { motorParams } from '../../../src-main/core/motor';

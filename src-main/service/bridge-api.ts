@@ -1,6 +1,6 @@
 // The one object the desktop preload puts on `window`. The renderer imports this type-only
-// (`import type { RigbookBridge } from '.../desktop/bridge-api'`) so both sides agree.
-import type { CallResult, ServiceEvent } from '../service/contract';
+// (`import type { RigbookBridge } from '$service/bridge-api'`) so both sides agree.
+import type { CallResult, ServiceEvent } from './contract';
 
 /**
  * The calls the desktop shell answers itself, before the service sees them: what each takes
@@ -15,7 +15,7 @@ export interface ShellCalls {
 export const BRIDGE_KEY = 'rigbook';
 
 export interface RigbookBridge {
-  /** Calls a handler by name; shell-level names start with `desktop.` (see ShellCalls). */
+  /** Calls a handler by name; shell-level names start with `desktop.` (see ShellCalls) and the desktop relay answers them itself (desktop/call-relay.ts). */
   call(name: string, args: unknown): Promise<CallResult>;
   /** Listens for change events; returns the function that stops listening. */
   onEvent(listener: (event: ServiceEvent) => void): () => void;

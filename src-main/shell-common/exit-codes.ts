@@ -21,8 +21,6 @@ export const EXIT = {
   usage: 5,
 } as const;
 
-export type ExitCode = (typeof EXIT)[keyof typeof EXIT];
-
 export const EXIT_CODES_HELP = `Exit codes:
   0  done (check: nothing over; tight and incomplete still exit 0)
   1  check: something is over a rating
