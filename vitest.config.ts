@@ -32,6 +32,8 @@ export default defineConfig({
     pool: 'forks',
     // A throwaway PostgreSQL cluster for the store matrix; see tests/helpers/store-engines.ts.
     globalSetup: ['tests/setup/pg-global-setup.ts'],
+    // One fixed seed for every property test under npm test; npm run fuzz draws a random one.
+    setupFiles: ['tests/setup/property-seed-setup.ts'],
     testTimeout: 30_000,
     hookTimeout: 30_000,
     projects: [

@@ -7,13 +7,14 @@ import { createTemplate, fuzzDir, openFuzzStore } from './support/fuzz-store';
 import { confinePaths, malformedPayload, mutate, PROTO_KEYS } from './support/payloads';
 import { fieldNames, type SchemaNode } from './support/schema-walk';
 import { validPayload, type SeedFiles } from './support/seeds';
+import { propertySeed } from '../setup/property-seed';
 
 // Property tests over every handler in the map, on a real store: malformed payloads of every
 // shape, and valid payloads bent one field at a time. RIGBOOK_FUZZ_RUNS sets the total number
 // of cases (default 12 000; `npm run fuzz` runs 200 000); RIGBOOK_FUZZ_SEED repeats a run.
 
 const TOTAL = Number(process.env.RIGBOOK_FUZZ_RUNS ?? 12_000);
-const SEED = Number(process.env.RIGBOOK_FUZZ_SEED ?? Math.floor(Math.random() * 2 ** 31));
+const SEED = propertySeed();
 const NAMES = Object.keys(handlers);
 const PER_HANDLER = Math.floor((TOTAL * 0.96) / NAMES.length);
 const NAME_RUNS = TOTAL - PER_HANDLER * NAMES.length;

@@ -7,6 +7,7 @@ import { createTemplate, fuzzDir, openFuzzStore, type FuzzStore } from './suppor
 import { mutate, pick } from './support/payloads';
 import type { SchemaNode } from './support/schema-walk';
 import { readJsonText, scanJson } from '../../src-main/service/fleet/read-fleet-text';
+import { propertySeed } from '../setup/property-seed';
 
 // Damaged fleet files and CSV files: cut off at a random point, bytes flipped, fields bent.
 // A refused import leaves every table exactly as it was (and so does any dry run); an
@@ -14,7 +15,7 @@ import { readJsonText, scanJson } from '../../src-main/service/fleet/read-fleet-
 // RIGBOOK_FUZZ_RUNS scales the number of files (a fortieth of it, at least 300 per format).
 
 const TOTAL = Number(process.env.RIGBOOK_FUZZ_RUNS ?? 12_000);
-const SEED = Number(process.env.RIGBOOK_FUZZ_SEED ?? Math.floor(Math.random() * 2 ** 31));
+const SEED = propertySeed();
 const FILES = Math.max(300, Math.floor(TOTAL / 40));
 const NEEDED = ['fleet.import', 'fleet.export', 'fleet.importCsv', 'fleet.exportCsv'];
 const missing = NEEDED.filter((name) => !Object.hasOwn(handlers, name));
