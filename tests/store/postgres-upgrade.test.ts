@@ -198,7 +198,7 @@ if (!pgRun.engine) {
         const result = await h.call(handler, {});
         expect(result.ok, `${handler}: ${JSON.stringify(result)}`).toBe(true);
       }
-      // A write goes through on the upgraded store, its history entry numbered after the old ones.
+      // A write goes through on the upgraded store (history ids come from the identity column, as in a real store).
       const pack = await ok<{ id: string }>(h, 'batteries.create', { name: 'After upgrade', chemistry: 'lipo', cellsSeries: 2, capacityMah: 2000 });
       expect(pack.id).toBeTruthy();
     });
