@@ -65,6 +65,14 @@ describe('compare rows', () => {
     expect(keys).toEqual(expect.arrayContaining(['finalDriveRatio', 'thrustN']));
   });
 
+  it('a car beside a truck reads as ground builds: gearing and wheels, no thrust rows', () => {
+    const car = truckContext();
+    const carCol: CompareColumn = { ...column('car', car), kind: 'car' };
+    const groups = compareRows([carCol, column('truck', truckContext())], 'metric');
+    expect(groups.map((g) => g.title)).toEqual(['Packs', 'Speed controller (supply current)', 'Motor', 'Gearing', 'Wheels']);
+    expect(groups.flatMap((g) => g.figures.map((f) => f.key))).not.toContain('thrustN');
+  });
+
   it('no marks where the margins are equal; a figure table row per stage figure', () => {
     const ctx = truckContext({ controller: controller() });
     const groups = compareRows([column('a', ctx), column('b', ctx)], 'metric');

@@ -93,10 +93,16 @@ function markMargins(cells: CheckCell[]): void {
   }
 }
 
-/** The kind every column shares, or null where they differ (the figure list then covers every kind). */
+const isGround = (kind: VehicleKind | null) => kind === 'car' || kind === 'truck';
+
+/**
+ * A kind that stands for every column: cars beside trucks read as ground builds, boats beside
+ * planes as propeller builds; null where both families meet (the figure list then covers both).
+ */
 function sharedKind(columns: readonly CompareColumn[]): VehicleKind | null {
-  const kinds = new Set(columns.map((c) => c.kind));
-  return kinds.size === 1 ? (columns[0]?.kind ?? null) : null;
+  const first = columns[0]?.kind ?? null;
+  if (first === null) return null;
+  return columns.every((c) => c.kind !== null && isGround(c.kind) === isGround(first)) ? first : null;
 }
 
 /** The comparison of two or more builds, stage by stage, packs first. */
