@@ -17,21 +17,7 @@ function withMeta(t: Table, { text, integer }: ColumnTypes): Table {
     .addColumn('updatedAt', text, (c) => c.notNull());
 }
 
-const TABLES_DOWN = [
-  'historyBuilds',
-  'history',
-  'verdicts',
-  'supplyPacks',
-  'supplies',
-  'builds',
-  'classRules',
-  'vehicles',
-  'propellers',
-  'controllers',
-  'motors',
-  'batteries',
-  'settings',
-];
+const TABLES_DOWN = ['historyBuilds', 'history', 'verdicts', 'supplyPacks', 'supplies', 'builds', 'classRules', 'vehicles', 'propellers', 'controllers', 'motors', 'batteries', 'settings'];
 
 export async function up(db: Kysely<unknown>): Promise<void> {
   await db.transaction().execute(async (trx) => {

@@ -35,11 +35,7 @@ function namedBuilds(db: AnyDb, row: Omit<SelectorRow, 'historyId'>, at: string)
     return builds.where('builds.vehicleId', 'in', db.selectFrom('vehicles').select('vehicles.id').where('vehicles.className', '=', row.target));
   }
   if (row.partKind === 'batteries') {
-    return builds.where(
-      'builds.id',
-      'in',
-      db.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplies.buildId').where('supplyPacks.batteryId', '=', row.target),
-    );
+    return builds.where('builds.id', 'in', db.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplies.buildId').where('supplyPacks.batteryId', '=', row.target));
   }
   return builds.where(`builds.${PART_COLUMN[row.partKind]}`, '=', row.target);
 }
@@ -125,7 +121,11 @@ export async function down(db: Kysely<unknown>): Promise<void> {
         .insertInto('historyBuilds')
         .columns(['historyId', 'buildId'])
         // A bare parameter in a select list has no type on PostgreSQL (it would be text); the cast names it.
-        .expression(namedBuilds(t, row, row.at).clearSelect().select([sql<number>`cast(${historyId} as integer)`.as('historyId'), 'builds.id as buildId']))
+        .expression(
+          namedBuilds(t, row, row.at)
+            .clearSelect()
+            .select([sql<number>`cast(${historyId} as integer)`.as('historyId'), 'builds.id as buildId']),
+        )
         .onConflict((oc) => oc.columns(['historyId', 'buildId']).doNothing())
         .execute();
     }

@@ -31,8 +31,7 @@ export function fleetJsonSchema(): JsonSchema {
     $schema: 'http://json-schema.org/draft-07/schema#',
     $id: FLEET_SCHEMA_ID,
     title: `${FLEET_FORMAT} file, version ${FLEET_VERSION}`,
-    description:
-      'The build records of a fleet of electric RC vehicles, as Rigbook exports and imports them. Generated from the importer’s own schemas (npm run schema); do not edit by hand.',
+    description: 'The build records of a fleet of electric RC vehicles, as Rigbook exports and imports them. Generated from the importer’s own schemas (npm run schema); do not edit by hand.',
     ...Object.fromEntries(Object.entries(converted).filter(([key]) => key !== '$schema')),
   };
 }

@@ -170,7 +170,10 @@ export function fetchElectron({ root, env, spawn, stallMs = STALL_MS }) {
     child.once('error', (error) => finish(`the download could not start (${error.message})`));
     child.once('exit', (code) => {
       if (code === 0) return finish(null);
-      const firstLine = stderr.split('\n').map((line) => line.trim()).find((line) => line !== '');
+      const firstLine = stderr
+        .split('\n')
+        .map((line) => line.trim())
+        .find((line) => line !== '');
       finish(`the download failed${firstLine ? ` (${firstLine})` : ''}`);
     });
     const watch = setInterval(() => {

@@ -8,12 +8,10 @@ import type { FleetRecords } from '../service/fleet/fleet-format';
 import { formatNumber, formatPercent, JSON_SIGNIFICANT_DIGITS, roundSignificant } from './format-number';
 
 /** Said whenever something is over: what can happen, and whose word counts. */
-export const OVER_CAUTION =
-  "Over means a part is used past its rating: it can overheat or fail, and a lithium pack can swell and catch fire. Before running it, follow the part maker's ratings and manuals and your local rules.";
+export const OVER_CAUTION = "Over means a part is used past its rating: it can overheat or fail, and a lithium pack can swell and catch fire. Before running it, follow the part maker's ratings and manuals and your local rules.";
 
 /** The finding fields the check output carries. */
 type FindingField = 'rule' | 'status' | 'value' | 'limit' | 'unit' | 'margin' | 'message';
-
 
 export interface CheckJson {
   builds: {
@@ -88,11 +86,7 @@ function figure(f: Figures, key: FigureKey): string {
 
 function figureLine(s: SupplyVerdict): string {
   const f = s.figures;
-  const parts = [
-    `pack ${figure(f, 'packVoltageNominalV')} nominal / ${figure(f, 'packVoltageFullV')} full`,
-    `Kt ${figure(f, 'torqueConstantNmPerA')}`,
-    `no-load ${figure(f, 'noLoadRpm')}`,
-  ];
+  const parts = [`pack ${figure(f, 'packVoltageNominalV')} nominal / ${figure(f, 'packVoltageFullV')} full`, `Kt ${figure(f, 'torqueConstantNmPerA')}`, `no-load ${figure(f, 'noLoadRpm')}`];
   if (f.finalDriveRatio !== null) parts.push(`final drive ${formatNumber(f.finalDriveRatio)}`);
   if (f.theoreticalSpeedKmh !== null) parts.push(`${figure(f, 'theoreticalSpeedKmh')} theoretical`);
   if (f.pitchSpeedKmh !== null) parts.push(`${figure(f, 'pitchSpeedKmh')} pitch speed`);
@@ -109,10 +103,12 @@ function ruleWords(rule: string): string {
 /** Whether a supply may hold lithium packs: a pack not in the file counts as lithium (the safe side). */
 function lithiumOf(fleet: FleetRecords): (s: SupplyVerdict) => boolean {
   const chemistry = new Map(fleet.batteries.map((b) => [b.id, b.chemistry]));
-  return (s) => s.batteryIds.length === 0 || s.batteryIds.some((id) => {
-    const c = chemistry.get(id);
-    return c === undefined || isLithium(c);
-  });
+  return (s) =>
+    s.batteryIds.length === 0 ||
+    s.batteryIds.some((id) => {
+      const c = chemistry.get(id);
+      return c === undefined || isLithium(c);
+    });
 }
 
 /** A readable report: per build, per supply, the key figures and a table of the findings, with the full message of each that needs attention. */

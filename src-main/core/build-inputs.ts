@@ -3,14 +3,7 @@
 // finding says to pick the part rather than to fill in one of its fields.
 
 import { millivoltExact } from './chemistry';
-import {
-  AIR_DENSITY,
-  CONTROLLER_VOLTS_PER_RATED_CELL,
-  DEFAULT_2WD_DRIVEN_SHARE,
-  DEFAULT_RUN_LENGTH_S,
-  FRESH_WATER_DENSITY,
-  SEA_WATER_DENSITY,
-} from './constants';
+import { AIR_DENSITY, CONTROLLER_VOLTS_PER_RATED_CELL, DEFAULT_2WD_DRIVEN_SHARE, DEFAULT_RUN_LENGTH_S, FRESH_WATER_DENSITY, SEA_WATER_DENSITY } from './constants';
 import { VEHICLE_KINDS, type BuildContext, type VehicleKind } from './domain';
 import { finalDriveRatio } from './drivetrain';
 import { count, known, lacking, nonNegative, positive, type Known } from './known';
@@ -88,22 +81,17 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
   if (controller) {
     const volts = positive(controller.maxVoltageV, 'controller.maxVoltageV');
     const cells = count(controller.maxCells, 'controller.maxVoltageV');
-    controllerMaxVoltageV =
-      volts.value !== null ? volts : cells.value !== null ? known(millivoltExact(cells.value * CONTROLLER_VOLTS_PER_RATED_CELL)) : volts;
+    controllerMaxVoltageV = volts.value !== null ? volts : cells.value !== null ? known(millivoltExact(cells.value * CONTROLLER_VOLTS_PER_RATED_CELL)) : volts;
   }
 
   const pinion = positive(gearing?.pinionTeeth, 'gearing.pinionTeeth');
   const spur = positive(gearing?.spurTeeth, 'gearing.spurTeeth');
   const internal = positive(gearing?.internalRatio, 'gearing.internalRatio');
-  const finalDrive =
-    pinion.value !== null && spur.value !== null && internal.value !== null
-      ? known(finalDriveRatio(spur.value, pinion.value, internal.value))
-      : lacking(...[pinion, spur, internal].flatMap((k) => k.missing ?? []));
+  const finalDrive = pinion.value !== null && spur.value !== null && internal.value !== null ? known(finalDriveRatio(spur.value, pinion.value, internal.value)) : lacking(...[pinion, spur, internal].flatMap((k) => k.missing ?? []));
   const drivetrainEfficiency = plausible(gearing?.drivetrainEfficiency, 'gearing.drivetrainEfficiency');
 
   // A propeller build's ratio: the gearbox (internal ratio), times spur ÷ pinion where both are given.
-  const propGearRatio =
-    (internal.value ?? 1) * (pinion.value !== null && spur.value !== null ? spur.value / pinion.value : 1);
+  const propGearRatio = (internal.value ?? 1) * (pinion.value !== null && spur.value !== null ? spur.value / pinion.value : 1);
   const propGeared = propGearRatio !== 1;
 
   const recordedShare = vehicle?.drivenWeightShare;
@@ -128,11 +116,7 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
   const diameterMm = propeller ? positive(propeller.diameterMm, 'propeller.diameterMm') : noProp;
 
   return {
-    kind: vehicle
-      ? (VEHICLE_KINDS as readonly string[]).includes(vehicle.kind)
-        ? known(vehicle.kind)
-        : lacking<VehicleKind>('vehicle.kind')
-      : lacking<VehicleKind>('build.vehicleId'),
+    kind: vehicle ? ((VEHICLE_KINDS as readonly string[]).includes(vehicle.kind) ? known(vehicle.kind) : lacking<VehicleKind>('vehicle.kind')) : lacking<VehicleKind>('build.vehicleId'),
     motorCount: count(build.motorCount, 'build.motorCount'),
     kv: motor ? plausible(motor.kv, 'motor.kv') : noMotor,
     motorResistanceOhm: motor ? plausible(motor.resistanceOhm, 'motor.resistanceOhm') : noMotor,

@@ -14,12 +14,7 @@ export function classRulesFor(rules: readonly ClassRule[], className: string | n
  * Findings of class rules against a supply's figures. A figure that could not be computed
  * makes the finding incomplete and names what it lacks.
  */
-export function classFindings(
-  rules: readonly ClassRule[],
-  figures: Figures,
-  figureMissing: Readonly<Partial<Record<FigureKey, readonly string[]>>>,
-  tightThreshold: number,
-): Finding[] {
+export function classFindings(rules: readonly ClassRule[], figures: Figures, figureMissing: Readonly<Partial<Record<FigureKey, readonly string[]>>>, tightThreshold: number): Finding[] {
   return rules.map((r) => {
     // A stored rule may name a figure this engine does not compute: it cannot be checked.
     const key = isFigureKey(r.figure) ? r.figure : null;

@@ -50,8 +50,7 @@ export function evaluateBuild(ctx: BuildContext, options?: EvaluateOptions): Bui
   const measuredOnKnown = measuredOn !== null && ctx.build.supplies.some((s) => s.id === measuredOn);
   const verdicts: SupplyVerdict[] = [];
   for (const supply of supplies) {
-    const model =
-      supply === NO_SUPPLY ? lacking<SupplyModel>('build.supplies') : supplyModel(supply, ctx.batteries);
+    const model = supply === NO_SUPPLY ? lacking<SupplyModel>('build.supplies') : supplyModel(supply, ctx.batteries);
     const site: SupplySite = {
       repeated: supply.batteryIds.filter((id, i, all) => (uses.get(id) ?? 0) > 1 && all.indexOf(id) === i),
       measuredHere: measuredOnKnown && supply.id === measuredOn,
@@ -134,14 +133,7 @@ const pct = (x: number): string => `${Math.round(x * 100)} %`;
  * rating. The finding reports the worst pack; a pack past its rating wins over one whose
  * rating is missing, which wins over the smallest margin.
  */
-function pushPackRule(
-  env: RuleEnv,
-  id: 'battery-continuous' | 'battery-burst',
-  totalA: Known,
-  s: SupplyModel | null,
-  noSupply: Known,
-  source: 'model' | 'measured',
-): void {
+function pushPackRule(env: RuleEnv, id: 'battery-continuous' | 'battery-burst', totalA: Known, s: SupplyModel | null, noSupply: Known, source: 'model' | 'measured'): void {
   if (s === null) {
     pushRule(env, id, totalA, noSupply, source);
     return;
@@ -194,15 +186,7 @@ function pushPackRule(
   });
 }
 
-function evaluateSupply(
-  inp: BuildInputs,
-  supply: Supply,
-  model: Known<SupplyModel>,
-  classRules: BuildContext['classRules'],
-  threshold: number,
-  messages: boolean,
-  site: SupplySite,
-): SupplyVerdict {
+function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyModel>, classRules: BuildContext['classRules'], threshold: number, messages: boolean, site: SupplySite): SupplyVerdict {
   const s = model.value;
   const supplyLack = model.missing ?? [];
   const noSupply = lacking(...supplyLack);
@@ -247,8 +231,7 @@ function evaluateSupply(
   const modelContA = times(op.continuousMotorA, inp.motorCount, product);
   // A measured peak below the model's continuous current is more likely a logging slip than a
   // kinder truth: it does not replace the model.
-  const suspect =
-    measuredPeak !== null && measuredPeak.value !== null && modelContA.value !== null && measuredPeak.value < modelContA.value;
+  const suspect = measuredPeak !== null && measuredPeak.value !== null && modelContA.value !== null && measuredPeak.value < modelContA.value;
   const usePeak = measuredPeak !== null && !suspect ? measuredPeak : null;
   const peakSource = usePeak ? 'measured' : 'model';
   const contSource = measuredAvg ? 'measured' : 'model';
@@ -258,8 +241,7 @@ function evaluateSupply(
   const motorContA = times(contA, inp.motorCount, quotient);
 
   const rPackModel = s?.modelResistanceOhm ?? 0;
-  const loadedV =
-    peakA.value !== null && fullV.value !== null ? known(Math.max(0, fullV.value - peakA.value * rPackModel)) : lacking(...missingOf(peakA, fullV));
+  const loadedV = peakA.value !== null && fullV.value !== null ? known(Math.max(0, fullV.value - peakA.value * rPackModel)) : lacking(...missingOf(peakA, fullV));
   const peakPower = peakA.value !== null && loadedV.value !== null ? known(peakA.value * loadedV.value) : loadedV;
   // Without a measured pack resistance there is no sag to take off: the figure is shown only
   // under its own name, which says so.
@@ -387,9 +369,7 @@ function evaluateSupply(
   pushRule(env, 'motor-power', motorPeakPowerW, inp.motorMaxPowerW, peakSource);
   if ((kind !== null && AIR_KINDS.includes(kind)) || (kind === null && inp.hasPropeller)) {
     const byMaker = makerLimit !== null && makerLimit < machLimit;
-    pushRule(env, 'prop-tip-speed', op.tipSpeedMps, known(tipLimit), undefined, byMaker
-      ? { limitName: `the propeller maker's limit of ${messageNumber(inp.propMaxRpm ?? 0)} rpm` }
-      : undefined);
+    pushRule(env, 'prop-tip-speed', op.tipSpeedMps, known(tipLimit), undefined, byMaker ? { limitName: `the propeller maker's limit of ${messageNumber(inp.propMaxRpm ?? 0)} rpm` } : undefined);
   }
   for (const f of classFindings(classRules, figures, figureMissing, threshold)) findings.push(f);
 
@@ -439,7 +419,9 @@ function evaluateSupply(
       say(`Weight on the driven wheels: ${pct(inp.drivenShare)} (${src}).`);
     }
     if (propellerBuild) {
-      say('Propeller: the static full-throttle current stands for both peak and continuous current. Tip speed is judged at the highest rpm the propeller can reach, Kv \u00d7 (full-charge voltage \u2212 no-load current \u00d7 resistance), which it approaches as it unloads on the move.');
+      say(
+        'Propeller: the static full-throttle current stands for both peak and continuous current. Tip speed is judged at the highest rpm the propeller can reach, Kv \u00d7 (full-charge voltage \u2212 no-load current \u00d7 resistance), which it approaches as it unloads on the move.',
+      );
       if (inp.propGeared) say(`Gearbox: the propeller turns at motor rpm \u00f7 ${messageNumber(inp.propGearRatio)}, with the drivetrain efficiency taken off.`);
       if (kind === 'boat') {
         say(

@@ -1,9 +1,7 @@
 // A value that is either known or lacks named inputs. Figures and findings carry the names of
 // the inputs they lack so that an incomplete verdict can say exactly what to fill in.
 
-export type Known<T = number> =
-  | { readonly value: T; readonly missing: null }
-  | { readonly value: null; readonly missing: readonly string[] };
+export type Known<T = number> = { readonly value: T; readonly missing: null } | { readonly value: null; readonly missing: readonly string[] };
 
 export function known<T>(value: T): Known<T> {
   return { value, missing: null };

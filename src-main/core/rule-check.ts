@@ -44,10 +44,7 @@ export function checkLimit(c: LimitCheck): Finding {
     finding.value = c.value.value;
     finding.limit = c.limit.value;
     finding.missing = missing;
-    finding.message =
-      missing.length > 0
-        ? `Not checked yet: needs ${describeMissing(missing)}.`
-        : `Not checked: the inputs give no usable ${c.what.toLowerCase()} or limit; check the records for impossible values.`;
+    finding.message = missing.length > 0 ? `Not checked yet: needs ${describeMissing(missing)}.` : `Not checked: the inputs give no usable ${c.what.toLowerCase()} or limit; check the records for impossible values.`;
     return finding;
   }
   const value = c.value.value;

@@ -132,9 +132,7 @@ export function combineParallel(packs: readonly PackModel[]): SupplyModel {
   }
   const r = !rKnown || conductance === 0 ? 0 : 1 / conductance;
   const first = packs[0];
-  const mismatched =
-    first !== undefined &&
-    packs.some((p) => p.cellsSeries !== first.cellsSeries || p.chemistry !== first.chemistry || p.fullV !== first.fullV);
+  const mismatched = first !== undefined && packs.some((p) => p.cellsSeries !== first.cellsSeries || p.chemistry !== first.chemistry || p.fullV !== first.fullV);
   return {
     arrangement: 'parallel',
     packs,

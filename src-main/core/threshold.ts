@@ -6,11 +6,7 @@ const usable = (t: number | null | undefined): t is number => typeof t === 'numb
  * The margin under which a rule reads tight: the build's own, else its class's (the largest
  * any of the class's rules sets, so the most cautious), else the given default.
  */
-export function tightThresholdFor(
-  buildThreshold: number | null,
-  classRules: readonly ClassRule[],
-  defaultThreshold: number,
-): number {
+export function tightThresholdFor(buildThreshold: number | null, classRules: readonly ClassRule[], defaultThreshold: number): number {
   if (usable(buildThreshold)) return buildThreshold;
   let fromClass: number | null = null;
   for (const r of classRules) {

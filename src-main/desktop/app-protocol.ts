@@ -7,9 +7,7 @@ import { APP_SCHEME } from './url-policy';
 
 /** Must run before the app is ready: `app://` behaves like https (standard, secure origin). */
 export function registerAppScheme(): void {
-  protocol.registerSchemesAsPrivileged([
-    { scheme: APP_SCHEME, privileges: { standard: true, secure: true, supportFetchAPI: true, codeCache: true } },
-  ]);
+  protocol.registerSchemesAsPrivileged([{ scheme: APP_SCHEME, privileges: { standard: true, secure: true, supportFetchAPI: true, codeCache: true } }]);
 }
 
 const COMMON_HEADERS = {

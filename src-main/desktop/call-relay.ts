@@ -10,11 +10,7 @@ export type ShellHandler<C> = (context: C, args: unknown) => Promise<CallResult>
  * window can do, like printing), everything else unchanged to the service. Whatever goes
  * wrong comes back as a plain ApiError, never as a thrown stack.
  */
-export function createCallRelay<C>(
-  host: Pick<ServiceHost, 'call'>,
-  shellHandlers: Readonly<Record<string, ShellHandler<C>>>,
-  onInternalError: (error: unknown) => void = () => {},
-) {
+export function createCallRelay<C>(host: Pick<ServiceHost, 'call'>, shellHandlers: Readonly<Record<string, ShellHandler<C>>>, onInternalError: (error: unknown) => void = () => {}) {
   return async function relay(context: C, name: unknown, args: unknown): Promise<CallResult> {
     if (typeof name !== 'string' || name === '') {
       return { ok: false, error: { kind: 'invalid', message: 'The handler name must be a non-empty string.', field: 'name' } };

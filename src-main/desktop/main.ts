@@ -86,9 +86,7 @@ function run(dbPath: string): void {
         Menu.buildFromTemplate(
           menuTemplate({
             backUp: () => {
-              backUpInteractively(opened, BrowserWindow.getFocusedWindow()).catch((error: unknown) =>
-                dialog.showErrorBox('Backup not written', error instanceof Error ? error.message : String(error)),
-              );
+              backUpInteractively(opened, BrowserWindow.getFocusedWindow()).catch((error: unknown) => dialog.showErrorBox('Backup not written', error instanceof Error ? error.message : String(error)));
             },
             about: () => {
               void dialog.showMessageBox({
@@ -115,9 +113,7 @@ function run(dbPath: string): void {
 }
 
 function wireIpc(host: ServiceHost): void {
-  const relay = createCallRelay<ShellCallContext>(host, { [PRINT_TO_PDF]: printToPdf }, (error) =>
-    console.error('Desktop call failed:', error),
-  );
+  const relay = createCallRelay<ShellCallContext>(host, { [PRINT_TO_PDF]: printToPdf }, (error) => console.error('Desktop call failed:', error));
   ipcMain.handle(CALL_CHANNEL, (event, name: unknown, args: unknown) => {
     if (!isTrustedSender(event.senderFrame)) throw new Error('Refused: the call did not come from the Rigbook page.');
     const refused = typeof name === 'string' ? pageCallRefusal('desktop', host.dbPath, name, args) : null;

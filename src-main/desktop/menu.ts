@@ -10,11 +10,7 @@ export function menuTemplate(actions: MenuActions, platform: NodeJS.Platform = p
   const template: MenuItemConstructorOptions[] = [
     {
       label: 'File',
-      submenu: [
-        { label: 'Back up…', accelerator: 'CmdOrCtrl+Shift+B', click: () => actions.backUp() },
-        { type: 'separator' },
-        { label: 'Quit', role: 'quit' },
-      ],
+      submenu: [{ label: 'Back up…', accelerator: 'CmdOrCtrl+Shift+B', click: () => actions.backUp() }, { type: 'separator' }, { label: 'Quit', role: 'quit' }],
     },
     {
       label: 'View',

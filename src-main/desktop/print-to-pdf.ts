@@ -28,7 +28,7 @@ export async function printToPdf(context: ShellCallContext, args: unknown): Prom
   const parsed = v.safeParse(PrintArgs, args);
   if (!parsed.success) {
     const issue = parsed.issues[0];
-    const field = issue ? v.getDotPath(issue) ?? undefined : undefined;
+    const field = issue ? (v.getDotPath(issue) ?? undefined) : undefined;
     return { ok: false, error: { kind: 'invalid', message: issue?.message ?? 'Invalid print options', ...(field ? { field } : {}) } };
   }
   const options = parsed.output ?? {};

@@ -21,14 +21,7 @@ export function isAppUrl(raw: string): boolean {
   if (!url) return false;
   // Node leaves the host of a non-special scheme as written, Chromium lowercases a standard
   // scheme's host; requiring the exact lowercase host is right for both.
-  return (
-    url.protocol === `${APP_SCHEME}:` &&
-    url.host === APP_HOST &&
-    url.hostname === APP_HOST &&
-    url.port === '' &&
-    url.username === '' &&
-    url.password === ''
-  );
+  return url.protocol === `${APP_SCHEME}:` && url.host === APP_HOST && url.hostname === APP_HOST && url.port === '' && url.username === '' && url.password === '';
 }
 
 /**

@@ -106,8 +106,8 @@ export async function startLocalServer(options: LocalServerOptions): Promise<Loc
         const body = await readBody(req);
         args = body === '' ? undefined : (JSON.parse(body) as unknown);
       } catch (error) {
-        const tooLarge = error instanceof Error && error.message === "body too large";
-        return refuse(res, tooLarge ? 413 : 400, tooLarge ? "Request too large" : "Body is not valid JSON");
+        const tooLarge = error instanceof Error && error.message === 'body too large';
+        return refuse(res, tooLarge ? 413 : 400, tooLarge ? 'Request too large' : 'Body is not valid JSON');
       }
       const name = decodeURIComponent(url.pathname.slice('/api/'.length));
       const refused = pageCallRefusal('loopback', options.host.dbPath, name, args);

@@ -20,7 +20,14 @@ async function referenced<T extends RefTable>(db: DbHandle, table: T, selector: 
   const rows = await db
     .selectFrom(table as 'motors')
     .selectAll()
-    .where('id', 'in', db.selectFrom('builds').select(`builds.${REF_COLUMN[table]}` as 'builds.motorId').where('builds.id', 'in', selectedBuildIds(db, selector)))
+    .where(
+      'id',
+      'in',
+      db
+        .selectFrom('builds')
+        .select(`builds.${REF_COLUMN[table]}` as 'builds.motorId')
+        .where('builds.id', 'in', selectedBuildIds(db, selector)),
+    )
     .execute();
   return new Map(rows.map((row) => [row.id, rowToRecord(table, row)]));
 }
@@ -29,11 +36,7 @@ async function referencedPacks(db: DbHandle, selector: BuildSelector): Promise<M
   const rows = await db
     .selectFrom('batteries')
     .selectAll()
-    .where(
-      'id',
-      'in',
-      db.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplyPacks.batteryId').where('supplies.buildId', 'in', selectedBuildIds(db, selector)),
-    )
+    .where('id', 'in', db.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplyPacks.batteryId').where('supplies.buildId', 'in', selectedBuildIds(db, selector)))
     .execute();
   return new Map(rows.map((row) => [row.id, rowToRecord('batteries', row)]));
 }
@@ -85,13 +88,7 @@ export function diffStatuses(verdict: BuildVerdict, stored: { status: Status; su
 }
 
 /** Evaluates the selected builds and stores their verdicts; run inside the write's transaction. */
-export async function recheckBuilds(
-  db: DbHandle,
-  selector: BuildSelector,
-  defaultTightThreshold: number,
-  evaluatedAt: string,
-  options: EvaluateOptions = { messages: false },
-): Promise<RecheckResult> {
+export async function recheckBuilds(db: DbHandle, selector: BuildSelector, defaultTightThreshold: number, evaluatedAt: string, options: EvaluateOptions = { messages: false }): Promise<RecheckResult> {
   if (selectsNothing(selector)) return { verdicts: [], changes: [] };
   const [contexts, stored] = await Promise.all([loadBuildContexts(db, selector, defaultTightThreshold), getStoredStatuses(db, selector)]);
   // Statuses and list figures are all a re-check stores, so by default it skips the sentences;

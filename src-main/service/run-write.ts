@@ -53,11 +53,7 @@ class PreviewRollback<R> extends Error {
  * failure, and that write runs again from the start (reading the other's committed result: a
  * stale `expectedVersion` is then refused as a conflict, as on SQLite).
  */
-export async function runWrite<R>(
-  ctx: ServiceContext,
-  work: (trx: Transaction<Db>, at: string) => Promise<WritePlan<R>>,
-  options: { preview?: boolean; messages?: boolean } = {},
-): Promise<WriteOutcome<R>> {
+export async function runWrite<R>(ctx: ServiceContext, work: (trx: Transaction<Db>, at: string) => Promise<WritePlan<R>>, options: { preview?: boolean; messages?: boolean } = {}): Promise<WriteOutcome<R>> {
   // A write into a file that was deleted or replaced underneath would be lost without a word.
   const moved = options.preview ? null : (ctx.storeFile?.problem() ?? null);
   if (moved) throw new ServiceError('store-changed', moved);

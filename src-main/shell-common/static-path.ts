@@ -3,9 +3,7 @@ import path from 'node:path';
 // One resolver for both shells: the desktop's app:// protocol and the loopback HTTP shell map a
 // request path to a file under the renderer folder by the same rules.
 
-export type ResolvedAppFile =
-  | { ok: true; filePath: string }
-  | { ok: false; status: 400 | 403; reason: string };
+export type ResolvedAppFile = { ok: true; filePath: string } | { ok: false; status: 400 | 403; reason: string };
 
 const ENTRY_FILE = 'index.html';
 

@@ -39,11 +39,7 @@ export function selectorCondition(db: DbHandle, eb: ExpressionBuilder<Db, 'build
       return eb('builds.vehicleId', 'in', db.selectFrom('vehicles').select('vehicles.id').where('vehicles.className', '=', selector.className));
     case 'part':
       if (selector.kind === 'batteries') {
-        return eb(
-          'builds.id',
-          'in',
-          db.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplies.buildId').where('supplyPacks.batteryId', '=', selector.id),
-        );
+        return eb('builds.id', 'in', db.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplies.buildId').where('supplyPacks.batteryId', '=', selector.id));
       }
       return eb(`builds.${PART_COLUMN[selector.kind]}`, '=', selector.id);
     case 'any':

@@ -28,7 +28,15 @@ export interface StoredFleetIds {
 
 /** Every id the store holds, archived records included: what a merge is checked against. */
 export async function readFleetIds(db: DbHandle): Promise<StoredFleetIds> {
-  const ids = async (table: PartTableName | 'builds') => new Set((await db.selectFrom(table as AnyTable).select('id').execute()).map((r) => r.id));
+  const ids = async (table: PartTableName | 'builds') =>
+    new Set(
+      (
+        await db
+          .selectFrom(table as AnyTable)
+          .select('id')
+          .execute()
+      ).map((r) => r.id),
+    );
   const supplies = await db.selectFrom('supplies').select(['id', 'buildId']).execute();
   return {
     batteries: await ids('batteries'),
@@ -145,13 +153,7 @@ export interface PartsInUse {
 export async function buildIdsUsingAny(db: DbHandle, parts: PartsInUse, classNames: readonly string[]): Promise<string[]> {
   const out = new Set<string>();
   for (const part of chunks(parts.batteries)) {
-    const rows = await db
-      .selectFrom('supplyPacks')
-      .innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId')
-      .select('supplies.buildId')
-      .distinct()
-      .where('supplyPacks.batteryId', 'in', part)
-      .execute();
+    const rows = await db.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplies.buildId').distinct().where('supplyPacks.batteryId', 'in', part).execute();
     for (const r of rows) out.add(r.buildId);
   }
   const columns = [
@@ -167,12 +169,7 @@ export async function buildIdsUsingAny(db: DbHandle, parts: PartsInUse, classNam
     }
   }
   for (const part of chunks(classNames)) {
-    const rows = await db
-      .selectFrom('builds')
-      .innerJoin('vehicles', 'vehicles.id', 'builds.vehicleId')
-      .select('builds.id')
-      .where('vehicles.className', 'in', part)
-      .execute();
+    const rows = await db.selectFrom('builds').innerJoin('vehicles', 'vehicles.id', 'builds.vehicleId').select('builds.id').where('vehicles.className', 'in', part).execute();
     for (const r of rows) out.add(r.id);
   }
   return [...out];

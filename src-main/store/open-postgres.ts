@@ -28,8 +28,7 @@ export interface PostgresOpenOptions {
 const INT8_OID = 20;
 const NUMERIC_OID = 1700;
 const types = {
-  getTypeParser: ((oid: number, format?: 'text' | 'binary') =>
-    oid === INT8_OID || oid === NUMERIC_OID ? (value: string) => Number(value) : pg.types.getTypeParser(oid, format ?? 'text')) as typeof pg.types.getTypeParser,
+  getTypeParser: ((oid: number, format?: 'text' | 'binary') => (oid === INT8_OID || oid === NUMERIC_OID ? (value: string) => Number(value) : pg.types.getTypeParser(oid, format ?? 'text'))) as typeof pg.types.getTypeParser,
 };
 
 /** What the driver said, without the password and with the store named by its masked URL. */

@@ -64,8 +64,7 @@ export function readSchemaShape(db: Database.Database): SchemaShape {
   return shape;
 }
 
-const describeColumn = (c: ColumnShape): string =>
-  `${c.type || 'untyped'}${c.notNull ? ' not null' : ''}${c.defaultValue === null ? '' : ` default ${c.defaultValue}`}${c.primaryKeyPosition > 0 ? ' primary key' : ''}`;
+const describeColumn = (c: ColumnShape): string => `${c.type || 'untyped'}${c.notNull ? ' not null' : ''}${c.defaultValue === null ? '' : ` default ${c.defaultValue}`}${c.primaryKeyPosition > 0 ? ' primary key' : ''}`;
 
 /** The first way `actual` differs from `expected`, in words; null when they are the same. */
 export function firstSchemaDifference(actual: SchemaShape, expected: SchemaShape): string | null {

@@ -94,8 +94,7 @@ export function importsIn(from: string, text: string): FoundImport[] {
       if (ts.isImportDeclaration(node) && ts.isStringLiteral(node.moduleSpecifier)) {
         const clause = node.importClause;
         const bindings = clause?.namedBindings;
-        const everyNameIsType =
-          clause !== undefined && clause.name === undefined && bindings !== undefined && ts.isNamedImports(bindings) && bindings.elements.length > 0 && bindings.elements.every((e) => e.isTypeOnly);
+        const everyNameIsType = clause !== undefined && clause.name === undefined && bindings !== undefined && ts.isNamedImports(bindings) && bindings.elements.length > 0 && bindings.elements.every((e) => e.isTypeOnly);
         found.push({ from, specifier: node.moduleSpecifier.text, typeOnly: (clause?.isTypeOnly ?? false) || everyNameIsType });
       } else if (ts.isExportDeclaration(node) && node.moduleSpecifier && ts.isStringLiteral(node.moduleSpecifier)) {
         found.push({ from, specifier: node.moduleSpecifier.text, typeOnly: node.isTypeOnly });

@@ -41,7 +41,10 @@ function uptime(): string {
   try {
     return execFileSync('uptime', { encoding: 'utf8' }).trim();
   } catch {
-    return `load average: ${os.loadavg().map((l) => l.toFixed(2)).join(', ')}`;
+    return `load average: ${os
+      .loadavg()
+      .map((l) => l.toFixed(2))
+      .join(', ')}`;
   }
 }
 
@@ -115,7 +118,7 @@ function recheckFigures(b: RecheckBench, budgeted: boolean): void {
           .map(([k, v]) => `${k} ${ms(v)}`)
           .join(', ') +
         `; together ${ms(sum)} beside the call's ${ms(s.serviceMedian)} (measured apart, in a transaction rolled back, so they show the shares, not an exact sum; ` +
-        'the call adds validation, the motor\'s own read-write-read, the settings read and the commit)',
+        "the call adds validation, the motor's own read-write-read, the settings read and the commit)",
     );
   }
 }
@@ -260,7 +263,7 @@ async function main(): Promise<void> {
         );
         notes.push(
           `Chromium: ${sh.browserPath}; bundles: ${sh.builtNow ? 'built by this run' : 'the existing dist-main/ and dist-renderer/'}` +
-            (sh.stale ? ' — WARNING: sources changed after they were built, so these figures are the older build\'s (run npm run build)' : ''),
+            (sh.stale ? " — WARNING: sources changed after they were built, so these figures are the older build's (run npm run build)" : ''),
         );
       });
     } else {
@@ -277,7 +280,6 @@ async function main(): Promise<void> {
       if (!big) throw new Error('no 10 000-build store');
       recheckFigures(await benchRecheck(big.dbPath, RUNS), true);
     });
-
   } finally {
     if (KEEP) notes.push(`stores kept in ${folder}`);
     else rmSync(folder, { recursive: true, force: true });
@@ -288,12 +290,15 @@ async function main(): Promise<void> {
     const at = ['Re-check after editing a motor used by 1', 'Core', 'Builds list query', 'Loopback shell', 'Setup'].findIndex((g) => f.group.startsWith(g));
     return f.group.includes('10,000 builds') && f.group.startsWith('Re-check') ? -1 : at;
   };
-  const table = figures.map((f, i) => ({ f, i })).sort((a, b) => order(a.f) - order(b.f) || a.i - b.i).map((x) => x.f);
+  const table = figures
+    .map((f, i) => ({ f, i }))
+    .sort((a, b) => order(a.f) - order(b.f) || a.i - b.i)
+    .map((x) => x.f);
   log('');
   log(renderTable(table));
   log('');
   log('The raw floor runs the same evaluateBuild (messages: false) as the service, so the ratio isolates the data layer.');
-  log('A keystroke is timed in the page from its keydown to the frame that shows the updated list; headless Chromium draws that frame as soon as the key is handled, so it is the key\'s main-thread work.');
+  log("A keystroke is timed in the page from its keydown to the frame that shows the updated list; headless Chromium draws that frame as soon as the key is handled, so it is the key's main-thread work.");
   for (const n of notes) log(`- ${n}`);
   if (process.argv.includes('--markdown')) {
     log('');

@@ -26,9 +26,20 @@ export async function makeStore(folder: string, builds: number): Promise<BenchSt
     const importMs = performance.now() - started;
     if (!result.ok) throw new Error(`fleet.import refused the generated fleet: ${result.error.message}`);
     const report = result.value as { ok: boolean; problems?: { place: string; message: string }[] };
-    if (!report.ok) throw new Error(`fleet.import refused the generated fleet: ${(report.problems ?? []).slice(0, 3).map((p) => `${p.place}: ${p.message}`).join('; ')}`);
+    if (!report.ok)
+      throw new Error(
+        `fleet.import refused the generated fleet: ${(report.problems ?? [])
+          .slice(0, 3)
+          .map((p) => `${p.place}: ${p.message}`)
+          .join('; ')}`,
+      );
     const statuses: Record<string, number> = {};
-    const rows = await host.ctx.db.selectFrom('verdicts').select(['status']).select((eb) => eb.fn.countAll<number>().as('n')).groupBy('status').execute();
+    const rows = await host.ctx.db
+      .selectFrom('verdicts')
+      .select(['status'])
+      .select((eb) => eb.fn.countAll<number>().as('n'))
+      .groupBy('status')
+      .execute();
     for (const row of rows) statuses[row.status] = Number(row.n);
     return { builds, dbPath, importMs, statuses };
   } finally {

@@ -26,9 +26,20 @@ export interface FloorTiming {
 
 /** A build as the `builds` statement returns it, column by column. */
 type BuildRow = [
-  id: string, vehicleId: string, motorId: string | null, motorCount: number, controllerId: string | null, propellerId: string | null,
-  pinionTeeth: number | null, spurTeeth: number | null, internalRatio: number, tireDiameterMm: number | null, drivetrainEfficiency: number,
-  measuredPeakCurrentA: number | null, measuredAverageCurrentA: number | null, tightThreshold: number | null,
+  id: string,
+  vehicleId: string,
+  motorId: string | null,
+  motorCount: number,
+  controllerId: string | null,
+  propellerId: string | null,
+  pinionTeeth: number | null,
+  spurTeeth: number | null,
+  internalRatio: number,
+  tireDiameterMm: number | null,
+  drivetrainEfficiency: number,
+  measuredPeakCurrentA: number | null,
+  measuredAverageCurrentA: number | null,
+  tightThreshold: number | null,
 ];
 
 type Row = Record<string, unknown>;
@@ -139,7 +150,7 @@ export class RawFloor {
       const before = st.motor.get(motorId) as Row;
       if (st.updateMotor.run(maxCurrentA, at, motorId, before.version).changes !== 1) throw new Error('raw floor: the motor was not updated');
       const after = st.motor.get(motorId) as Row;
-      const threshold = JSON.parse(((st.threshold.get() as { value: string } | undefined)?.value ?? '0.15')) as number;
+      const threshold = JSON.parse((st.threshold.get() as { value: string } | undefined)?.value ?? '0.15') as number;
       const builds = st.builds.all(motorId) as BuildRow[];
       const supplies = new Map<string, Supply[]>();
       const packIds = new Set<string>();
@@ -186,11 +197,21 @@ export class RawFloor {
         const context: BuildContext = {
           // Keys in the store's own order, so the evaluation meets objects of the shape it always meets.
           build: {
-            id, version: 0, archivedAt: null, notes: '', name: '',
-            vehicleId, motorId: motorRef, motorCount, controllerId, propellerId,
+            id,
+            version: 0,
+            archivedAt: null,
+            notes: '',
+            name: '',
+            vehicleId,
+            motorId: motorRef,
+            motorCount,
+            controllerId,
+            propellerId,
             gearing: { pinionTeeth, spurTeeth, internalRatio, tireDiameterMm, drivetrainEfficiency },
             supplies: supplies.get(id) ?? [],
-            measuredPeakCurrentA: b[11], measuredAverageCurrentA: b[12], tightThreshold: b[13],
+            measuredPeakCurrentA: b[11],
+            measuredAverageCurrentA: b[12],
+            tightThreshold: b[13],
           },
           vehicle,
           motor: motorRef === null ? null : (motors.get(motorRef) ?? null),
@@ -219,16 +240,31 @@ export class RawFloor {
           }
         }
         const same =
-          before !== undefined && before.status === v.status && before.supplyStatuses === supplyStatuses &&
-          before.figures[0] === fullV && before.figures[1] === speed && before.figures[2] === peak && before.figures[3] === limit && before.figures[4] === rule && before.figures[5] === source;
+          before !== undefined &&
+          before.status === v.status &&
+          before.supplyStatuses === supplyStatuses &&
+          before.figures[0] === fullV &&
+          before.figures[1] === speed &&
+          before.figures[2] === peak &&
+          before.figures[3] === limit &&
+          before.figures[4] === rule &&
+          before.figures[5] === source;
         if (!same) {
           st.upsertVerdict.run(v.buildId, v.status, fullV, speed, peak, limit, rule, source, supplyStatuses, at);
           t.written += 1;
         }
       }
       const history = st.history.run(
-        at, 'bench', 'update', 'motors', motorId, `Changed motor "${String(after.name)}": maxCurrentA ${String(before.maxCurrentA)} → ${maxCurrentA}`, 'benchmark (raw floor)',
-        JSON.stringify(bookkeeping(before)), JSON.stringify(bookkeeping(after)), JSON.stringify(changes),
+        at,
+        'bench',
+        'update',
+        'motors',
+        motorId,
+        `Changed motor "${String(after.name)}": maxCurrentA ${String(before.maxCurrentA)} → ${maxCurrentA}`,
+        'benchmark (raw floor)',
+        JSON.stringify(bookkeeping(before)),
+        JSON.stringify(bookkeeping(after)),
+        JSON.stringify(changes),
       );
       st.historySelector.run(history.lastInsertRowid, motorId);
       for (const buildId of new Set(changes.map((c) => c.buildId))) st.historyBuild.run(history.lastInsertRowid, buildId);

@@ -51,8 +51,17 @@ export async function servicePhases(db: Kysely<Db>, motorId: string): Promise<Se
       await writeVerdicts(trx, rows);
       lap('write changed verdict rows');
       await appendHistory(trx, {
-        at, actor: 'bench', action: 'update', entityKind: 'motors', entityId: motorId, summary: 'benchmark breakdown', reason: '',
-        before: null, after: null, verdictChanges: changes, builds: selector,
+        at,
+        actor: 'bench',
+        action: 'update',
+        entityKind: 'motors',
+        entityId: motorId,
+        summary: 'benchmark breakdown',
+        reason: '',
+        before: null,
+        after: null,
+        verdictChanges: changes,
+        builds: selector,
       });
       lap('history row, selector, links of changed builds');
       throw new Rollback('rolled back on purpose');

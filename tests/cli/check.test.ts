@@ -33,9 +33,7 @@ describe('rigbook check', () => {
       expect(Object.keys(b)).toEqual(['id', 'name', 'status', 'supplies']);
       for (const s of b.supplies) {
         expect(Object.keys(s)).toEqual(['id', 'name', 'batteryIds', 'status', 'figures', 'findings', 'packShares', 'assumptions']);
-        expect(Object.keys(s.figures)).toEqual(
-          expect.arrayContaining(['packVoltageNominalV', 'packVoltageFullV', 'torqueConstantNmPerA', 'noLoadRpm', 'finalDriveRatio', 'theoreticalSpeedKmh', 'peakCurrentA', 'continuousCurrentA']),
-        );
+        expect(Object.keys(s.figures)).toEqual(expect.arrayContaining(['packVoltageNominalV', 'packVoltageFullV', 'torqueConstantNmPerA', 'noLoadRpm', 'finalDriveRatio', 'theoreticalSpeedKmh', 'peakCurrentA', 'continuousCurrentA']));
         for (const finding of s.findings) expect(Object.keys(finding)).toEqual(['rule', 'status', 'value', 'limit', 'unit', 'margin', 'message']);
       }
     }
@@ -55,10 +53,11 @@ describe('rigbook check', () => {
     for (const b of out.builds)
       for (const s of b.supplies) {
         for (const value of Object.values(s.figures)) if (typeof value === 'number') expect(value).toBe(Number(value.toPrecision(6)));
-        for (const finding of s.findings) for (const key of ['value', 'limit', 'margin']) {
-          const value = finding[key];
-          if (typeof value === 'number') expect(value).toBe(Number(value.toPrecision(6)));
-        }
+        for (const finding of s.findings)
+          for (const key of ['value', 'limit', 'margin']) {
+            const value = finding[key];
+            if (typeof value === 'number') expect(value).toBe(Number(value.toPrecision(6)));
+          }
       }
   });
 

@@ -134,7 +134,11 @@ describe('rigbook and fleet files from scripts and spreadsheets', () => {
     // Big enough that the output overflows the pipe's buffer long before the check is done printing.
     const fleet = generateFleet({ builds: 500, seed: 11 });
     // Only builds that are not over: the check's own answer is 0, and a crash on the closed pipe (exit 1) would read as "over".
-    const over = new Set(evaluateFleet({ ...fleet, classRules: fleet.classRules ?? [] }).filter((v) => v.status === 'over').map((v) => v.buildId));
+    const over = new Set(
+      evaluateFleet({ ...fleet, classRules: fleet.classRules ?? [] })
+        .filter((v) => v.status === 'over')
+        .map((v) => v.buildId),
+    );
     fleet.builds = fleet.builds.filter((b) => !over.has(b.id));
     writeFileSync(t.file('big.json'), fleetText(fleet));
     const script = `node --import tsx src-main/cli/main.ts check "${t.file('big.json')}" --json 2>"${t.file('err.txt')}" | head -1; echo "exit=\${PIPESTATUS[0]}"`;

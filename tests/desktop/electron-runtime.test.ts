@@ -48,9 +48,7 @@ describe('desktop shell in Electron', () => {
       });
       expect(surface).toEqual({ keys: ['call', 'onEvent'], hasRequire: false, hasProcess: false });
 
-      const unknown = await page.evaluate(() =>
-        (window as unknown as { rigbook: { call(n: string, a: unknown): Promise<unknown> } }).rigbook.call('desktop.noSuchThing', {}),
-      );
+      const unknown = await page.evaluate(() => (window as unknown as { rigbook: { call(n: string, a: unknown): Promise<unknown> } }).rigbook.call('desktop.noSuchThing', {}));
       expect(unknown).toMatchObject({ ok: false, error: { kind: 'unknown-handler' } });
 
       await page.evaluate(() => {

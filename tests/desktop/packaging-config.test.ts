@@ -56,9 +56,7 @@ describe('electron-builder.yml', () => {
     const appDir = await computeDefaultAppDirectory(ROOT, config.directories?.app);
     expect(appDir).toBe(join(ROOT, 'app'));
 
-    const manifest: { name?: string; version?: string; main?: string; dependencies?: Record<string, string> } = JSON.parse(
-      readFileSync(join(appDir, 'package.json'), 'utf8'),
-    );
+    const manifest: { name?: string; version?: string; main?: string; dependencies?: Record<string, string> } = JSON.parse(readFileSync(join(appDir, 'package.json'), 'utf8'));
     expect(manifest.name).toBe('rigbook');
     expect(manifest.version).toMatch(/^\d+\.\d+\.\d+$/);
     expect(manifest.main).toBe('dist-main/desktop-main.cjs');

@@ -19,10 +19,7 @@ describe('isTrustedSender', () => {
     expect(isTrustedSender({ url: 'app://rigbook/index.html', parent: top('app://rigbook/index.html') })).toBe(false);
   });
 
-  it.each(['app://rigbook.evil/index.html', 'app://rigbook@evil/', 'app://evil/rigbook', 'file:///tmp/index.html', 'https://rigbook/', 'about:blank', ''])(
-    'refuses a top frame on %s',
-    (url) => {
-      expect(isTrustedSender(top(url))).toBe(false);
-    },
-  );
+  it.each(['app://rigbook.evil/index.html', 'app://rigbook@evil/', 'app://evil/rigbook', 'file:///tmp/index.html', 'https://rigbook/', 'about:blank', ''])('refuses a top frame on %s', (url) => {
+    expect(isTrustedSender(top(url))).toBe(false);
+  });
 });

@@ -6,12 +6,9 @@ import { allowedExternalUrl, APP_ENTRY_URL, APP_ORIGIN, isAllowedExternal, isApp
 // would wrongly accept (Electron security checklist, "validate the sender of all IPC
 // messages" and "limit navigation", from memory).
 describe('isAppUrl', () => {
-  it.each([APP_ENTRY_URL, `${APP_ORIGIN}/`, `${APP_ORIGIN}/assets/index-3f2a.js`, `${APP_ORIGIN}/?view=builds#b-12`, 'APP://rigbook/index.html'])(
-    'accepts our origin: %s',
-    (url) => {
-      expect(isAppUrl(url)).toBe(true);
-    },
-  );
+  it.each([APP_ENTRY_URL, `${APP_ORIGIN}/`, `${APP_ORIGIN}/assets/index-3f2a.js`, `${APP_ORIGIN}/?view=builds#b-12`, 'APP://rigbook/index.html'])('accepts our origin: %s', (url) => {
+    expect(isAppUrl(url)).toBe(true);
+  });
 
   it.each([
     ['host with a suffix', 'app://rigbook.evil/'],

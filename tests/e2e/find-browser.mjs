@@ -40,10 +40,7 @@ export function onPath(name, env = process.env, platform = process.platform) {
 function installFolders(env, platform) {
   if (platform === 'darwin') {
     const roots = ['/Applications', ...(env.HOME ? [path.join(env.HOME, 'Applications')] : [])];
-    return roots.flatMap((root) => [
-      path.join(root, 'Chromium.app', 'Contents', 'MacOS', 'Chromium'),
-      path.join(root, 'Google Chrome.app', 'Contents', 'MacOS', 'Google Chrome'),
-    ]);
+    return roots.flatMap((root) => [path.join(root, 'Chromium.app', 'Contents', 'MacOS', 'Chromium'), path.join(root, 'Google Chrome.app', 'Contents', 'MacOS', 'Google Chrome')]);
   }
   if (platform === 'win32') {
     const roots = [env.ProgramFiles, env['ProgramFiles(x86)'], env.LOCALAPPDATA].filter(Boolean);

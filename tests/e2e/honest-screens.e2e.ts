@@ -100,8 +100,14 @@ test('filters, sort and search live in the address: a reload and Back keep them'
 
   await page.getByRole('button', { name: /^Over/ }).click();
   await page.getByLabel('Search builds').fill('spare');
-  await page.getByRole('columnheader', { name: /^Build/ }).getByRole('button').click();
-  await page.getByRole('columnheader', { name: /^Build/ }).getByRole('button').click();
+  await page
+    .getByRole('columnheader', { name: /^Build/ })
+    .getByRole('button')
+    .click();
+  await page
+    .getByRole('columnheader', { name: /^Build/ })
+    .getByRole('button')
+    .click();
   await expect(page.getByTestId('build-row')).toHaveCount(2);
   await expect(page.getByTestId('build-row').first()).toContainText('Green truck on spare');
   const hash = await page.evaluate(() => window.location.hash);

@@ -13,9 +13,20 @@ describe('CSV text (RFC 4180)', () => {
   });
 
   it('reads back what it writes, and reads LF line ends, a byte-order mark and a missing final newline', () => {
-    const rows = [['id', 'name'], ['p1', 'Pack, "the big one"'], ['p2', 'line\r\nbreak'], ['p3', '']];
+    const rows = [
+      ['id', 'name'],
+      ['p1', 'Pack, "the big one"'],
+      ['p2', 'line\r\nbreak'],
+      ['p3', ''],
+    ];
     expect(parseCsv(csvText(rows))).toEqual({ ok: true, rows });
-    expect(parseCsv('\ufeffid,name\np1,A')).toEqual({ ok: true, rows: [['id', 'name'], ['p1', 'A']] });
+    expect(parseCsv('\ufeffid,name\np1,A')).toEqual({
+      ok: true,
+      rows: [
+        ['id', 'name'],
+        ['p1', 'A'],
+      ],
+    });
   });
 
   it('names the line of a quote that is never closed or misplaced', () => {
@@ -97,9 +108,15 @@ describe('CSV export and import per part kind', () => {
     [
       'an extra column',
       (t: string) => t.replace('archivedAt\r\n', 'archivedAt,colour\r\n').replace(/,1,\r\n/g, ',1,,red\r\n'),
-      ['row 1, column "colour": column 16 is not a pack field Rigbook knows (the columns are: id, name, chemistry, cellsSeries, cellsParallel, capacityMah, cRatingContinuous, cRatingBurst, cellResistanceOhm, massKg, cycleCount, retired, notes, version, archivedAt)'],
+      [
+        'row 1, column "colour": column 16 is not a pack field Rigbook knows (the columns are: id, name, chemistry, cellsSeries, cellsParallel, capacityMah, cRatingContinuous, cRatingBurst, cellResistanceOhm, massKg, cycleCount, retired, notes, version, archivedAt)',
+      ],
     ],
-    ['a bad value', (t: string) => t.replace(',lipo,4,', ',lead,4,').replace(',lipo,2,1,5000,50', ',lipo,2,1,lots,50'), ['row 2, column "capacityMah": must be a number', 'row 3, column "chemistry": must be one of: lipo, lihv, lifepo4, liion, nimh']],
+    [
+      'a bad value',
+      (t: string) => t.replace(',lipo,4,', ',lead,4,').replace(',lipo,2,1,5000,50', ',lipo,2,1,lots,50'),
+      ['row 2, column "capacityMah": must be a number', 'row 3, column "chemistry": must be one of: lipo, lihv, lifepo4, liion, nimh'],
+    ],
     ['a short row', (t: string) => t.replace(/,false,,1,\r\n$/, ',false,,1\r\n'), ['row 3: has 14 cells; the header has 15']],
     ['an empty required cell', (t: string) => t.replace('Test 4S', ''), ['row 3, column "name": is required']],
   ])('%s gets a report naming row and column, and the store is unchanged', async (_label, edit, expected) => {

@@ -99,7 +99,11 @@ forEachEngine((engine) => {
       expect(quad.supplies[0]!.figures.tipSpeedStaticMps as number).toBeLessThan(tip.limit!);
       expect(tip.value as number).toBeGreaterThan(tip.limit!);
       // The rest of the quad is still only close to its ratings.
-      expect(quad.supplies[0]!.findings.filter((x) => x.status === 'tight').map((x) => x.rule).sort()).toEqual(['battery-continuous', 'motor-current']);
+      expect(
+        quad.supplies[0]!.findings.filter((x) => x.status === 'tight')
+          .map((x) => x.rule)
+          .sort(),
+      ).toEqual(['battery-continuous', 'motor-current']);
 
       const crawler = (await f.call('builds.get', { id: 'demo-b-crawler' })).verdict!;
       const missing = crawler.supplies[0]!.findings.filter((x) => x.status === 'incomplete').flatMap((x) => x.missing ?? []);

@@ -36,11 +36,7 @@ describe('a fleet file is checked whole before anything is written', () => {
     fleet.builds[3]!.supplies[0]!.batteryIds = [fleet.batteries[1]!.id, 'x'];
     fleet.motors[0]!.kv = 'fast' as never;
     const problems = await refused({ fleet, mode: 'merge' });
-    expect(problems).toEqual([
-      'batteries[2].chemistry: must be one of: lipo, lihv, lifepo4, liion, nimh',
-      'motors[0].kv: must be a number',
-      'builds[3].supplies[0].batteryIds[1]: no pack with id "x" in this file or the store',
-    ]);
+    expect(problems).toEqual(['batteries[2].chemistry: must be one of: lipo, lihv, lifepo4, liion, nimh', 'motors[0].kv: must be a number', 'builds[3].supplies[0].batteryIds[1]: no pack with id "x" in this file or the store']);
   });
 
   it('a reference to a record that failed its own check is not reported twice', async () => {
@@ -125,10 +121,7 @@ describe('a fleet file is checked whole before anything is written', () => {
     const result = inspectFleet({ format: 'rigbook-fleet', version: 1, packs: [], motors: {} });
     expect(result.ok).toBe(false);
     if (result.ok) return;
-    expect(result.problems.map(problemLine)).toEqual([
-      'packs: is not part of a rigbook-fleet file (it holds: batteries, motors, controllers, propellers, vehicles, classRules, builds)',
-      'motors: must be a list of motors',
-    ]);
+    expect(result.problems.map(problemLine)).toEqual(['packs: is not part of a rigbook-fleet file (it holds: batteries, motors, controllers, propellers, vehicles, classRules, builds)', 'motors: must be a list of motors']);
   });
 
   it('a field with an odd name is still named exactly', () => {

@@ -19,7 +19,8 @@ const NAMES = Object.keys(handlers);
 const PER_HANDLER = Math.floor((TOTAL * 0.96) / NAMES.length);
 const NAME_RUNS = TOTAL - PER_HANDLER * NAMES.length;
 /** Handlers the seeds know how to call validly; any other gets the malformed fuzz only. */
-const SEEDED = /^((batteries|motors|controllers|propellers|vehicles|classRules)\.(list|get|create|update|archive)|builds\.(list|get|create|update|archive|preview)|history\.list|settings\.(get|update)|store\.(info|backup)|fleet\.(export|exportCsv|import|importCsv)|demo\.load)$/;
+const SEEDED =
+  /^((batteries|motors|controllers|propellers|vehicles|classRules)\.(list|get|create|update|archive)|builds\.(list|get|create|update|archive|preview)|history\.list|settings\.(get|update)|store\.(info|backup)|fleet\.(export|exportCsv|import|importCsv)|demo\.load)$/;
 
 const tally = newTally();
 let temp: ReturnType<typeof fuzzDir>;
@@ -39,47 +40,51 @@ afterAll(() => {
 });
 
 describe('every handler keeps its promises under bad input', () => {
-  it.each(NAMES)('%s', async (name) => {
-    const store = await openFuzzStore(template, temp.dir, name);
-    try {
-      const before = { fingerprint: store.fingerprint() };
-      const schema = handlers[name as keyof typeof handlers].input as unknown as SchemaNode;
-      const seeded = SEEDED.test(name);
-      const malformedRuns = seeded ? Math.ceil(PER_HANDLER * 0.4) : PER_HANDLER;
-      await fc.assert(
-        fc.asyncProperty(malformedPayload(fieldNames(schema)), async (payload) => {
-          await callAndCheck(store, tally, name, confinePaths(payload, temp.dir), before);
-        }),
-        { numRuns: malformedRuns, seed: SEED, endOnFailure: true },
-      );
-      if (seeded) {
-        const ids = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'builds'].flatMap((k) => store.ids(k));
-        const files: SeedFiles = { fleet: null, csv: new Map(), sandbox: temp.dir };
-        if (name.startsWith('fleet.')) {
-          files.fleet = (await store.host.call('fleet.export', {})).ok ? ((await store.host.call('fleet.export', {})) as { value: unknown }).value : null;
-          for (const kind of ['batteries', 'motors', 'vehicles']) {
-            const csv = await store.host.call('fleet.exportCsv', { kind });
-            if (csv.ok) files.csv.set(kind, (csv.value as { text: string }).text);
-          }
-          before.fingerprint = store.fingerprint();
-        }
+  it.each(NAMES)(
+    '%s',
+    async (name) => {
+      const store = await openFuzzStore(template, temp.dir, name);
+      try {
+        const before = { fingerprint: store.fingerprint() };
+        const schema = handlers[name as keyof typeof handlers].input as unknown as SchemaNode;
+        const seeded = SEEDED.test(name);
+        const malformedRuns = seeded ? Math.ceil(PER_HANDLER * 0.4) : PER_HANDLER;
         await fc.assert(
-          fc.asyncProperty(fc.gen(), async (g) => {
-            await callAndCheck(store, tally, name, confinePaths(mutate(g, validPayload(name, g, store, files), schema, ids), temp.dir), before);
+          fc.asyncProperty(malformedPayload(fieldNames(schema)), async (payload) => {
+            await callAndCheck(store, tally, name, confinePaths(payload, temp.dir), before);
           }),
-          { numRuns: PER_HANDLER - malformedRuns, seed: SEED, endOnFailure: true },
+          { numRuns: malformedRuns, seed: SEED, endOnFailure: true },
         );
+        if (seeded) {
+          const ids = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'builds'].flatMap((k) => store.ids(k));
+          const files: SeedFiles = { fleet: null, csv: new Map(), sandbox: temp.dir };
+          if (name.startsWith('fleet.')) {
+            files.fleet = (await store.host.call('fleet.export', {})).ok ? ((await store.host.call('fleet.export', {})) as { value: unknown }).value : null;
+            for (const kind of ['batteries', 'motors', 'vehicles']) {
+              const csv = await store.host.call('fleet.exportCsv', { kind });
+              if (csv.ok) files.csv.set(kind, (csv.value as { text: string }).text);
+            }
+            before.fingerprint = store.fingerprint();
+          }
+          await fc.assert(
+            fc.asyncProperty(fc.gen(), async (g) => {
+              await callAndCheck(store, tally, name, confinePaths(mutate(g, validPayload(name, g, store, files), schema, ids), temp.dir), before);
+            }),
+            { numRuns: PER_HANDLER - malformedRuns, seed: SEED, endOnFailure: true },
+          );
+        }
+        // What the accepted calls wrote: inside the bounds, with history, with fresh verdicts.
+        expect(await storedRecordProblems(store)).toEqual([]);
+        const records = await readRecords(store.host);
+        const history = await readHistory(store.host);
+        expect(historyChainProblems(records, historyByVersion(history), history)).toEqual([]);
+        expect(verdictProblems(records).problems).toEqual([]);
+      } finally {
+        await store.close();
       }
-      // What the accepted calls wrote: inside the bounds, with history, with fresh verdicts.
-      expect(await storedRecordProblems(store)).toEqual([]);
-      const records = await readRecords(store.host);
-      const history = await readHistory(store.host);
-      expect(historyChainProblems(records, historyByVersion(history), history)).toEqual([]);
-      expect(verdictProblems(records).problems).toEqual([]);
-    } finally {
-      await store.close();
-    }
-  }, 120_000);
+    },
+    120_000,
+  );
 
   it('refuses every name that is not a handler, prototype names included', async () => {
     const store = await openFuzzStore(template, temp.dir, 'names');

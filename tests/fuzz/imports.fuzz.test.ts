@@ -80,67 +80,75 @@ async function expectSound(store: FuzzStore): Promise<void> {
 }
 
 describe('damaged import files change nothing', () => {
-  it.skipIf(missing.length > 0)(`a fleet file cut off, with bytes flipped or with fields bent${skipReason}`, async () => {
-    const store = await openFuzzStore(template, temp.dir, 'json-import');
-    try {
-      const fleet = await ok<Record<string, unknown>>(store.host, 'fleet.export', {});
-      const text = JSON.stringify(fleet, null, 2);
-      const fleetSchema = handlers['fleet.import' as keyof typeof handlers].input as unknown as SchemaNode;
-      const ids = ['batteries', 'motors', 'vehicles', 'builds'].flatMap((k) => store.ids(k));
-      const before = { fingerprint: store.fingerprint() };
-      await fc.assert(
-        fc.asyncProperty(fc.gen(), async (g) => {
-          const mode = pick(g, ['merge', 'merge', 'replace']);
-          const dryRun = g(fc.boolean);
-          const how = pick(g, ['cut', 'cut', 'flip', 'flip', 'bend']);
-          let payload: Record<string, unknown>;
-          if (how === 'cut') {
-            // Any strict prefix that is more than trailing white space is unfinished JSON.
-            const at = g(fc.nat, { max: text.trimEnd().length - 1 });
-            payload = { text: text.slice(0, at), mode, dryRun };
-          } else if (how === 'flip') {
-            payload = { text: flipBytes(g, text), mode, dryRun };
-          } else {
-            payload = mutate(g, { fleet: structuredClone(fleet), mode, dryRun }, fleetSchema, ids) as Record<string, unknown>;
-          }
-          const outcome = await importAndCheck(store, 'fleet.import', payload, before);
-          if (how === 'cut') expect(outcome, 'a cut-off file was accepted').toBe('refused');
-          if (outcome === 'refused') outcomes.jsonRefused++;
-          else outcomes.jsonAccepted++;
-        }),
-        { numRuns: FILES, seed: SEED, endOnFailure: true },
-      );
-      await expectSound(store);
-    } finally {
-      await store.close();
-    }
-  }, 240_000);
+  it.skipIf(missing.length > 0)(
+    `a fleet file cut off, with bytes flipped or with fields bent${skipReason}`,
+    async () => {
+      const store = await openFuzzStore(template, temp.dir, 'json-import');
+      try {
+        const fleet = await ok<Record<string, unknown>>(store.host, 'fleet.export', {});
+        const text = JSON.stringify(fleet, null, 2);
+        const fleetSchema = handlers['fleet.import' as keyof typeof handlers].input as unknown as SchemaNode;
+        const ids = ['batteries', 'motors', 'vehicles', 'builds'].flatMap((k) => store.ids(k));
+        const before = { fingerprint: store.fingerprint() };
+        await fc.assert(
+          fc.asyncProperty(fc.gen(), async (g) => {
+            const mode = pick(g, ['merge', 'merge', 'replace']);
+            const dryRun = g(fc.boolean);
+            const how = pick(g, ['cut', 'cut', 'flip', 'flip', 'bend']);
+            let payload: Record<string, unknown>;
+            if (how === 'cut') {
+              // Any strict prefix that is more than trailing white space is unfinished JSON.
+              const at = g(fc.nat, { max: text.trimEnd().length - 1 });
+              payload = { text: text.slice(0, at), mode, dryRun };
+            } else if (how === 'flip') {
+              payload = { text: flipBytes(g, text), mode, dryRun };
+            } else {
+              payload = mutate(g, { fleet: structuredClone(fleet), mode, dryRun }, fleetSchema, ids) as Record<string, unknown>;
+            }
+            const outcome = await importAndCheck(store, 'fleet.import', payload, before);
+            if (how === 'cut') expect(outcome, 'a cut-off file was accepted').toBe('refused');
+            if (outcome === 'refused') outcomes.jsonRefused++;
+            else outcomes.jsonAccepted++;
+          }),
+          { numRuns: FILES, seed: SEED, endOnFailure: true },
+        );
+        await expectSound(store);
+      } finally {
+        await store.close();
+      }
+    },
+    240_000,
+  );
 
-  it.skipIf(missing.length > 0)(`a CSV file of each part kind cut off or with bytes flipped${skipReason}`, async () => {
-    const store = await openFuzzStore(template, temp.dir, 'csv-import');
-    try {
-      const kinds = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles'];
-      const texts = new Map<string, string>();
-      for (const kind of kinds) texts.set(kind, (await ok<{ text: string }>(store.host, 'fleet.exportCsv', { kind })).text);
-      const before = { fingerprint: store.fingerprint() };
-      await fc.assert(
-        fc.asyncProperty(fc.gen(), async (g) => {
-          const kind = pick(g, kinds);
-          const text = texts.get(kind)!;
-          const dryRun = g(fc.boolean);
-          const damaged = g(fc.boolean) ? text.slice(0, g(fc.nat, { max: Math.max(0, text.length - 1) })) : flipBytes(g, text);
-          // A CSV has no end marker: cut at a row boundary it is a shorter, valid file. Either way a refusal changes nothing.
-          const outcome = await importAndCheck(store, 'fleet.importCsv', { kind, text: damaged, dryRun }, before);
-          if (outcome === 'refused') outcomes.csvRefused++;
-          else outcomes.csvAccepted++;
-        }),
-        { numRuns: FILES, seed: SEED, endOnFailure: true },
-      );
-      await expectSound(store);
-    } finally {
-      await store.close();
-    }
-  }, 240_000);
+  it.skipIf(missing.length > 0)(
+    `a CSV file of each part kind cut off or with bytes flipped${skipReason}`,
+    async () => {
+      const store = await openFuzzStore(template, temp.dir, 'csv-import');
+      try {
+        const kinds = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles'];
+        const texts = new Map<string, string>();
+        for (const kind of kinds) texts.set(kind, (await ok<{ text: string }>(store.host, 'fleet.exportCsv', { kind })).text);
+        const before = { fingerprint: store.fingerprint() };
+        await fc.assert(
+          fc.asyncProperty(fc.gen(), async (g) => {
+            const kind = pick(g, kinds);
+            const text = texts.get(kind)!;
+            const dryRun = g(fc.boolean);
+            const damaged = g(fc.boolean) ? text.slice(0, g(fc.nat, { max: Math.max(0, text.length - 1) })) : flipBytes(g, text);
+            // A CSV has no end marker: cut at a row boundary it is a shorter, valid file. Either way a refusal changes nothing.
+            const outcome = await importAndCheck(store, 'fleet.importCsv', { kind, text: damaged, dryRun }, before);
+            if (outcome === 'refused') outcomes.csvRefused++;
+            else outcomes.csvAccepted++;
+          }),
+          { numRuns: FILES, seed: SEED, endOnFailure: true },
+        );
+        await expectSound(store);
+      } finally {
+        await store.close();
+      }
+    },
+    240_000,
+  );
 
   it.skipIf(missing.length > 0)(`a refused replace removes nothing${skipReason}`, async () => {
     const store: FuzzStore = await openFuzzStore(template, temp.dir, 'replace-import');
@@ -162,7 +170,6 @@ describe('damaged import files change nothing', () => {
     }
   });
 });
-
 
 describe('the JSON scan agrees with JSON.parse', () => {
   // JSON.parse is the reference: for any text, the scan finds a fault exactly when JSON.parse

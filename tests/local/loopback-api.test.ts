@@ -146,7 +146,18 @@ describe('an API call is served only with the token, our Host and our Origin', (
   ])('refuses a call with %s (401)', async (label, headers) => {
     const token = shell.server.token;
     const given = headers['x-rigbook-token'];
-    const value = given === 'WRONG' ? token.replace(/./g, (c) => (c === 'A' ? 'B' : 'A')) : given === 'CASE' ? token.toUpperCase() === token ? token.toLowerCase() : token.toUpperCase() : given === 'LONGER' ? `${token}x` : given === 'TWICE' ? `x, ${token}` : given;
+    const value =
+      given === 'WRONG'
+        ? token.replace(/./g, (c) => (c === 'A' ? 'B' : 'A'))
+        : given === 'CASE'
+          ? token.toUpperCase() === token
+            ? token.toLowerCase()
+            : token.toUpperCase()
+          : given === 'LONGER'
+            ? `${token}x`
+            : given === 'TWICE'
+              ? `x, ${token}`
+              : given;
     await expectRefusedCreate(401, { 'x-rigbook-token': value }, label);
   });
 

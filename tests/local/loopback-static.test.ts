@@ -35,7 +35,10 @@ function expectHardened(r: RawResponse, label: string): void {
     expect(sources, `${label} ${directive}`).not.toContain("'unsafe-inline'");
     expect(sources, `${label} ${directive}`).not.toContain("'unsafe-eval'");
     expect(sources, `${label} ${directive}`).not.toContain('*');
-    expect(sources.some((s) => s.startsWith('http') || s === 'data:' || s === 'blob:'), `${label} ${directive}: ${sources.join(' ')}`).toBe(false);
+    expect(
+      sources.some((s) => s.startsWith('http') || s === 'data:' || s === 'blob:'),
+      `${label} ${directive}: ${sources.join(' ')}`,
+    ).toBe(false);
   }
   expect(csp.get('object-src'), label).toEqual(["'none'"]);
   expect(csp.get('base-uri'), label).toEqual(["'none'"]);

@@ -187,7 +187,10 @@ describe('a second process on the same store file', () => {
         host.call('batteries.update', { id: seed.pack, expectedVersion: version, changes: { cycleCount: 900 + round } }),
       ]);
       const results = [there.result!, here];
-      expect(results.filter((r) => r.ok), `round ${round}: ${JSON.stringify(results)}`).toHaveLength(1);
+      expect(
+        results.filter((r) => r.ok),
+        `round ${round}: ${JSON.stringify(results)}`,
+      ).toHaveLength(1);
       for (const r of results) if (!r.ok) expectConflict(r, `round ${round}`);
       const expected = here.ok ? 900 + round : 500 + round;
       if (here.ok) wonHere++;

@@ -5,20 +5,7 @@ import type { Ack, ChildLine } from './children/crash-writer';
 import { bundleChild, ChildLines } from './support/child-process';
 import { canonical, seededRandom, sleep } from './support/random';
 import { seedSharedFleet } from './support/seed-fleet';
-import {
-  buildsUsing,
-  fileProblems,
-  historyByVersion,
-  historyChainProblems,
-  PART_KINDS,
-  readHistory,
-  readRecords,
-  versionKey,
-  verdictProblems,
-  type HistoryRow,
-  type RecordKind,
-  type StoreRecords,
-} from './support/store-audit';
+import { buildsUsing, fileProblems, historyByVersion, historyChainProblems, PART_KINDS, readHistory, readRecords, versionKey, verdictProblems, type HistoryRow, type RecordKind, type StoreRecords } from './support/store-audit';
 import { tempDir } from '../helpers/temp-dir';
 
 // A child process writes through the real handler map and is killed with SIGKILL at random
@@ -44,7 +31,6 @@ beforeAll(async () => {
 }, 60_000);
 
 afterAll(() => temp.remove());
-
 
 /** What the acknowledged writes demand of the store; empty when all of them are there. */
 function ackProblems(acks: readonly Ack[], byVersion: ReadonlyMap<string, HistoryRow>, records: StoreRecords, history: readonly HistoryRow[]): string[] {

@@ -55,7 +55,10 @@ describe('the content security policy both shells send', () => {
       for (const forbidden of ["'unsafe-inline'", "'unsafe-eval'", "'unsafe-hashes'", "'wasm-unsafe-eval'", '*', 'data:', 'blob:', 'http:', 'https:']) {
         expect(sources, `${directive} allows ${forbidden}`).not.toContain(forbidden);
       }
-      expect(sources.every((s) => s === "'self'" || s === "'none'"), `${directive}: ${sources.join(' ')}`).toBe(true);
+      expect(
+        sources.every((s) => s === "'self'" || s === "'none'"),
+        `${directive}: ${sources.join(' ')}`,
+      ).toBe(true);
     }
     // Images may be inline data (chart exports), never remote.
     expect(csp.get('img-src')?.every((s) => s === "'self'" || s === 'data:')).toBe(true);

@@ -95,27 +95,35 @@ describe('durability', () => {
     }
   });
 
-  it.skipIf(skipReason !== null)(`keeps every acknowledged write across ${TRIALS} simulated power cuts`, async () => {
-    const random = seededRandom(SEED);
-    let acknowledged = 0;
-    for (let i = 0; i < TRIALS; i++) {
-      const cut = await powerCut(`full-${i}`, random);
-      expect(cut.pragmas).toEqual({ journal_mode: 'wal', synchronous: 2, foreign_keys: 1 });
-      expect(cut.integrity, `trial ${i} (seed ${SEED})`).toBe('ok');
-      expect(cut.missing, `trial ${i} (seed ${SEED}): acknowledged packs lost in the power cut`).toEqual([]);
-      acknowledged += cut.acknowledged.length;
-    }
-    expect(acknowledged).toBeGreaterThan(TRIALS * 5);
-    console.log(`durability: ${TRIALS} power cuts, ${acknowledged} acknowledged writes, none lost (seed ${SEED})`);
-  }, 120_000);
+  it.skipIf(skipReason !== null)(
+    `keeps every acknowledged write across ${TRIALS} simulated power cuts`,
+    async () => {
+      const random = seededRandom(SEED);
+      let acknowledged = 0;
+      for (let i = 0; i < TRIALS; i++) {
+        const cut = await powerCut(`full-${i}`, random);
+        expect(cut.pragmas).toEqual({ journal_mode: 'wal', synchronous: 2, foreign_keys: 1 });
+        expect(cut.integrity, `trial ${i} (seed ${SEED})`).toBe('ok');
+        expect(cut.missing, `trial ${i} (seed ${SEED}): acknowledged packs lost in the power cut`).toEqual([]);
+        acknowledged += cut.acknowledged.length;
+      }
+      expect(acknowledged).toBeGreaterThan(TRIALS * 5);
+      console.log(`durability: ${TRIALS} power cuts, ${acknowledged} acknowledged writes, none lost (seed ${SEED})`);
+    },
+    120_000,
+  );
 
-  it.skipIf(skipReason !== null)('the same check fails when the store runs with synchronous = OFF or NORMAL', async () => {
-    const random = seededRandom(SEED + 1);
-    for (const level of ['OFF', 'NORMAL']) {
-      const cut = await powerCut(`${level.toLowerCase()}`, random, level);
-      expect(cut.pragmas.synchronous).toBe(level === 'OFF' ? 0 : 1);
-      // Acknowledged packs that only ever sat in the page cache are gone after the cut.
-      expect(cut.missing.length, `synchronous = ${level}: ${cut.acknowledged.length} acknowledged`).toBeGreaterThan(0);
-    }
-  }, 120_000);
+  it.skipIf(skipReason !== null)(
+    'the same check fails when the store runs with synchronous = OFF or NORMAL',
+    async () => {
+      const random = seededRandom(SEED + 1);
+      for (const level of ['OFF', 'NORMAL']) {
+        const cut = await powerCut(`${level.toLowerCase()}`, random, level);
+        expect(cut.pragmas.synchronous).toBe(level === 'OFF' ? 0 : 1);
+        // Acknowledged packs that only ever sat in the page cache are gone after the cut.
+        expect(cut.missing.length, `synchronous = ${level}: ${cut.acknowledged.length} acknowledged`).toBeGreaterThan(0);
+      }
+    },
+    120_000,
+  );
 });

@@ -42,16 +42,28 @@ interface ForeignKey {
   to: string;
 }
 
-const userTables = (raw: Database.Database): string[] =>
-  raw.prepare("select name from sqlite_master where type = 'table' and name not like 'sqlite_%' and name not like 'kysely_%' order by name").pluck().all() as string[];
+const userTables = (raw: Database.Database): string[] => raw.prepare("select name from sqlite_master where type = 'table' and name not like 'sqlite_%' and name not like 'kysely_%' order by name").pluck().all() as string[];
 
 /** A plausible value for a column, by its name and declared type; the same rule for every schema version. */
 function valueFor(table: string, column: Column, row: number): string | number {
   const name = column.name;
   const type = column.type.toLowerCase();
   const words: Record<string, string> = {
-    chemistry: 'lipo', kind: 'car', status: 'clear', arrangement: 'series', action: 'create', entityKind: 'batteries', ruleId: `class-rule-${row}`,
-    figure: 'packVoltageFullV', unit: 'V', className: 'club', verdictChanges: '[]', before: '{}', after: '{}', supplyStatuses: '', actor: 'upgrade-test',
+    chemistry: 'lipo',
+    kind: 'car',
+    status: 'clear',
+    arrangement: 'series',
+    action: 'create',
+    entityKind: 'batteries',
+    ruleId: `class-rule-${row}`,
+    figure: 'packVoltageFullV',
+    unit: 'V',
+    className: 'club',
+    verdictChanges: '[]',
+    before: '{}',
+    after: '{}',
+    supplyStatuses: '',
+    actor: 'upgrade-test',
   };
   if (table === 'settings' && name === 'key') return ['units', 'tightThreshold', 'demoOffered'][row] ?? `key-${row}`;
   if (table === 'settings' && name === 'value') return ['"metric"', '0.2', 'true'][row] ?? '0';
@@ -98,7 +110,10 @@ function missingRows(raw: Database.Database, written: Map<string, Array<Record<s
     const present = new Set((raw.prepare(`pragma table_info("${table}")`).all() as Column[]).map((c) => c.name));
     for (const row of rows) {
       const names = Object.keys(row).filter((n) => present.has(n));
-      const found = raw.prepare(`select count(*) from "${table}" where ${names.map((n) => `"${n}" is ?`).join(' and ')}`).pluck().get(...names.map((n) => row[n])) as number;
+      const found = raw
+        .prepare(`select count(*) from "${table}" where ${names.map((n) => `"${n}" is ?`).join(' and ')}`)
+        .pluck()
+        .get(...names.map((n) => row[n])) as number;
       if (found !== 1) problems.push(`${table}: row ${JSON.stringify(row)} is ${found === 0 ? 'gone or changed' : 'duplicated'}`);
     }
   }
@@ -107,7 +122,11 @@ function missingRows(raw: Database.Database, written: Map<string, Array<Record<s
 
 function backupsOf(file: string): string[] {
   const folder = path.join(path.dirname(file), 'backups');
-  return existsSync(folder) ? readdirSync(folder).filter((n) => n.startsWith('before-migration-')).map((n) => path.join(folder, n)) : [];
+  return existsSync(folder)
+    ? readdirSync(folder)
+        .filter((n) => n.startsWith('before-migration-'))
+        .map((n) => path.join(folder, n))
+    : [];
 }
 
 describe('upgrading a store written at every earlier schema version', () => {
@@ -168,7 +187,11 @@ describe('upgrading a store written at every earlier schema version', () => {
     const next: Migration = {
       up: async (db: Kysely<unknown>) => {
         await db.transaction().execute(async (trx) => {
-          await trx.schema.createTable('laterNotes').addColumn('id', 'text', (c) => c.primaryKey()).addColumn('text', 'text').execute();
+          await trx.schema
+            .createTable('laterNotes')
+            .addColumn('id', 'text', (c) => c.primaryKey())
+            .addColumn('text', 'text')
+            .execute();
           await trx.schema.createIndex('laterNotesTextIdx').on('laterNotes').column('text').execute();
         });
       },
@@ -176,7 +199,10 @@ describe('upgrading a store written at every earlier schema version', () => {
     const upgraded = await openStore(file, { provider: providerOf({ ...MIGRATIONS, '20991231-0001-later-notes': next }) });
     try {
       expect(upgraded.raw.pragma('integrity_check', { simple: true })).toBe('ok');
-      const userFingerprint = (raw: Database.Database) => tableFingerprinter(raw)().split('|').filter((p) => !/^(schema|laterNotes|kysely_migration):/.test(p));
+      const userFingerprint = (raw: Database.Database) =>
+        tableFingerprinter(raw)()
+          .split('|')
+          .filter((p) => !/^(schema|laterNotes|kysely_migration):/.test(p));
       expect(userFingerprint(upgraded.raw)).toEqual(fingerprint.split('|').filter((p) => !/^(schema|kysely_migration):/.test(p)));
       const copy = new Database(upgraded.preMigrationBackup!, { readonly: true });
       expect(tableFingerprinter(copy)()).toBe(fingerprint);
@@ -207,7 +233,10 @@ describe('a migration that fails', () => {
         await db.transaction().execute(async (trx) => {
           await trx.schema.createTable('halfDone').addColumn('x', 'text').execute();
           await trx.schema.alterTable('batteries').addColumn('chargeNote', 'text').execute();
-          await trx.updateTable('batteries' as never).set({ name: 'rewritten' } as never).execute();
+          await trx
+            .updateTable('batteries' as never)
+            .set({ name: 'rewritten' } as never)
+            .execute();
           throw new Error('disk said no');
         });
       },

@@ -25,7 +25,10 @@ describe('faults found by the reliability suite', () => {
     const logged: string[] = [];
     for (const code of ['SQLITE_BUSY', 'SQLITE_BUSY_SNAPSHOT', 'SQLITE_BUSY_RECOVERY', 'SQLITE_LOCKED', 'SQLITE_LOCKED_SHAREDCACHE']) {
       const error = Object.assign(new Error('database is locked'), { code });
-      expect(toApiError(error, (m) => logged.push(m)), code).toEqual({ kind: 'conflict', message: 'The store is busy with another write. Nothing was saved; try again.' });
+      expect(
+        toApiError(error, (m) => logged.push(m)),
+        code,
+      ).toEqual({ kind: 'conflict', message: 'The store is busy with another write. Nothing was saved; try again.' });
     }
     expect(logged).toEqual([]);
   });

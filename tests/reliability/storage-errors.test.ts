@@ -113,39 +113,43 @@ describe('the command line as a user who may not write the store', () => {
     return { code: run.status, out: run.stdout, err: run.stderr };
   }
 
-  it.skipIf(!canDrop)('a read-only store file and a read-only folder: exit 4 with a clear message and no stack trace, the store unchanged', async () => {
-    chmodSync(folder.dir, 0o755);
-    const store = `${folder.dir}/rigbook.sqlite`;
-    const host = await openServiceHost({ dbPath: store, actor: 'tester' });
-    await seedSharedFleet(host, 4, seededRandom(4));
-    const before = await dumpStore(host.ctx.db);
-    await host.close();
-    const fleetFile = `${folder.dir}/one-pack.json`;
-    writeFileSync(fleetFile, JSON.stringify({ format: 'rigbook-fleet', version: 1, batteries: [{ id: 'ro-pack', name: 'Read-only test', chemistry: 'lipo', cellsSeries: 2, capacityMah: 2000 }] }));
-    chmodSync(fleetFile, 0o644);
+  it.skipIf(!canDrop)(
+    'a read-only store file and a read-only folder: exit 4 with a clear message and no stack trace, the store unchanged',
+    async () => {
+      chmodSync(folder.dir, 0o755);
+      const store = `${folder.dir}/rigbook.sqlite`;
+      const host = await openServiceHost({ dbPath: store, actor: 'tester' });
+      await seedSharedFleet(host, 4, seededRandom(4));
+      const before = await dumpStore(host.ctx.db);
+      await host.close();
+      const fleetFile = `${folder.dir}/one-pack.json`;
+      writeFileSync(fleetFile, JSON.stringify({ format: 'rigbook-fleet', version: 1, batteries: [{ id: 'ro-pack', name: 'Read-only test', chemistry: 'lipo', cellsSeries: 2, capacityMah: 2000 }] }));
+      chmodSync(fleetFile, 0o644);
 
-    chmodSync(store, 0o444);
-    const file = asOtherUser(['import', fleetFile, '--db', store]);
-    expect(file.code, file.err).toBe(4);
-    expect(file.err).toMatch(/cannot be written: the file or its folder is read-only/);
-    expect(file.err).not.toMatch(/\n\s+at /);
+      chmodSync(store, 0o444);
+      const file = asOtherUser(['import', fleetFile, '--db', store]);
+      expect(file.code, file.err).toBe(4);
+      expect(file.err).toMatch(/cannot be written: the file or its folder is read-only/);
+      expect(file.err).not.toMatch(/\n\s+at /);
 
-    chmodSync(store, 0o666);
-    chmodSync(folder.dir, 0o555);
-    const dir = asOtherUser(['import', fleetFile, '--db', store]);
-    chmodSync(folder.dir, 0o755);
-    expect(dir.code, dir.err).toBe(4);
-    expect(dir.err).toMatch(/cannot be written: the file or its folder is read-only/);
-    expect(dir.err).not.toMatch(/\n\s+at /);
+      chmodSync(store, 0o666);
+      chmodSync(folder.dir, 0o555);
+      const dir = asOtherUser(['import', fleetFile, '--db', store]);
+      chmodSync(folder.dir, 0o755);
+      expect(dir.code, dir.err).toBe(4);
+      expect(dir.err).toMatch(/cannot be written: the file or its folder is read-only/);
+      expect(dir.err).not.toMatch(/\n\s+at /);
 
-    const check = await openServiceHost({ dbPath: store, actor: 'tester' });
-    try {
-      expect(await fileProblems(check)).toEqual([]);
-      expect(await dumpStore(check.ctx.db)).toEqual(before);
-    } finally {
-      await check.close();
-    }
-  }, 60_000);
+      const check = await openServiceHost({ dbPath: store, actor: 'tester' });
+      try {
+        expect(await fileProblems(check)).toEqual([]);
+        expect(await dumpStore(check.ctx.db)).toEqual(before);
+      } finally {
+        await check.close();
+      }
+    },
+    60_000,
+  );
 });
 
 describe('store in use', () => {

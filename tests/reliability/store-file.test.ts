@@ -102,7 +102,7 @@ describe('restore', () => {
     live.pragma('journal_mode = WAL');
     live.pragma('wal_autocheckpoint = 0');
     live.exec("update batteries set name = 'Session pack', version = version + 1");
-    live.exec("update motors set maxCurrentA = 1");
+    live.exec('update motors set maxCurrentA = 1');
     copyFileSync(`${session}-wal`, `${target}-wal`);
     live.close();
     unlinkSync(target);

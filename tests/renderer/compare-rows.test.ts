@@ -35,7 +35,11 @@ describe('compare rows', () => {
     expect(check('battery-continuous').differs).toBe(true);
     expect(check('motor-voltage').differs).toBe(false);
     // Two copies of one build differ nowhere.
-    expect(compareRows([a, { ...a, id: 'a2' }], 'metric').flatMap((g) => [...g.checks, ...g.figures]).some((r) => r.differs)).toBe(false);
+    expect(
+      compareRows([a, { ...a, id: 'a2' }], 'metric')
+        .flatMap((g) => [...g.checks, ...g.figures])
+        .some((r) => r.differs),
+    ).toBe(false);
   });
 
   it('each cell carries its finding margin unchanged, and names the most and least headroom', () => {

@@ -84,7 +84,14 @@ describe('number and percent fields', () => {
     expect(toDraftValue(efficiency, 0.9, 'metric')).toBe('90');
     // A fraction typed by habit is refused rather than saved as 0.9 %.
     expect(readDraftValue(efficiency, '0.9', 'metric')).toEqual({ ok: false, message: 'is typed in percent: 0.9 here would mean 0.9 %; for 90 % type 90' });
-    const problems = draftProblems([efficiency], { [efficiency.key]: '150' }, 'metric', gearingSchema, (v) => ({ drivetrainEfficiency: v[efficiency.key] }), (p) => `gearing.${p}`);
+    const problems = draftProblems(
+      [efficiency],
+      { [efficiency.key]: '150' },
+      'metric',
+      gearingSchema,
+      (v) => ({ drivetrainEfficiency: v[efficiency.key] }),
+      (p) => `gearing.${p}`,
+    );
     expect(problems).toEqual({ [efficiency.key]: 'must be 100 % or less' });
   });
 

@@ -18,7 +18,22 @@ describe('motor chart data', () => {
     expect(rpmAtCurrent(curve, 10_000)).toBeNull();
   });
 
-  const motor = { id: 'm', version: 1, archivedAt: null, notes: '', name: 'M', kv: 1000, resistanceOhm: 0.1, noLoadCurrentA: 1, maxCurrentA: null, maxPowerW: null, maxVoltageV: null, maxRpm: null, poles: null, massKg: null } satisfies Motor;
+  const motor = {
+    id: 'm',
+    version: 1,
+    archivedAt: null,
+    notes: '',
+    name: 'M',
+    kv: 1000,
+    resistanceOhm: 0.1,
+    noLoadCurrentA: 1,
+    maxCurrentA: null,
+    maxPowerW: null,
+    maxVoltageV: null,
+    maxRpm: null,
+    poles: null,
+    massKg: null,
+  } satisfies Motor;
   const figures = { packVoltageFullV: 10, packResistanceOhm: null, motorPeakCurrentA: 50, motorContinuousCurrentA: 20, loadedRpm: 8000 } as unknown as Figures;
 
   it('marks the peak and the loaded top-speed points at the supply voltage', () => {

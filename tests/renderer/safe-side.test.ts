@@ -24,7 +24,11 @@ describe('the build sheet figures', () => {
     const keys = figureGroupsFor('plane').flatMap((g) => g.figures.map((f) => f.key));
     expect(keys).toEqual(expect.arrayContaining(['pitchSpeedKmh', 'tipSpeedStaticMps', 'tipSpeedMps']));
     expect(keys).not.toContain('theoreticalSpeedKmh');
-    expect(figureGroupsFor('plane').flatMap((g) => g.figures).find((f) => f.key === 'pitchSpeedKmh')?.label).toBe('Pitch speed, nominal');
+    expect(
+      figureGroupsFor('plane')
+        .flatMap((g) => g.figures)
+        .find((f) => f.key === 'pitchSpeedKmh')?.label,
+    ).toBe('Pitch speed, nominal');
   });
 
   it('charts the same run the continuous current is judged on', () => {

@@ -21,7 +21,13 @@ describe('sheet chart data', () => {
     const a = battery({ id: 'a', cellResistanceOhm: 0.003 });
     const b = battery({ id: 'b', cellResistanceOhm: 0.006 });
     const base = truckContext();
-    const ctx = truckContext({ batteries: new Map([[a.id, a], [b.id, b]]), build: { ...base.build, supplies: [{ id: 'supply-a', arrangement: 'parallel', batteryIds: ['a', 'b'] }] } });
+    const ctx = truckContext({
+      batteries: new Map([
+        [a.id, a],
+        [b.id, b],
+      ]),
+      build: { ...base.build, supplies: [{ id: 'supply-a', arrangement: 'parallel', batteryIds: ['a', 'b'] }] },
+    });
     const v = supplyOf(ctx);
     // By conductance the lower-resistance pack carries 2/3 of the current: 250 A ÷ (2/3) = 375 A of supply current.
     const worst = Math.max(...v.packShares.map((p) => p.share));

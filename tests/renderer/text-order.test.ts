@@ -53,10 +53,30 @@ describe('text order keys', () => {
 
 function summary(i: number, name: string, owner: string): BuildSummary {
   return {
-    id: `b${i}`, name, version: 1, archivedAt: null, vehicleId: 'v', vehicleName: `car ${i % 7}`, kind: 'car', owner, className: '',
-    motorId: null, motorName: null, controllerId: null, controllerName: null, propellerId: null, supplyLabels: [`${2 + (i % 3)}S pack ${i % 11}`],
-    batteryIds: [], status: (['over', 'tight', 'incomplete', 'clear', null] as const)[i % 5]!, supplyVoltageFullV: null, theoreticalSpeedKmh: null,
-    peakCurrentA: null, peakCurrentLimitA: null, currentRule: null, currentSource: null, updatedAt: '2026-01-01T00:00:00Z',
+    id: `b${i}`,
+    name,
+    version: 1,
+    archivedAt: null,
+    vehicleId: 'v',
+    vehicleName: `car ${i % 7}`,
+    kind: 'car',
+    owner,
+    className: '',
+    motorId: null,
+    motorName: null,
+    controllerId: null,
+    controllerName: null,
+    propellerId: null,
+    supplyLabels: [`${2 + (i % 3)}S pack ${i % 11}`],
+    batteryIds: [],
+    status: (['over', 'tight', 'incomplete', 'clear', null] as const)[i % 5]!,
+    supplyVoltageFullV: null,
+    theoreticalSpeedKmh: null,
+    peakCurrentA: null,
+    peakCurrentLimitA: null,
+    currentRule: null,
+    currentSource: null,
+    updatedAt: '2026-01-01T00:00:00Z',
   };
 }
 

@@ -22,6 +22,10 @@ describe('check rows and engine sentences in the user units', () => {
 
   it('gives thrust as grams or ounces', () => {
     expect(thrustAsMass(12.3, 'metric')).toBe(`${Math.round(unit(12.3 / 9.80665, 'kg').toNumber('g')).toLocaleString('en-US')} g`);
-    expect(thrustAsMass(12.3, 'imperial')).toBe(`${unit(12.3 / 9.80665, 'kg').toNumber('oz').toFixed(1)} oz`);
+    expect(thrustAsMass(12.3, 'imperial')).toBe(
+      `${unit(12.3 / 9.80665, 'kg')
+        .toNumber('oz')
+        .toFixed(1)} oz`,
+    );
   });
 });

@@ -3,10 +3,20 @@ import type { BuildVerdict, Finding, Status } from '../../src-main/core/domain';
 import { newlyOver, overToIncomplete, shiftOf } from '../../src-renderer/lib/verdict/verdict-shift';
 
 const f = (rule: string, status: Status, value: number | null, limit: number | null, missing?: string[]): Finding => ({
-  rule, status, value, limit, unit: 'V', margin: value !== null && limit !== null ? (limit - value) / limit : null, message: `${rule} ${status}`, ...(missing ? { missing } : {}),
+  rule,
+  status,
+  value,
+  limit,
+  unit: 'V',
+  margin: value !== null && limit !== null ? (limit - value) / limit : null,
+  message: `${rule} ${status}`,
+  ...(missing ? { missing } : {}),
 });
-const verdict = (buildId: string, status: Status, findings: Finding[]): BuildVerdict =>
-  ({ buildId, status, supplies: [{ supplyId: `${buildId}.s1`, batteryIds: ['p'], status, figures: {} as BuildVerdict['supplies'][number]['figures'], findings, packShares: [], assumptions: [] }] });
+const verdict = (buildId: string, status: Status, findings: Finding[]): BuildVerdict => ({
+  buildId,
+  status,
+  supplies: [{ supplyId: `${buildId}.s1`, batteryIds: ['p'], status, figures: {} as BuildVerdict['supplies'][number]['figures'], findings, packShares: [], assumptions: [] }],
+});
 
 describe('what a change does to verdicts', () => {
   it('names the builds a change makes OVER, with the checks that pass their limits', () => {

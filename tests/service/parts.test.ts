@@ -13,7 +13,15 @@ forEachEngine((engine) => {
   async function counts() {
     const tables = ['batteries', 'motors', 'history', 'builds'] as const;
     const out: Record<string, number> = {};
-    for (const t of tables) out[t] = Number((await f.db.selectFrom(t).select(sql<number>`count(*)`.as('n')).executeTakeFirstOrThrow()).n);
+    for (const t of tables)
+      out[t] = Number(
+        (
+          await f.db
+            .selectFrom(t)
+            .select(sql<number>`count(*)`.as('n'))
+            .executeTakeFirstOrThrow()
+        ).n,
+      );
     return out;
   }
 

@@ -11,7 +11,14 @@ forEachEngine((engine) => {
   afterEach(async () => f.close());
 
   async function count(table: 'builds' | 'motors' | 'history'): Promise<number> {
-    return Number((await f.db.selectFrom(table).select(sql<number>`count(*)`.as('n')).executeTakeFirstOrThrow()).n);
+    return Number(
+      (
+        await f.db
+          .selectFrom(table)
+          .select(sql<number>`count(*)`.as('n'))
+          .executeTakeFirstOrThrow()
+      ).n,
+    );
   }
 
   describe('plausibility at the edge', () => {
@@ -101,7 +108,14 @@ forEachEngine((engine) => {
       const updated = await f.call('builds.update', {
         id: seed.onTwo.id,
         expectedVersion: 1,
-        changes: { supplies: [{ id: 'two-a', batteryIds: [seed.pack2s.id] }, { id: 'two-b', batteryIds: [seed.pack4s.id] }], measuredPeakCurrentA: 300, measuredSupplyId: 'two-b' },
+        changes: {
+          supplies: [
+            { id: 'two-a', batteryIds: [seed.pack2s.id] },
+            { id: 'two-b', batteryIds: [seed.pack4s.id] },
+          ],
+          measuredPeakCurrentA: 300,
+          measuredSupplyId: 'two-b',
+        },
         reason: '',
       });
       expect(updated.record.measuredSupplyId).toBe('two-b');

@@ -46,7 +46,10 @@ export function findPgServer(env) {
   if (env.RIGBOOK_PG_BIN) dirs.push(env.RIGBOOK_PG_BIN);
   const debian = '/usr/lib/postgresql';
   if (existsSync(debian)) {
-    for (const v of readdirSync(debian).filter((x) => /^\d+$/.test(x)).sort((a, b) => Number(b) - Number(a))) dirs.push(path.join(debian, v, 'bin'));
+    for (const v of readdirSync(debian)
+      .filter((x) => /^\d+$/.test(x))
+      .sort((a, b) => Number(b) - Number(a)))
+      dirs.push(path.join(debian, v, 'bin'));
   }
   dirs.push('/usr/pgsql/bin', '/usr/local/pgsql/bin', '/usr/bin', '/usr/local/bin');
   const found = dirs.find((dir) => existsSync(path.join(dir, 'initdb')) && existsSync(path.join(dir, 'pg_ctl')));

@@ -73,7 +73,10 @@ describe('store growth per edit of a shared part', () => {
     // edit at 2 000 builds; a selector row adds the same few bytes whatever the fleet size.
     expect(large.perEdit).toBeLessThanOrEqual(small.perEdit + 4096);
     expect(large.perEdit).toBeLessThan(8192);
-    const links = await f.db.selectFrom('historyBuilds').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow();
+    const links = await f.db
+      .selectFrom('historyBuilds')
+      .select((eb) => eb.fn.countAll<number>().as('n'))
+      .executeTakeFirstOrThrow();
     // Only the import links builds (it named them by id); the motor edits link none.
     expect(Number(links.n)).toBeLessThanOrEqual(2000);
 
@@ -130,9 +133,7 @@ describe('store growth per edit of a shared part', () => {
     const up = await migrator.migrateToLatest();
     expect(up.error).toBeUndefined();
     expect(await f.db.selectFrom('historyBuilds').select('buildId').where('historyId', '=', quiet.id).execute()).toHaveLength(0);
-    expect(await f.db.selectFrom('historySelectors').select(['selects', 'partKind', 'target']).where('historyId', '=', quiet.id).execute()).toEqual([
-      { selects: 'part', partKind: 'motors', target: 'club-motor' },
-    ]);
+    expect(await f.db.selectFrom('historySelectors').select(['selects', 'partKind', 'target']).where('historyId', '=', quiet.id).execute()).toEqual([{ selects: 'part', partKind: 'motors', target: 'club-motor' }]);
     expect(await f.call('history.list', { buildId: 'b7' })).toEqual(timelineBefore);
   }, 60_000);
 });

@@ -1,6 +1,6 @@
 import Database from 'better-sqlite3';
 import { existsSync } from 'node:fs';
-import { Migrator, sql, type Kysely, type Migration } from "kysely";
+import { Migrator, sql, type Kysely, type Migration } from 'kysely';
 import { afterEach, describe, expect, it } from 'vitest';
 import { openStore } from '../../src-main/store/open-database';
 import { MIGRATIONS, staticMigrationProvider } from '../../src-main/store/migration-provider';

@@ -182,7 +182,13 @@ if (!pgRun.engine) {
       const location = (await fresh()).location;
       const a = await host(location, 'bench-a');
       const b = await host(location, 'bench-b');
-      const f = { call: async (name: string, args: unknown) => { const r = await a.call(name, args); if (!r.ok) throw new Error(r.error.message); return r.value; } };
+      const f = {
+        call: async (name: string, args: unknown) => {
+          const r = await a.call(name, args);
+          if (!r.ok) throw new Error(r.error.message);
+          return r.value;
+        },
+      };
       const motor = (await f.call('motors.create', { name: 'Shared 3300', kv: 3300 })) as { id: string };
       const [one, two] = await Promise.all([
         a.call('motors.update', { id: motor.id, expectedVersion: 1, changes: { maxCurrentA: 100 }, reason: 'a' }),

@@ -58,7 +58,6 @@ export type PathWith<S> = {
   [P in keyof Prefixes & string]: { [K in keyof Prefixes[P] & string]: Prefixes[P][K] extends S ? `${P}.${K}` : never }[keyof Prefixes[P] & string];
 }[keyof Prefixes & string];
 
-
 /** The field an engine path names, or undefined for a path that names no typed field. */
 export function fieldAt(path: string): FieldSpec | undefined {
   return BY_PATH.get(path);

@@ -74,10 +74,8 @@ export interface MatchRule extends RuleBase {
 
 export type RuleSpec = RatingRule | PackRule | MatchRule;
 
-const PACK_RISK =
-  'A pack pushed past its rating heats up, loses capacity fast and can be damaged; wires and connectors heat up too.';
-const PACK_RISK_LITHIUM =
-  'A lithium pack pushed past its rating heats up and swells and can catch fire; wires and connectors heat up too.';
+const PACK_RISK = 'A pack pushed past its rating heats up, loses capacity fast and can be damaged; wires and connectors heat up too.';
+const PACK_RISK_LITHIUM = 'A lithium pack pushed past its rating heats up and swells and can catch fire; wires and connectors heat up too.';
 
 const RATING_TEXT = {
   'controller-voltage': {
@@ -159,9 +157,7 @@ const RATING_TEXT = {
   'prop-tip-speed': {
     what: 'Propeller tip speed at the highest rpm it can reach (unloaded, full charge)',
     limitName: '85 % of the speed of sound (340.294 m/s at 15 °C, ISA)',
-    risk:
-      'Near the speed of sound the propeller loses thrust, gets very loud and is stressed beyond its design; ' +
-      'a propeller that breaks at speed throws pieces that injure. Keep clear of turning propellers.',
+    risk: 'Near the speed of sound the propeller loses thrust, gets very loud and is stressed beyond its design; ' + 'a propeller that breaks at speed throws pieces that injure. Keep clear of turning propellers.',
     fix: 'Use a smaller propeller, a lower-Kv motor or fewer cells.',
     tightHint: 'Little headroom: do not fit a larger propeller, more cells or a higher-Kv motor without checking again.',
     perMotor: true,
@@ -174,49 +170,92 @@ const PACK_CAUTIONS = ['fire', 'heat'] as const satisfies readonly CautionTopic[
 // rules in it.
 const CATALOGUE = {
   'controller-voltage': {
-    kind: 'rating', figure: 'packVoltageFullV', limit: ['controller.maxVoltageV', 'controller.maxCells'],
-    name: 'Controller voltage', cautions: ['voltage'], text: RATING_TEXT['controller-voltage'],
+    kind: 'rating',
+    figure: 'packVoltageFullV',
+    limit: ['controller.maxVoltageV', 'controller.maxCells'],
+    name: 'Controller voltage',
+    cautions: ['voltage'],
+    text: RATING_TEXT['controller-voltage'],
   },
   'motor-voltage': {
-    kind: 'rating', figure: 'packVoltageFullV', limit: ['motor.maxVoltageV'],
-    name: 'Motor voltage', cautions: ['voltage'], text: RATING_TEXT['motor-voltage'],
+    kind: 'rating',
+    figure: 'packVoltageFullV',
+    limit: ['motor.maxVoltageV'],
+    name: 'Motor voltage',
+    cautions: ['voltage'],
+    text: RATING_TEXT['motor-voltage'],
   },
   'motor-speed': {
-    kind: 'rating', figure: 'noLoadRpmFull', limit: ['motor.maxRpm'],
-    name: 'Motor speed', cautions: ['mechanical'], text: RATING_TEXT['motor-speed'],
+    kind: 'rating',
+    figure: 'noLoadRpmFull',
+    limit: ['motor.maxRpm'],
+    name: 'Motor speed',
+    cautions: ['mechanical'],
+    text: RATING_TEXT['motor-speed'],
   },
   'battery-continuous': {
-    kind: 'rating', figure: 'continuousCurrentA', limit: ['battery.cRatingContinuous', 'battery.capacityMah'],
-    name: 'Pack continuous current', cautions: PACK_CAUTIONS, text: RATING_TEXT['battery-continuous'],
+    kind: 'rating',
+    figure: 'continuousCurrentA',
+    limit: ['battery.cRatingContinuous', 'battery.capacityMah'],
+    name: 'Pack continuous current',
+    cautions: PACK_CAUTIONS,
+    text: RATING_TEXT['battery-continuous'],
   },
   'battery-burst': {
-    kind: 'rating', figure: 'peakCurrentA', limit: ['battery.cRatingBurst', 'battery.capacityMah'],
-    name: 'Pack burst current', cautions: PACK_CAUTIONS, text: RATING_TEXT['battery-burst'],
+    kind: 'rating',
+    figure: 'peakCurrentA',
+    limit: ['battery.cRatingBurst', 'battery.capacityMah'],
+    name: 'Pack burst current',
+    cautions: PACK_CAUTIONS,
+    text: RATING_TEXT['battery-burst'],
   },
   'controller-continuous': {
-    kind: 'rating', figure: 'motorContinuousCurrentA', limit: ['controller.continuousCurrentA'],
-    name: 'Controller continuous current', cautions: ['heat'], text: RATING_TEXT['controller-continuous'],
+    kind: 'rating',
+    figure: 'motorContinuousCurrentA',
+    limit: ['controller.continuousCurrentA'],
+    name: 'Controller continuous current',
+    cautions: ['heat'],
+    text: RATING_TEXT['controller-continuous'],
   },
   'controller-burst': {
-    kind: 'rating', figure: 'motorPeakCurrentA', limit: ['controller.burstCurrentA'],
-    name: 'Controller burst current', cautions: ['heat'], text: RATING_TEXT['controller-burst'],
+    kind: 'rating',
+    figure: 'motorPeakCurrentA',
+    limit: ['controller.burstCurrentA'],
+    name: 'Controller burst current',
+    cautions: ['heat'],
+    text: RATING_TEXT['controller-burst'],
   },
   'motor-current': {
-    kind: 'rating', figure: 'motorPeakCurrentA', limit: ['motor.maxCurrentA'],
-    name: 'Motor current', cautions: ['heat'], text: RATING_TEXT['motor-current'],
+    kind: 'rating',
+    figure: 'motorPeakCurrentA',
+    limit: ['motor.maxCurrentA'],
+    name: 'Motor current',
+    cautions: ['heat'],
+    text: RATING_TEXT['motor-current'],
   },
   'motor-power': {
-    kind: 'rating', figure: 'motorPeakPowerW', limit: ['motor.maxPowerW'],
-    name: 'Motor power', cautions: ['heat'], text: RATING_TEXT['motor-power'],
+    kind: 'rating',
+    figure: 'motorPeakPowerW',
+    limit: ['motor.maxPowerW'],
+    name: 'Motor power',
+    cautions: ['heat'],
+    text: RATING_TEXT['motor-power'],
   },
   'prop-tip-speed': {
     // The limit is a fraction of the speed of sound unless the maker's rpm limit is stricter.
-    kind: 'rating', figure: 'tipSpeedMps', limit: ['propeller.maxRpm', 'propeller.diameterMm'],
-    name: 'Propeller tip speed', cautions: ['propeller'], text: RATING_TEXT['prop-tip-speed'],
+    kind: 'rating',
+    figure: 'tipSpeedMps',
+    limit: ['propeller.maxRpm', 'propeller.diameterMm'],
+    name: 'Propeller tip speed',
+    cautions: ['propeller'],
+    text: RATING_TEXT['prop-tip-speed'],
   },
   'supply-match': {
-    kind: 'match', figure: 'packVoltageFullV', limit: ['battery.chemistry', 'battery.cellsSeries'],
-    name: 'Packs matched in parallel', cautions: PACK_CAUTIONS,
+    kind: 'match',
+    figure: 'packVoltageFullV',
+    limit: ['battery.chemistry', 'battery.cellsSeries'],
+    name: 'Packs matched in parallel',
+    cautions: PACK_CAUTIONS,
     over:
       'Packs in parallel must have the same chemistry and cell count. Connected like this, the ' +
       'fuller pack pushes a large current into the other one at once: wires, connectors and ' +
@@ -224,16 +263,20 @@ const CATALOGUE = {
       'their voltages are within 0.1 V per cell of each other (measure first).',
   },
   'pack-retired': {
-    kind: 'pack', figure: null, limit: ['battery.retired'],
-    name: 'Retired pack', cautions: PACK_CAUTIONS,
-    over: (name: string): string =>
-      `Pack retired: "${name}" is marked retired and must not be used. Retired lithium packs can fail under load; take it out of the build and dispose of it as the pack maker and local rules say.`,
+    kind: 'pack',
+    figure: null,
+    limit: ['battery.retired'],
+    name: 'Retired pack',
+    cautions: PACK_CAUTIONS,
+    over: (name: string): string => `Pack retired: "${name}" is marked retired and must not be used. Retired lithium packs can fail under load; take it out of the build and dispose of it as the pack maker and local rules say.`,
   },
   'pack-repeated': {
-    kind: 'pack', figure: null, limit: ['supply.batteryIds'],
-    name: 'Pack listed twice', cautions: PACK_CAUTIONS,
-    over: (name: string): string =>
-      `Pack listed twice: "${name}" appears more than once in this build, but one physical pack can only be in one place. Pick a second pack or remove the repeat.`,
+    kind: 'pack',
+    figure: null,
+    limit: ['supply.batteryIds'],
+    name: 'Pack listed twice',
+    cautions: PACK_CAUTIONS,
+    over: (name: string): string => `Pack listed twice: "${name}" appears more than once in this build, but one physical pack can only be in one place. Pick a second pack or remove the repeat.`,
   },
 } as const satisfies Record<string, RuleSpec>;
 

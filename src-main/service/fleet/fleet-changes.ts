@@ -31,8 +31,7 @@ export interface RecordChange {
 export const SUSPECT_FACTOR = 100;
 
 /** The likely cause, said with every change that needs confirming. */
-export const LIKELY_CAUSE =
-  'a spreadsheet set to a locale that uses the comma as the decimal mark reads 0.008 as 8 and 1.5 as 15 (the point groups thousands there), or a unit slip (mΩ for Ω, g for kg)';
+export const LIKELY_CAUSE = 'a spreadsheet set to a locale that uses the comma as the decimal mark reads 0.008 as 8 and 1.5 as 15 (the point groups thousands there), or a unit slip (mΩ for Ω, g for kg)';
 
 /** The engine's name for one record of each kind: the prefix of its field paths. */
 const SINGULAR: Readonly<Record<FleetKind, string>> = { ...FIELD_PREFIXES, classRules: 'classRule' };

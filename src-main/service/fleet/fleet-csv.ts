@@ -19,8 +19,7 @@ import { progressCounter, type OnProgress } from './progress';
 export async function exportCsv(db: DbHandle, kind: CsvKind): Promise<string> {
   const columns = csvColumns(kind);
   const records = await listParts(db, kind, { includeArchived: true });
-  const byNameThenId = (a: { name: string; id: string }, b: { name: string; id: string }) =>
-    a.name < b.name ? -1 : a.name > b.name ? 1 : a.id < b.id ? -1 : a.id > b.id ? 1 : 0;
+  const byNameThenId = (a: { name: string; id: string }, b: { name: string; id: string }) => (a.name < b.name ? -1 : a.name > b.name ? 1 : a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
   records.sort(byNameThenId);
   const rows = [columns.map((c) => c.name)];
   for (const record of records) {
@@ -156,12 +155,7 @@ export function readCsvRecords(kind: CsvKind, text: string, onProgress?: OnProgr
 }
 
 /** A CSV merged into the store: new ids added, stored ones updated, builds using them re-checked. */
-export async function importCsv(
-  ctx: ServiceContext,
-  kind: CsvKind,
-  text: string,
-  options: { dryRun?: boolean; acceptChanges?: boolean; reason?: string; onProgress?: OnProgress },
-): Promise<ImportReport> {
+export async function importCsv(ctx: ServiceContext, kind: CsvKind, text: string, options: { dryRun?: boolean; acceptChanges?: boolean; reason?: string; onProgress?: OnProgress }): Promise<ImportReport> {
   // Read outside the import's transaction: only for the hint about rewritten ids; the import re-reads inside it.
   const stored = new Set((await ctx.db.selectFrom(kind).select('id').execute()).map((r) => r.id));
   const read = readCsvRecords(kind, text, options.onProgress, stored);
@@ -173,4 +167,3 @@ export async function importCsv(
   const report = await importFleet(ctx, { format: FLEET_FORMAT, version: FLEET_VERSION, [kind]: read.records }, base);
   return { ...report, skippedRows: read.skippedRows };
 }
-

@@ -36,12 +36,7 @@ export function issueProblem(prefix: string, issue: v.BaseIssue<unknown>): Fleet
 }
 
 /** Every problem of one value against a schema, one per field (the first check that fails). */
-export function schemaProblems<S extends v.GenericSchema>(
-  schema: S,
-  value: unknown,
-  prefix: string,
-  knownKeys?: ReadonlySet<string>,
-): { ok: true; output: v.InferOutput<S> } | { ok: false; problems: FleetProblem[] } {
+export function schemaProblems<S extends v.GenericSchema>(schema: S, value: unknown, prefix: string, knownKeys?: ReadonlySet<string>): { ok: true; output: v.InferOutput<S> } | { ok: false; problems: FleetProblem[] } {
   const result = v.safeParse(schema, value, { abortPipeEarly: true });
   if (result.success) return { ok: true, output: result.output };
   let problems = result.issues.map((issue) => issueProblem(prefix, issue));

@@ -26,12 +26,7 @@ export const NO_STORED_IDS: StoredIds = {
 
 type ReferencedKind = 'batteries' | 'motors' | 'controllers' | 'propellers' | 'vehicles';
 
-export function referenceProblems(
-  fleet: FleetRecords,
-  fileIds: Readonly<Record<FleetKind, ReadonlySet<string>>>,
-  stored: StoredIds,
-  buildPlaces: readonly number[],
-): FleetProblem[] {
+export function referenceProblems(fleet: FleetRecords, fileIds: Readonly<Record<FleetKind, ReadonlySet<string>>>, stored: StoredIds, buildPlaces: readonly number[]): FleetProblem[] {
   const problems: FleetProblem[] = [];
   const where = stored === NO_STORED_IDS ? 'in this file' : 'in this file or the store';
   const check = (place: string, kind: ReferencedKind, id: string | null) => {

@@ -14,17 +14,7 @@ import type { BuildVerdict, Status } from '../../core/domain';
 import { STATUSES } from '../../core/domain';
 import type { DbHandle } from '../../store/db-handle';
 import type { BuildSelector } from '../../store/build-selector';
-import {
-  buildIdsUsingAny,
-  clearFleetTables,
-  deleteSuppliesOf,
-  insertBuildRows,
-  insertPartRows,
-  insertSupplyRows,
-  readFleetIds,
-  type ClearedCounts,
-  type PartsInUse,
-} from '../../store/fleet-rows';
+import { buildIdsUsingAny, clearFleetTables, deleteSuppliesOf, insertBuildRows, insertPartRows, insertSupplyRows, readFleetIds, type ClearedCounts, type PartsInUse } from '../../store/fleet-rows';
 import { getBuilds, updateBuildAtVersion } from '../../store/repositories/builds';
 import type { VerdictChange } from '../../store/repositories/history';
 import { getParts, updatePartAtVersion } from '../../store/repositories/parts';
@@ -192,7 +182,13 @@ async function writeParts<K extends FleetPartKind>(
   tick: () => void,
 ): Promise<{ changed: PartRecords[K][]; before: Map<string, PartRecords[K]> }> {
   const before = new Map<string, PartRecords[K]>();
-  if (merging && records.length > 0) for (const r of await getParts(trx, kind, records.map((x) => x.id))) before.set(r.id, r);
+  if (merging && records.length > 0)
+    for (const r of await getParts(
+      trx,
+      kind,
+      records.map((x) => x.id),
+    ))
+      before.set(r.id, r);
   const added: PartRecords[K][] = [];
   const changed: PartRecords[K][] = [];
   for (const record of records) {
@@ -244,7 +240,15 @@ async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, 
     for (let i = 0; i < written.counts[kind].unchanged; i++) tick();
   }
 
-  const storedBuilds = new Map((merging && fleet.builds.length > 0 ? await getBuilds(trx, fleet.builds.map((b) => b.id)) : []).map((b) => [b.id, b]));
+  const storedBuilds = new Map(
+    (merging && fleet.builds.length > 0
+      ? await getBuilds(
+          trx,
+          fleet.builds.map((b) => b.id),
+        )
+      : []
+    ).map((b) => [b.id, b]),
+  );
   const addedBuilds = fleet.builds.filter((b) => !storedBuilds.has(b.id));
   const changedBuilds = fleet.builds.filter((b) => {
     const stored = storedBuilds.get(b.id);
@@ -254,7 +258,10 @@ async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, 
   written.counts.builds = { added: addedBuilds.length, updated: changedBuilds.length, unchanged: fleet.builds.length - addedBuilds.length - changedBuilds.length };
   written.changedIds.builds = [...addedBuilds, ...changedBuilds].map((b) => b.id);
   // Supplies of every rewritten build go first, so one may move a supply id to another.
-  await deleteSuppliesOf(trx, changedBuilds.map((b) => b.id));
+  await deleteSuppliesOf(
+    trx,
+    changedBuilds.map((b) => b.id),
+  );
   for (const build of changedBuilds) {
     const { id, version: _fileVersion, supplies: _supplies, ...fields } = build;
     const n = await updateBuildAtVersion(trx, id, storedBuilds.get(id)!.version, fields, at);
@@ -313,7 +320,10 @@ function hintRewrittenIds(input: unknown, problems: readonly FleetProblem[], sto
     const raw = ((input as Record<string, unknown[]>)[kind]?.[Number(m[2])] as { id?: unknown } | undefined)?.id;
     const twin = typeof raw === 'string' ? numericTwin(raw, stored[kind]) : null;
     if (twin === null) return p;
-    return { place: p.place, message: `"${String(raw)}" matches no ${KIND_WORDS[kind].one} in the store, but "${twin}" is the same number written differently: a spreadsheet or script probably rewrote the id. Nothing was added; put the id back as "${twin}".` };
+    return {
+      place: p.place,
+      message: `"${String(raw)}" matches no ${KIND_WORDS[kind].one} in the store, but "${twin}" is the same number written differently: a spreadsheet or script probably rewrote the id. Nothing was added; put the id back as "${twin}".`,
+    };
   });
 }
 

@@ -10,4 +10,3 @@ export function numericTwin(id: string, stored: ReadonlySet<string>): string | n
   for (const s of stored) if (looksNumeric(s) && Number(s) === value) return s;
   return null;
 }
-

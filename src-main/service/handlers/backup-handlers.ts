@@ -47,7 +47,11 @@ export const backupStoreHandler = defineHandler(record({ destination: destinatio
     const storage = describeStorageError(error, dirname(target));
     if (storage && storage.problem !== 'in-use') {
       process.stderr.write(`backup to ${target}: ${storage.code}: ${(error as Error).message}\n`);
-      throw new ServiceError(storage.problem, `destination: the backup could not be written there: ${storage.problem === 'disk-full' ? `the disk holding ${dirname(target)} is full` : `${dirname(target)} cannot be written (read-only, or another user's)`}. Nothing was written.`, 'destination');
+      throw new ServiceError(
+        storage.problem,
+        `destination: the backup could not be written there: ${storage.problem === 'disk-full' ? `the disk holding ${dirname(target)} is full` : `${dirname(target)} cannot be written (read-only, or another user's)`}. Nothing was written.`,
+        'destination',
+      );
     }
     const code = (error as { code?: unknown }).code;
     if (typeof code === 'string' && WRITE_ERRORS.has(code)) {

@@ -94,9 +94,7 @@ export const listBuilds = defineHandler(listInput, async (ctx, input) => listBui
  * The same list in its compact wire form (column by column, repeated values once): what the
  * window loads at start, about a fifth of the size of `builds.list` at 10 000 builds.
  */
-export const listBuildColumns = defineHandler(listInput, async (ctx, input): Promise<ColumnTable<BuildSummary>> =>
-  encodeColumns(await listBuildSummaries(ctx.db, input), BUILD_SUMMARY_KEYS, BUILD_SUMMARY_GROUPS, BUILD_SUMMARY_PLAIN),
-);
+export const listBuildColumns = defineHandler(listInput, async (ctx, input): Promise<ColumnTable<BuildSummary>> => encodeColumns(await listBuildSummaries(ctx.db, input), BUILD_SUMMARY_KEYS, BUILD_SUMMARY_GROUPS, BUILD_SUMMARY_PLAIN));
 
 export const getBuildSheet = defineHandler(record({ id: id() }), async (ctx, input) => {
   const build = await requireBuild(ctx.db, input.id);
@@ -123,18 +121,22 @@ async function writeNewBuild(ctx: ServiceContext, input: BuildCreateInput, optio
   const { id: given, supplies, ...rest } = input;
   const buildId = given ?? ctx.newId('build');
   const fields: BuildFields = { ...rest, supplies: withSupplyIds(ctx, supplies) };
-  return runWrite(ctx, async (trx, at) => {
-    if (await getBuild(trx, buildId)) throw new ServiceError('conflict', `id: a build with id "${buildId}" already exists`, 'id');
-    await checkReferences(trx, buildId, fields);
-    await insertBuild(trx, buildId, fields, at);
-    const stored = await requireBuild(trx, buildId);
-    return {
-      result: stored,
-      history: { action: 'create', entityKind: 'builds', entityId: buildId, summary: `Added build "${stored.name}"`, reason: '', before: null, after: stored },
-      recheck: [buildId],
-      changed: { kind: 'builds', ids: [buildId] },
-    };
-  }, { ...options, messages: true });
+  return runWrite(
+    ctx,
+    async (trx, at) => {
+      if (await getBuild(trx, buildId)) throw new ServiceError('conflict', `id: a build with id "${buildId}" already exists`, 'id');
+      await checkReferences(trx, buildId, fields);
+      await insertBuild(trx, buildId, fields, at);
+      const stored = await requireBuild(trx, buildId);
+      return {
+        result: stored,
+        history: { action: 'create', entityKind: 'builds', entityId: buildId, summary: `Added build "${stored.name}"`, reason: '', before: null, after: stored },
+        recheck: [buildId],
+        changed: { kind: 'builds', ids: [buildId] },
+      };
+    },
+    { ...options, messages: true },
+  );
 }
 
 export const createBuild = defineHandler(buildCreateSchema, async (ctx, input) => {
@@ -164,7 +166,10 @@ export const duplicateBuild = defineHandler(record({ id: id(), newId: v.optional
       const fields: BuildFields = {
         ...rest,
         name: input.name ?? copyName(source.name),
-        supplies: withSupplyIds(ctx, supplies.map((s) => ({ arrangement: s.arrangement, batteryIds: s.batteryIds }))),
+        supplies: withSupplyIds(
+          ctx,
+          supplies.map((s) => ({ arrangement: s.arrangement, batteryIds: s.batteryIds })),
+        ),
       };
       await checkReferences(trx, newId, fields);
       await insertBuild(trx, newId, fields, at);
@@ -232,14 +237,11 @@ export const updateBuild = defineHandler(updateInput(buildPatchSchema), async (c
   return { record: outcome.result, verdict: outcome.verdicts[0] ?? null, verdictChanges: outcome.verdictChanges };
 });
 
-export const archiveBuild = defineHandler(
-  record({ id: id(), expectedVersion: v.pipe(v.number('must be a number'), v.integer('must be a whole number')), archived: v.optional(flag(), true), reason: reasonField() }),
-  async (ctx, input) => {
-    const changes = { archivedAt: input.archived ? ctx.now().toISOString() : null };
-    const outcome = await writeBuildPatch(ctx, { ...input, changes }, input.archived ? 'archive' : 'restore');
-    return { record: outcome.result, verdictChanges: outcome.verdictChanges };
-  },
-);
+export const archiveBuild = defineHandler(record({ id: id(), expectedVersion: v.pipe(v.number('must be a number'), v.integer('must be a whole number')), archived: v.optional(flag(), true), reason: reasonField() }), async (ctx, input) => {
+  const changes = { archivedAt: input.archived ? ctx.now().toISOString() : null };
+  const outcome = await writeBuildPatch(ctx, { ...input, changes }, input.archived ? 'archive' : 'restore');
+  return { record: outcome.result, verdictChanges: outcome.verdictChanges };
+});
 
 const PART_TABLES = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles'] as const;
 

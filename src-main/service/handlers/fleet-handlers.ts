@@ -55,8 +55,6 @@ export const exportCsvHandler = defineHandler(record({ kind: csvKind() }), async
 });
 
 /** Merges a CSV of one part kind; the report names each problem by row and column. */
-export const importCsvHandler = defineHandler(
-  record({ kind: csvKind(), text: fileText(), dryRun: v.optional(flag(), false), acceptChanges: v.optional(flag(), false), reason: reason() }),
-  async (ctx, input) =>
-    importCsv(ctx, CSV_KIND_ALIASES[input.kind], input.text, { dryRun: input.dryRun, acceptChanges: input.acceptChanges, reason: input.reason, onProgress: progressEvents(ctx, 'fleet') }),
+export const importCsvHandler = defineHandler(record({ kind: csvKind(), text: fileText(), dryRun: v.optional(flag(), false), acceptChanges: v.optional(flag(), false), reason: reason() }), async (ctx, input) =>
+  importCsv(ctx, CSV_KIND_ALIASES[input.kind], input.text, { dryRun: input.dryRun, acceptChanges: input.acceptChanges, reason: input.reason, onProgress: progressEvents(ctx, 'fleet') }),
 );

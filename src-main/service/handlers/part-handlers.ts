@@ -32,11 +32,7 @@ export async function requirePart<T extends PartTableName>(db: DbHandle, table: 
 }
 
 export function conflict(kind: keyof typeof RECORD_LABELS, stored: { version: number }, expected: number): ServiceError {
-  return new ServiceError(
-    'conflict',
-    `This ${RECORD_LABELS[kind]} was changed elsewhere (now version ${stored.version}, you edited version ${expected}). Nothing was saved: reload it and apply your change again.`,
-    'expectedVersion',
-  );
+  return new ServiceError('conflict', `This ${RECORD_LABELS[kind]} was changed elsewhere (now version ${stored.version}, you edited version ${expected}). Nothing was saved: reload it and apply your change again.`, 'expectedVersion');
 }
 
 export function listHandler<T extends PartTableName>(table: T) {
@@ -87,9 +83,7 @@ export async function writePartPatch<T extends PartTableName>(
       const afterRecord: { id: string; className?: string } = after;
       // A class rule moved to another class re-checks both classes' builds.
       const recheck: BuildSelector =
-        table === 'classRules' && beforeRecord.className !== afterRecord.className
-          ? { by: 'any', of: [affectedBuilds(table, beforeRecord), affectedBuilds(table, afterRecord)] }
-          : affectedBuilds(table, afterRecord);
+        table === 'classRules' && beforeRecord.className !== afterRecord.className ? { by: 'any', of: [affectedBuilds(table, beforeRecord), affectedBuilds(table, afterRecord)] } : affectedBuilds(table, afterRecord);
       return {
         result: after,
         history: {

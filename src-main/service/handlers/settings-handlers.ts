@@ -23,9 +23,7 @@ export const updateSettings = defineHandler(
       const thresholdChanged = before.tightThreshold !== after.tightThreshold;
       return {
         result: after,
-        history: thresholdChanged
-          ? { action: 'update', entityKind: 'settings', entityId: 'tightThreshold', summary: `Default tight threshold ${before.tightThreshold} → ${after.tightThreshold}`, reason: '', before, after }
-          : null,
+        history: thresholdChanged ? { action: 'update', entityKind: 'settings', entityId: 'tightThreshold', summary: `Default tight threshold ${before.tightThreshold} → ${after.tightThreshold}`, reason: '', before, after } : null,
         recheck: thresholdChanged ? { by: 'all' } : [],
         changed: { kind: 'settings', ids: Object.keys(input) },
       };

@@ -7,21 +7,14 @@ import { plausibleRange, rangeMessage, type PlausibleField, type PlausibleRange 
 export const MAX_NAME = 120;
 export const MAX_NOTES = 4000;
 
-const objectMessage = (issue: v.BaseIssue<unknown>): string =>
-  issue.expected === 'never' ? 'is not a field Rigbook knows' : 'must be an object';
+const objectMessage = (issue: v.BaseIssue<unknown>): string => (issue.expected === 'never' ? 'is not a field Rigbook knows' : 'must be an object');
 
 /** An object that refuses unknown fields (including prototype keys such as __proto__). */
 export function record<const E extends v.ObjectEntries>(entries: E) {
   return v.strictObject(entries, objectMessage);
 }
 
-export const id = () =>
-  v.pipe(
-    v.string('must be text'),
-    v.minLength(1, 'is required'),
-    v.maxLength(64, 'must be at most 64 characters'),
-    v.regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'may hold only letters, digits, dot, dash and underscore'),
-  );
+export const id = () => v.pipe(v.string('must be text'), v.minLength(1, 'is required'), v.maxLength(64, 'must be at most 64 characters'), v.regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'may hold only letters, digits, dot, dash and underscore'));
 
 /**
  * The id of a record being created (by a form or an import). It starts with a letter:
@@ -32,15 +25,10 @@ export const id = () =>
 export const newId = () =>
   v.pipe(
     id(),
-    v.regex(
-      /^[A-Za-z]/,
-      (issue) =>
-        `must start with a letter (${JSON.stringify(issue.input)} does not): spreadsheets rewrite ids that look like numbers (001 becomes 1, 1e5 becomes 1.00E+05), so Rigbook's ids start with a letter`,
-    ),
+    v.regex(/^[A-Za-z]/, (issue) => `must start with a letter (${JSON.stringify(issue.input)} does not): spreadsheets rewrite ids that look like numbers (001 becomes 1, 1e5 becomes 1.00E+05), so Rigbook's ids start with a letter`),
   );
 
-export const name = () =>
-  v.pipe(v.string('must be text'), v.trim(), v.minLength(1, 'is required'), v.maxLength(MAX_NAME, `must be at most ${MAX_NAME} characters`));
+export const name = () => v.pipe(v.string('must be text'), v.trim(), v.minLength(1, 'is required'), v.maxLength(MAX_NAME, `must be at most ${MAX_NAME} characters`));
 
 export const text = (max: number) => v.pipe(v.string('must be text'), v.maxLength(max, `must be at most ${max} characters`));
 

@@ -13,9 +13,9 @@ import { id, name, newId, notes, nullable, number, record, text } from './field-
 // rules engine judges the figures.
 
 function schemasFor<const E extends v.ObjectEntries, const D extends { [K in keyof E]?: v.InferOutput<E[K]> }>(entries: E, defaults: D) {
-  const createEntries = Object.fromEntries(
-    Object.entries(entries).map(([key, schema]) => [key, key in defaults ? v.optional(schema, defaults[key as keyof D] as never) : schema]),
-  ) as { [K in keyof E]: K extends keyof D ? v.OptionalSchema<E[K], never> : E[K] };
+  const createEntries = Object.fromEntries(Object.entries(entries).map(([key, schema]) => [key, key in defaults ? v.optional(schema, defaults[key as keyof D] as never) : schema])) as {
+    [K in keyof E]: K extends keyof D ? v.OptionalSchema<E[K], never> : E[K];
+  };
   const create = record({ id: v.optional(newId()), ...createEntries });
   const patch = v.partial(record(entries));
   return { create, patch };

@@ -34,9 +34,30 @@ export interface BuildSummary {
 
 /** Every key of a summary, in order: the columns of the list's compact wire form. */
 export const BUILD_SUMMARY_KEYS = [
-  'id', 'name', 'version', 'archivedAt', 'vehicleId', 'vehicleName', 'kind', 'owner', 'className', 'motorId', 'motorName', 'controllerId', 'controllerName',
-  'propellerId', 'supplyLabels', 'batteryIds', 'status', 'supplyVoltageFullV', 'theoreticalSpeedKmh', 'peakCurrentA', 'peakCurrentLimitA', 'currentRule',
-  'currentSource', 'updatedAt',
+  'id',
+  'name',
+  'version',
+  'archivedAt',
+  'vehicleId',
+  'vehicleName',
+  'kind',
+  'owner',
+  'className',
+  'motorId',
+  'motorName',
+  'controllerId',
+  'controllerName',
+  'propellerId',
+  'supplyLabels',
+  'batteryIds',
+  'status',
+  'supplyVoltageFullV',
+  'theoreticalSpeedKmh',
+  'peakCurrentA',
+  'peakCurrentLimitA',
+  'currentRule',
+  'currentSource',
+  'updatedAt',
 ] as const satisfies readonly (keyof BuildSummary)[];
 
 /** Columns that follow one another (a vehicle and its kind, owner and class; a part and its name): sent as one dictionary. */
@@ -106,28 +127,17 @@ export async function listBuildSummaries(db: DbHandle, filter: BuildListFilter =
         eb('builds.controllerId', '=', partId),
         eb('builds.propellerId', '=', partId),
         eb('builds.vehicleId', '=', partId),
-        eb(
-          'builds.id',
-          'in',
-          eb
-            .selectFrom('supplyPacks')
-            .innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId')
-            .select('supplies.buildId')
-            .where('supplyPacks.batteryId', '=', partId),
-        ),
+        eb('builds.id', 'in', eb.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplies.buildId').where('supplyPacks.batteryId', '=', partId)),
       ]),
     );
   }
   if (filter.text !== undefined && filter.text.trim() !== '') {
     // LIKE with escaped wildcards: the user's % and _ are literal characters.
-    const pattern = `%${filter.text.trim().toLowerCase().replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    query = query.where((eb) =>
-      eb.or(
-        (['builds.name', 'vehicles.name', 'vehicles.owner', 'motors.name', 'controllers.name'] as const).map((column) =>
-          sql<boolean>`lower(${eb.ref(column)}) like ${pattern} escape '\\'`,
-        ),
-      ),
-    );
+    const pattern = `%${filter.text
+      .trim()
+      .toLowerCase()
+      .replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    query = query.where((eb) => eb.or((['builds.name', 'vehicles.name', 'vehicles.owner', 'motors.name', 'controllers.name'] as const).map((column) => sql<boolean>`lower(${eb.ref(column)}) like ${pattern} escape '\\'`)));
   }
   if (filter.limit !== undefined) query = query.limit(filter.limit);
   const rows = await query.execute();

@@ -71,13 +71,7 @@ function buildToColumns(fields: Partial<BuildFields>): Partial<BuildColumns> {
 export async function loadSupplies(db: DbHandle, selector: BuildSelector): Promise<Map<string, Supply[]>> {
   const byBuild = new Map<string, Supply[]>();
   const byId = new Map<string, Supply>();
-  const supplies = await db
-    .selectFrom('supplies')
-    .select(['id', 'buildId', 'arrangement'])
-    .where('buildId', 'in', selectedBuildIds(db, selector))
-    .orderBy('buildId')
-    .orderBy('position')
-    .execute();
+  const supplies = await db.selectFrom('supplies').select(['id', 'buildId', 'arrangement']).where('buildId', 'in', selectedBuildIds(db, selector)).orderBy('buildId').orderBy('position').execute();
   for (const s of supplies) {
     const supply: Supply = { id: s.id, arrangement: s.arrangement as Arrangement, batteryIds: [] };
     byId.set(s.id, supply);
@@ -100,7 +94,12 @@ export async function loadSupplies(db: DbHandle, selector: BuildSelector): Promi
 /** The selected builds with their supplies; one query per table however many there are. */
 export async function loadBuilds(db: DbHandle, selector: BuildSelector): Promise<Build[]> {
   const supplies = await loadSupplies(db, selector);
-  const rows = await db.selectFrom('builds').selectAll().where((eb) => selectorCondition(db, eb, selector)).orderBy('id').execute();
+  const rows = await db
+    .selectFrom('builds')
+    .selectAll()
+    .where((eb) => selectorCondition(db, eb, selector))
+    .orderBy('id')
+    .execute();
   return rows.map((row) => rowToBuild(row, supplies.get(row.id) ?? [], row));
 }
 
@@ -170,13 +169,7 @@ export async function insertBuild(db: DbHandle, id: string, fields: BuildFields,
 }
 
 /** Writes only at the version the caller read; 0 means a conflict or a missing build. */
-export async function updateBuildAtVersion(
-  db: DbHandle,
-  id: string,
-  expectedVersion: number,
-  patch: Partial<BuildFields> & { archivedAt?: string | null },
-  now: string,
-): Promise<number> {
+export async function updateBuildAtVersion(db: DbHandle, id: string, expectedVersion: number, patch: Partial<BuildFields> & { archivedAt?: string | null }, now: string): Promise<number> {
   const result = await db
     .updateTable('builds')
     .set({ ...buildToColumns(patch), updatedAt: now })

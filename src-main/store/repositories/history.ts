@@ -111,13 +111,7 @@ async function buildKeys(db: DbHandle, buildId: string) {
     .where('builds.id', '=', buildId)
     .executeTakeFirst();
   if (build === undefined) return null;
-  const packs = await db
-    .selectFrom('supplyPacks')
-    .innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId')
-    .select('supplyPacks.batteryId')
-    .distinct()
-    .where('supplies.buildId', '=', buildId)
-    .execute();
+  const packs = await db.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplyPacks.batteryId').distinct().where('supplies.buildId', '=', buildId).execute();
   return { ...build, batteryIds: packs.map((p) => p.batteryId) };
 }
 
@@ -155,16 +149,23 @@ export async function listHistory(db: DbHandle, q: HistoryQuery): Promise<Histor
     const buildId = q.buildId;
     const keys = await buildKeys(db, buildId);
     query = query.where((eb) => {
-      const own = [
-        eb.and([eb('history.entityKind', '=', 'builds'), eb('history.entityId', '=', buildId)]),
-        eb('history.id', 'in', eb.selectFrom('historyBuilds').select('historyId').where('historyBuilds.buildId', '=', buildId)),
-      ];
+      const own = [eb.and([eb('history.entityKind', '=', 'builds'), eb('history.entityId', '=', buildId)]), eb('history.id', 'in', eb.selectFrom('historyBuilds').select('historyId').where('historyBuilds.buildId', '=', buildId))];
       if (keys === null) return eb.or(own);
       // Selector rows are resolved against what the build is made of now, and only for entries
       // written since the build was added (a fleet-wide re-check before it existed is not its).
       return eb.or([
         ...own,
-        eb.and([eb('history.at', '>=', keys.createdAt), eb('history.id', 'in', eb.selectFrom('historySelectors').select('historySelectors.historyId').where((hs) => selectorMatches(hs, keys)))]),
+        eb.and([
+          eb('history.at', '>=', keys.createdAt),
+          eb(
+            'history.id',
+            'in',
+            eb
+              .selectFrom('historySelectors')
+              .select('historySelectors.historyId')
+              .where((hs) => selectorMatches(hs, keys)),
+          ),
+        ]),
       ]);
     });
   }

@@ -18,7 +18,12 @@ export type PartFields<T extends PartTableName> = Omit<PartRecords[T], 'id' | 'v
 
 /** The columns that hold booleans as 0/1, per table: the catalogue's flags. */
 const BOOLEAN_COLUMNS: Partial<Record<PartTableName, readonly string[]>> = Object.fromEntries(
-  Object.entries(FIELD_CATALOGUES).map(([table, fields]) => [table, Object.entries<FieldSpec>(fields).filter(([, spec]) => spec.type === 'flag').map(([key]) => key)]),
+  Object.entries(FIELD_CATALOGUES).map(([table, fields]) => [
+    table,
+    Object.entries<FieldSpec>(fields)
+      .filter(([, spec]) => spec.type === 'flag')
+      .map(([key]) => key),
+  ]),
 );
 
 export function rowToRecord<T extends PartTableName>(table: T, row: Record<string, unknown>): PartRecords[T] {

@@ -46,13 +46,7 @@ export async function listParts<T extends PartTableName>(db: DbHandle, table: T,
   return rows.map((row) => rowToRecord(table, row));
 }
 
-export async function insertPart<T extends PartTableName>(
-  db: DbHandle,
-  table: T,
-  id: string,
-  fields: PartFields<T>,
-  now: string,
-): Promise<PartRecords[T]> {
+export async function insertPart<T extends PartTableName>(db: DbHandle, table: T, id: string, fields: PartFields<T>, now: string): Promise<PartRecords[T]> {
   const values = { ...fieldsToColumns(table, fields), id, version: 1, archivedAt: null, createdAt: now, updatedAt: now };
   await db
     .insertInto(table as AnyTable)
@@ -67,14 +61,7 @@ export async function insertPart<T extends PartTableName>(
  * Writes the patch only where the stored version is the one the caller read; returns the
  * number of rows written (0 means someone else wrote first, or the record is gone).
  */
-export async function updatePartAtVersion<T extends PartTableName>(
-  db: DbHandle,
-  table: T,
-  id: string,
-  expectedVersion: number,
-  patch: Partial<PartFields<T>> & { archivedAt?: string | null },
-  now: string,
-): Promise<number> {
+export async function updatePartAtVersion<T extends PartTableName>(db: DbHandle, table: T, id: string, expectedVersion: number, patch: Partial<PartFields<T>> & { archivedAt?: string | null }, now: string): Promise<number> {
   const result = await db
     .updateTable(table as AnyTable)
     .set({ ...fieldsToColumns(table, patch), updatedAt: now } as never)

@@ -38,13 +38,12 @@ export function isEmptyFilter(filter: BuildFilter): boolean {
  * `candidates` when given (positions a wider filter let through). Runs on every keystroke over
  * up to 10 000 rows: one pass, the haystack of a row asked for only when there is text to find.
  */
-export function matchingPositions(
-  rows: readonly BuildSummary[],
-  filter: BuildFilter,
-  haystackAt: (position: number) => string,
-  candidates?: readonly number[],
-): number[] {
-  const words = filter.text.trim().toLowerCase().split(/\s+/).filter((w) => w !== '');
+export function matchingPositions(rows: readonly BuildSummary[], filter: BuildFilter, haystackAt: (position: number) => string, candidates?: readonly number[]): number[] {
+  const words = filter.text
+    .trim()
+    .toLowerCase()
+    .split(/\s+/)
+    .filter((w) => w !== '');
   const statuses = filter.statuses.length > 0 ? new Set<Status | null>(filter.statuses) : null;
   const kinds = filter.kinds.length > 0 ? new Set<VehicleKind>(filter.kinds) : null;
   const out: number[] = [];
@@ -86,13 +85,7 @@ const sameList = <T>(a: readonly T[], b: readonly T[]) => a.length === b.length 
  * does not.
  */
 export function narrows(previous: BuildFilter, next: BuildFilter): boolean {
-  return (
-    previous.owner === next.owner &&
-    previous.partId === next.partId &&
-    sameList(previous.statuses, next.statuses) &&
-    sameList(previous.kinds, next.kinds) &&
-    next.text.toLowerCase().startsWith(previous.text.toLowerCase())
-  );
+  return previous.owner === next.owner && previous.partId === next.partId && sameList(previous.statuses, next.statuses) && sameList(previous.kinds, next.kinds) && next.text.toLowerCase().startsWith(previous.text.toLowerCase());
 }
 
 function numberOrNull(a: number | null, b: number | null): number {

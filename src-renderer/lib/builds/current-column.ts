@@ -74,4 +74,3 @@ export function currentCell(row: CurrentRow): CurrentCell {
 }
 
 export const CURRENT_LEVEL_WORD: Readonly<Record<Exclude<CurrentCell['level'], ''>, string>> = { past: 'past', near: 'near' };
-

@@ -83,10 +83,20 @@ export function currentPowerConfig(d: MotorChartData): ChartConfiguration<'line'
       datasets: [
         { type: 'line', label: 'Current (A)', data: xy(d.curve.rpm, d.curve.currentA), borderColor: SERIES.current.color, borderDash: SERIES.current.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y' },
         { type: 'line', label: 'Shaft power (W)', data: xy(d.curve.rpm, d.curve.shaftPowerW), borderColor: SERIES.power.color, borderDash: SERIES.power.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y1' },
-        operatingPoints(d, d.marks.map((m) => m.currentA), 'y'),
+        operatingPoints(
+          d,
+          d.marks.map((m) => m.currentA),
+          'y',
+        ),
       ],
     },
-    options: motorCurveOptions(d, (y) => `${y.toFixed(1)} A`, () => 1, { title: 'Current (A)' }, { title: 'Shaft power (W)' }),
+    options: motorCurveOptions(
+      d,
+      (y) => `${y.toFixed(1)} A`,
+      () => 1,
+      { title: 'Current (A)' },
+      { title: 'Shaft power (W)' },
+    ),
   };
 }
 
@@ -112,17 +122,30 @@ export function torqueEfficiencyConfig(d: MotorChartData, system: UnitSystem = '
         {
           type: 'line',
           label: 'Efficiency (%)',
-          data: xy(d.curve.rpm, d.curve.efficiency.map((e) => Math.max(0, e * 100))),
+          data: xy(
+            d.curve.rpm,
+            d.curve.efficiency.map((e) => Math.max(0, e * 100)),
+          ),
           borderColor: SERIES.efficiency.color,
           borderDash: SERIES.efficiency.dash,
           borderWidth: 2,
           pointRadius: 0,
           yAxisID: 'y1',
         },
-        operatingPoints(d, d.marks.map((m) => effAt(m.rpm)), 'y1'),
+        operatingPoints(
+          d,
+          d.marks.map((m) => effAt(m.rpm)),
+          'y1',
+        ),
       ],
     },
-    options: motorCurveOptions(d, (y) => `${y.toFixed(0)} %`, (i) => (i === 0 ? (system === 'metric' ? 3 : 1) : 0), { title: `Torque (${torqueUnit})` }, { title: 'Efficiency (%)', max: 100 }),
+    options: motorCurveOptions(
+      d,
+      (y) => `${y.toFixed(0)} %`,
+      (i) => (i === 0 ? (system === 'metric' ? 3 : 1) : 0),
+      { title: `Torque (${torqueUnit})` },
+      { title: 'Efficiency (%)', max: 100 },
+    ),
   };
 }
 
@@ -162,8 +185,7 @@ export function currentLimitsConfig(findings: readonly Finding[]): ChartConfigur
           // The current bars are red where over; the legend keys them by the usual blue.
           labels: {
             boxWidth: 14,
-            generateLabels: (chart) =>
-              Chart.defaults.plugins.legend.labels.generateLabels(chart).map((l, i) => (i === 0 ? { ...l, fillStyle: '#1f4e79', strokeStyle: '#173c5e' } : l)),
+            generateLabels: (chart) => Chart.defaults.plugins.legend.labels.generateLabels(chart).map((l, i) => (i === 0 ? { ...l, fillStyle: '#1f4e79', strokeStyle: '#173c5e' } : l)),
           },
         },
       },
@@ -185,7 +207,10 @@ export function runConfig(run: RunTrace, units: UnitSystem): ChartConfiguration<
         { label: 'Supply current (A)', data: xy(run.timeS, run.currentA), borderColor: SERIES.current.color, borderDash: SERIES.current.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y' },
         {
           label: `Speed (${speedUnit})`,
-          data: xy(run.timeS, run.speedKmh.map((v) => toDisplay(v, 'speedKmh', units))),
+          data: xy(
+            run.timeS,
+            run.speedKmh.map((v) => toDisplay(v, 'speedKmh', units)),
+          ),
           borderColor: SERIES.power.color,
           borderDash: SERIES.power.dash,
           borderWidth: 2,

@@ -1,18 +1,5 @@
 // Only the chart.js pieces the build sheet draws, registered once: the rest is tree-shaken.
-import {
-  BarController,
-  BarElement,
-  CategoryScale,
-  Chart,
-  Filler,
-  Legend,
-  LinearScale,
-  LineController,
-  LineElement,
-  PointElement,
-  ScatterController,
-  Tooltip,
-} from 'chart.js';
+import { BarController, BarElement, CategoryScale, Chart, Filler, Legend, LinearScale, LineController, LineElement, PointElement, ScatterController, Tooltip } from 'chart.js';
 
 Chart.register(Filler, LineController, LineElement, PointElement, LinearScale, ScatterController, BarController, BarElement, CategoryScale, Legend, Tooltip);
 

@@ -29,7 +29,10 @@ export function bandDatasets(bands: readonly CurrentBand[], x0: number, x1: numb
   const out: LineSet[] = [];
   for (const b of bands) {
     const s = BAND_STYLE[b.part];
-    const line = (y: number) => [{ x: x0, y }, { x: x1, y }];
+    const line = (y: number) => [
+      { x: x0, y },
+      { x: x1, y },
+    ];
     if (b.lowA !== b.highA) {
       // Unlabelled: the legend shows the band once, under its upper line.
       out.push({ type: 'line', label: '', data: line(b.lowA), borderColor: s.color, borderDash: s.dash, borderWidth: 1.5, pointRadius: 0, fill: false, yAxisID });
@@ -68,7 +71,19 @@ export function runBandsConfig(run: RunTrace, bands: readonly CurrentBand[], uni
     data: {
       datasets: [
         { type: 'line', label: 'Supply current (A)', data: xy(run.timeS, run.currentA), borderColor: SERIES.current.color, borderDash: SERIES.current.dash, borderWidth: 2.5, pointRadius: 0, yAxisID: 'y' },
-        { type: 'line', label: `Speed (${speedUnit})`, data: xy(run.timeS, run.speedKmh.map((v) => toDisplay(v, 'speedKmh', units))), borderColor: SERIES.power.color, borderDash: SERIES.power.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y1' },
+        {
+          type: 'line',
+          label: `Speed (${speedUnit})`,
+          data: xy(
+            run.timeS,
+            run.speedKmh.map((v) => toDisplay(v, 'speedKmh', units)),
+          ),
+          borderColor: SERIES.power.color,
+          borderDash: SERIES.power.dash,
+          borderWidth: 2,
+          pointRadius: 0,
+          yAxisID: 'y1',
+        },
         ...bandDatasets(bands, 0, run.runLengthS),
       ],
     },
@@ -99,9 +114,26 @@ export function forceConfig(d: ForceChartData, units: UnitSystem): ChartConfigur
     { type: 'line', label: `Road load (${forceUnit})`, data: xy(sx, d.roadN.map(f)), borderColor: SERIES.power.color, borderDash: SERIES.power.dash, borderWidth: 2, pointRadius: 0 },
   ];
   if (d.tractionN !== null) {
-    datasets.push({ type: 'line', label: `Traction limit ${fixed(f(d.tractionN), 1)} ${forceUnit}`, data: [{ x: 0, y: f(d.tractionN) }, { x: x1, y: f(d.tractionN) }], borderColor: '#4a5563', borderDash: [2, 3], borderWidth: 1.5, pointRadius: 0 });
+    datasets.push({
+      type: 'line',
+      label: `Traction limit ${fixed(f(d.tractionN), 1)} ${forceUnit}`,
+      data: [
+        { x: 0, y: f(d.tractionN) },
+        { x: x1, y: f(d.tractionN) },
+      ],
+      borderColor: '#4a5563',
+      borderDash: [2, 3],
+      borderWidth: 1.5,
+      pointRadius: 0,
+    });
   }
-  datasets.push(marks('Launch ◆, loaded top speed ▲', d.marks.map((m) => ({ x: toDisplay(m.speedKmh, 'speedKmh', units), y: f(m.forceN) })), 'y'));
+  datasets.push(
+    marks(
+      'Launch ◆, loaded top speed ▲',
+      d.marks.map((m) => ({ x: toDisplay(m.speedKmh, 'speedKmh', units), y: f(m.forceN) })),
+      'y',
+    ),
+  );
   return {
     type: 'line',
     data: { datasets },
@@ -123,14 +155,30 @@ export function forceConfig(d: ForceChartData, units: UnitSystem): ChartConfigur
 export function propCurrentConfig(d: PropChartData, bands: readonly CurrentBand[], units: UnitSystem): ChartConfiguration<'line' | 'scatter'> {
   const forceUnit = displayUnit('forceN', units);
   const x1 = niceCeil(Math.max(...d.propellerRpm, ...d.marks.map((m) => m.propellerRpm)));
-  const datasets: LineSet[] = [
-    { type: 'line', label: 'Current per motor (A)', data: xy(d.propellerRpm, d.currentA), borderColor: SERIES.current.color, borderWidth: 2.5, pointRadius: 0, yAxisID: 'y' },
-  ];
+  const datasets: LineSet[] = [{ type: 'line', label: 'Current per motor (A)', data: xy(d.propellerRpm, d.currentA), borderColor: SERIES.current.color, borderWidth: 2.5, pointRadius: 0, yAxisID: 'y' }];
   if (d.thrustN.every((t) => t !== null)) {
-    datasets.push({ type: 'line', label: `Thrust, all motors (${forceUnit})`, data: xy(d.propellerRpm, d.thrustN.map((t) => toDisplay(t ?? 0, 'forceN', units))), borderColor: SERIES.power.color, borderDash: SERIES.power.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y1' });
+    datasets.push({
+      type: 'line',
+      label: `Thrust, all motors (${forceUnit})`,
+      data: xy(
+        d.propellerRpm,
+        d.thrustN.map((t) => toDisplay(t ?? 0, 'forceN', units)),
+      ),
+      borderColor: SERIES.power.color,
+      borderDash: SERIES.power.dash,
+      borderWidth: 2,
+      pointRadius: 0,
+      yAxisID: 'y1',
+    });
   }
   datasets.push(...bandDatasets(bands, 0, x1));
-  datasets.push(marks('Static full throttle ◆, unloaded ▲', d.marks.map((m) => ({ x: m.propellerRpm, y: m.currentA })), 'y'));
+  datasets.push(
+    marks(
+      'Static full throttle ◆, unloaded ▲',
+      d.marks.map((m) => ({ x: m.propellerRpm, y: m.currentA })),
+      'y',
+    ),
+  );
   return {
     type: 'line',
     data: { datasets },
@@ -158,12 +206,39 @@ export function tipSpeedConfig(d: PropChartData, limitMps: number | null, units:
   const x1 = niceCeil(xEnd);
   const datasets: LineSet[] = [
     // Tip speed rises in proportion to rpm: a straight line from standstill to the unloaded speed.
-    { type: 'line', label: `Tip speed (${unit})`, data: [{ x: 0, y: 0 }, { x: xEnd, y: s(unloaded?.tipSpeedMps ?? 0) }], borderColor: SERIES.current.color, borderWidth: 2.5, pointRadius: 0 },
+    {
+      type: 'line',
+      label: `Tip speed (${unit})`,
+      data: [
+        { x: 0, y: 0 },
+        { x: xEnd, y: s(unloaded?.tipSpeedMps ?? 0) },
+      ],
+      borderColor: SERIES.current.color,
+      borderWidth: 2.5,
+      pointRadius: 0,
+    },
   ];
   if (limitMps !== null) {
-    datasets.push({ type: 'line', label: `Tip speed limit ${fixed(s(limitMps), 0)} ${unit}`, data: [{ x: 0, y: s(limitMps) }, { x: x1, y: s(limitMps) }], borderColor: '#b42318', borderDash: [8, 4], borderWidth: 1.5, pointRadius: 0 });
+    datasets.push({
+      type: 'line',
+      label: `Tip speed limit ${fixed(s(limitMps), 0)} ${unit}`,
+      data: [
+        { x: 0, y: s(limitMps) },
+        { x: x1, y: s(limitMps) },
+      ],
+      borderColor: '#b42318',
+      borderDash: [8, 4],
+      borderWidth: 1.5,
+      pointRadius: 0,
+    });
   }
-  datasets.push(marks('Static full throttle ◆, unloaded ▲', d.marks.map((m) => ({ x: m.propellerRpm, y: s(m.tipSpeedMps) })), 'y'));
+  datasets.push(
+    marks(
+      'Static full throttle ◆, unloaded ▲',
+      d.marks.map((m) => ({ x: m.propellerRpm, y: s(m.tipSpeedMps) })),
+      'y',
+    ),
+  );
   return {
     type: 'line',
     data: { datasets },

@@ -95,7 +95,7 @@ export function forceChartData(r: RunModel, points = 60): ForceChartData | null 
   }
   // Launch: the force the tyres pass at standstill, and the supply current it takes.
   const launchN = drive(0);
-  const launchA = d.motorCount * ((launchN * radiusM) / (d.finalDrive * d.efficiency * d.motorCount) * m.kvRad + m.noLoadCurrentA);
+  const launchA = d.motorCount * (((launchN * radiusM) / (d.finalDrive * d.efficiency * d.motorCount)) * m.kvRad + m.noLoadCurrentA);
   out.marks.push({ label: 'Launch', speedKmh: 0, forceN: launchN, currentA: launchA });
   const top = loadedTopSpeed(m, voltageV, d, road);
   out.marks.push({

@@ -5,10 +5,7 @@ const pad = (n: number): string => String(n).padStart(2, '0');
 export function dateTime(iso: string, zone: 'local' | 'utc' = 'local'): string {
   const d = new Date(iso);
   if (Number.isNaN(d.getTime())) return iso;
-  const [y, mo, da, h, mi] =
-    zone === 'utc'
-      ? [d.getUTCFullYear(), d.getUTCMonth() + 1, d.getUTCDate(), d.getUTCHours(), d.getUTCMinutes()]
-      : [d.getFullYear(), d.getMonth() + 1, d.getDate(), d.getHours(), d.getMinutes()];
+  const [y, mo, da, h, mi] = zone === 'utc' ? [d.getUTCFullYear(), d.getUTCMonth() + 1, d.getUTCDate(), d.getUTCHours(), d.getUTCMinutes()] : [d.getFullYear(), d.getMonth() + 1, d.getDate(), d.getHours(), d.getMinutes()];
   return `${y}-${pad(mo)}-${pad(da)} ${pad(h)}:${pad(mi)}`;
 }
 

@@ -13,9 +13,7 @@ const OTHER: Readonly<Record<string, string>> = {
 };
 
 function namesOf(catalogue: FieldCatalogue, prefix = ''): [string, string][] {
-  return Object.entries(catalogue).flatMap(([key, spec]): [string, string][] =>
-    spec.type === 'group' && spec.fields ? namesOf(spec.fields, `${prefix}${key}.`) : [[`${prefix}${key}`, storedLabel(spec)]],
-  );
+  return Object.entries(catalogue).flatMap(([key, spec]): [string, string][] => (spec.type === 'group' && spec.fields ? namesOf(spec.fields, `${prefix}${key}.`) : [[`${prefix}${key}`, storedLabel(spec)]]));
 }
 
 const BY_KIND = new Map<string, ReadonlyMap<string, string>>(Object.entries(FIELD_CATALOGUES).map(([kind, catalogue]) => [kind, new Map(namesOf(catalogue))]));

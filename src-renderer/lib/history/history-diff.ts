@@ -53,10 +53,12 @@ export function changedFieldsOf(before: unknown, after: unknown, nameOf?: NameOf
 }
 
 function suppliesText(list: unknown[], nameOf: NameOf = (id) => id): string {
-  return list
-    .map((s) => {
-      if (!isPlainObject(s) || !Array.isArray(s.batteryIds)) return '?';
-      return s.batteryIds.map((id) => nameOf(String(id))).join(s.arrangement === 'parallel' ? ' ∥ ' : ' + ');
-    })
-    .join('; ') || 'none';
+  return (
+    list
+      .map((s) => {
+        if (!isPlainObject(s) || !Array.isArray(s.batteryIds)) return '?';
+        return s.batteryIds.map((id) => nameOf(String(id))).join(s.arrangement === 'parallel' ? ' ∥ ' : ' + ');
+      })
+      .join('; ') || 'none'
+  );
 }

@@ -98,6 +98,5 @@ export const partApi = {
         return ops.vehicles.update({ id, expectedVersion, changes: typedInput(partSchemasByTable.vehicles.patch, changes, at), reason });
     }
   },
-  archive: (client: Client, table: PartTable, id: string, expectedVersion: number, archived: boolean, reason: string): Promise<PartWriteResult> =>
-    partOps(client)[table].archive({ id, expectedVersion, archived, reason }),
+  archive: (client: Client, table: PartTable, id: string, expectedVersion: number, archived: boolean, reason: string): Promise<PartWriteResult> => partOps(client)[table].archive({ id, expectedVersion, archived, reason }),
 };

@@ -36,8 +36,19 @@ function decode(segment: string | undefined): string | null {
 /** The builds a comparison names (`ids=a,b,c`), each once, in the order given. */
 function compareIds(search: string): string[] {
   // Read by hand: each id is escaped on its own, so a comma inside one stays part of it.
-  const raw = search.split('&').find((p) => p.startsWith('ids='))?.slice(4) ?? '';
-  return [...new Set(raw.split(',').map((s) => decode(s.trim())).filter((s): s is string => s !== null))];
+  const raw =
+    search
+      .split('&')
+      .find((p) => p.startsWith('ids='))
+      ?.slice(4) ?? '';
+  return [
+    ...new Set(
+      raw
+        .split(',')
+        .map((s) => decode(s.trim()))
+        .filter((s): s is string => s !== null),
+    ),
+  ];
 }
 
 /** Reads `#/builds/abc` into a route; anything unknown opens the builds list. */

@@ -99,9 +99,7 @@ export class BuildFormState extends FormState<Build> {
 
   /** Supplies as the service takes them; empty pack slots are left out rather than sent as bad ids. */
   private suppliesInput() {
-    return this.supplies
-      .map((s) => ({ ...(s.id ? { id: s.id } : {}), arrangement: s.arrangement, batteryIds: s.batteryIds.filter((id) => id !== '') }))
-      .filter((s) => s.batteryIds.length > 0);
+    return this.supplies.map((s) => ({ ...(s.id ? { id: s.id } : {}), arrangement: s.arrangement, batteryIds: s.batteryIds.filter((id) => id !== '') })).filter((s) => s.batteryIds.length > 0);
   }
 
   /** Every field that cannot be saved as typed, each with its own message (supplies under `supplies`). */

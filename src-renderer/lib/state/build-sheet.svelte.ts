@@ -29,12 +29,7 @@ export class BuildSheetState {
   }
 
   follow(): () => void {
-    return this.source.follow(
-      this.client,
-      (event) =>
-        (event.type === 'verdicts-changed' && event.buildIds.includes(this.id)) ||
-        (event.type === 'records-changed' && event.kind === 'builds' && event.ids.includes(this.id)),
-    );
+    return this.source.follow(this.client, (event) => (event.type === 'verdicts-changed' && event.buildIds.includes(this.id)) || (event.type === 'records-changed' && event.kind === 'builds' && event.ids.includes(this.id)));
   }
 
   /** The full-throttle run of one supply of a car or truck, from the same core the verdict came from. */

@@ -35,11 +35,7 @@ export class CatalogState {
   vehicles = $derived(this.sources.vehicles.value ?? []);
   loaded = $derived(TABLES.every((t) => this.sources[t].loaded));
 
-  names = $derived(
-    new Map<string, string>(
-      [...this.batteries, ...this.motors, ...this.controllers, ...this.propellers, ...this.vehicles].map((r) => [r.id, r.name] as const),
-    ),
-  );
+  names = $derived(new Map<string, string>([...this.batteries, ...this.motors, ...this.controllers, ...this.propellers, ...this.vehicles].map((r) => [r.id, r.name] as const)));
 
   constructor(private readonly client: Client) {}
 

@@ -7,7 +7,6 @@ import { MAX_COMPARED } from '../compare/compare-limit';
 
 type Sheet = ApiOutput<'builds.get'>;
 
-
 export interface ComparedBuild {
   sheet: Sheet;
   /** The supply compared (the one that decides the verdict) and how many the build has. */
@@ -37,9 +36,7 @@ export class CompareState {
   builds = $derived(this.source.value?.builds ?? []);
   missing = $derived(this.source.value?.missing ?? []);
   error = $derived(this.source.error?.message ?? null);
-  columns = $derived<CompareColumn[]>(
-    this.builds.map((b) => ({ id: b.sheet.build.id, name: b.sheet.build.name, kind: b.sheet.vehicle?.kind ?? null, verdict: b.sheet.verdict?.supplies[b.supplyIndex] ?? null })),
-  );
+  columns = $derived<CompareColumn[]>(this.builds.map((b) => ({ id: b.sheet.build.id, name: b.sheet.build.name, kind: b.sheet.vehicle?.kind ?? null, verdict: b.sheet.verdict?.supplies[b.supplyIndex] ?? null })));
   /** More ids than fit were named: the first ones are compared. */
   truncated: boolean;
 
@@ -79,9 +76,7 @@ export class CompareState {
   follow(): () => void {
     return this.source.follow(
       this.client,
-      (event) =>
-        (event.type === 'verdicts-changed' && event.buildIds.some((id) => this.ids.includes(id))) ||
-        (event.type === 'records-changed' && event.kind === 'builds' && event.ids.some((id) => this.ids.includes(id))),
+      (event) => (event.type === 'verdicts-changed' && event.buildIds.some((id) => this.ids.includes(id))) || (event.type === 'records-changed' && event.kind === 'builds' && event.ids.some((id) => this.ids.includes(id))),
       { settleMs: 120 },
     );
   }

@@ -176,7 +176,14 @@ export class SwapPreviewState {
     let problems: Problems = {};
     let defs = GEARING_DEFS;
     if (this.mode === 'gearing') {
-      problems = draftProblems(GEARING_DEFS, this.gearing, this.units, gearingSchema, (values) => Object.fromEntries(Object.entries(values).map(([k, x]) => [k.slice('gearing.'.length), x])), (path) => `gearing.${path}`);
+      problems = draftProblems(
+        GEARING_DEFS,
+        this.gearing,
+        this.units,
+        gearingSchema,
+        (values) => Object.fromEntries(Object.entries(values).map(([k, x]) => [k.slice('gearing.'.length), x])),
+        (path) => `gearing.${path}`,
+      );
     } else if (this.mode === 'record') {
       const [table] = this.recordTarget.split(':') as [PartTable];
       const def = this.recordFields().find((d) => d.key === this.recordField);

@@ -18,7 +18,6 @@ export const STATUS_MEANING: Readonly<Record<Status, string>> = {
   clear: 'Every rule checked, with headroom',
 };
 
-
 /** Worst first, unknown (never evaluated) last. */
 export function statusRank(status: Status | null): number {
   return status === null ? STATUSES.length : STATUSES.indexOf(status);

@@ -21,8 +21,7 @@ export function isReadOnly(name: string): boolean {
   return /\.(list|get|info|preview|export\w*|backup)$/.test(name);
 }
 
-const prototypeShapes = () =>
-  [Object.prototype, Array.prototype, Function.prototype, String.prototype, Number.prototype].map((p) => Object.getOwnPropertyNames(p).sort().join(',')).join('|');
+const prototypeShapes = () => [Object.prototype, Array.prototype, Function.prototype, String.prototype, Number.prototype].map((p) => Object.getOwnPropertyNames(p).sort().join(',')).join('|');
 const CLEAN_PROTOTYPES = prototypeShapes();
 
 export function prototypesPolluted(): string | null {

@@ -27,14 +27,59 @@ export function pollutingObjects(): unknown[] {
 }
 
 const NASTY_NUMBERS = [
-  0, -0, 1, -1, 0.5, Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY, Number.MAX_VALUE, -Number.MAX_VALUE, Number.MIN_VALUE,
-  Number.MAX_SAFE_INTEGER, Number.MAX_SAFE_INTEGER + 2, Number.MIN_SAFE_INTEGER, 2 ** 31, -(2 ** 31), 2 ** 32, 1e21, 1e-300, -1e-300,
+  0,
+  -0,
+  1,
+  -1,
+  0.5,
+  Number.NaN,
+  Number.POSITIVE_INFINITY,
+  Number.NEGATIVE_INFINITY,
+  Number.MAX_VALUE,
+  -Number.MAX_VALUE,
+  Number.MIN_VALUE,
+  Number.MAX_SAFE_INTEGER,
+  Number.MAX_SAFE_INTEGER + 2,
+  Number.MIN_SAFE_INTEGER,
+  2 ** 31,
+  -(2 ** 31),
+  2 ** 32,
+  1e21,
+  1e-300,
+  -1e-300,
 ];
 
 const NASTY_STRINGS = [
-  '', ' ', '\u0000', '\n', 'x'.repeat(65), 'x'.repeat(121), 'x'.repeat(501), 'x'.repeat(4001), 'x'.repeat(200_000), '__proto__', 'constructor',
-  'prototype', '../../etc/passwd', '..\\..\\boot.ini', '%00', '<script>alert(1)</script>', "'; drop table builds; --", '=cmd|calc', '\uD800',
-  '\u202Eevil', '🔋🔋🔋', 'NaN', '1e999', 'null', 'true', '[]', '{}', 'pack-1', 'build-1', 'class-x',
+  '',
+  ' ',
+  '\u0000',
+  '\n',
+  'x'.repeat(65),
+  'x'.repeat(121),
+  'x'.repeat(501),
+  'x'.repeat(4001),
+  'x'.repeat(200_000),
+  '__proto__',
+  'constructor',
+  'prototype',
+  '../../etc/passwd',
+  '..\\..\\boot.ini',
+  '%00',
+  '<script>alert(1)</script>',
+  "'; drop table builds; --",
+  '=cmd|calc',
+  '\uD800',
+  '\u202Eevil',
+  '🔋🔋🔋',
+  'NaN',
+  '1e999',
+  'null',
+  'true',
+  '[]',
+  '{}',
+  'pack-1',
+  'build-1',
+  'class-x',
 ];
 
 function nest(depth: number, leaf: unknown, asArray: boolean): unknown {
@@ -142,7 +187,13 @@ export function mutate(g: Gen, payload: unknown, schema: SchemaNode, ids: readon
     const node = schemaAt(schema, path);
     const how = pick(g, ['bound', 'bound', 'bound', 'nasty', 'id', 'remove', 'sibling']);
     if (how === 'bound') setAt(out, path, pick(g, node ? boundaryValues(boundsOf(node)) : [null]), false);
-    else if (how === 'nasty') setAt(out, path, g(() => nastyValue), false);
+    else if (how === 'nasty')
+      setAt(
+        out,
+        path,
+        g(() => nastyValue),
+        false,
+      );
     else if (how === 'id') setAt(out, path, pick(g, [...ids, 'no-such-id', 'pack-0']), false);
     else if (how === 'remove') setAt(out, path, undefined, true);
     else {

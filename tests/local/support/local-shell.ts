@@ -26,8 +26,20 @@ export async function startShell() {
   const events: ServiceEvent[] = [];
   host.subscribe((e) => events.push(e));
   const server: LocalServer = await startLocalServer({ host, rendererDir });
-  const countPacks = async () => (await host.ctx.db.selectFrom('batteries').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n;
-  const countHistory = async () => (await host.ctx.db.selectFrom('history').select((eb) => eb.fn.countAll<number>().as('n')).executeTakeFirstOrThrow()).n;
+  const countPacks = async () =>
+    (
+      await host.ctx.db
+        .selectFrom('batteries')
+        .select((eb) => eb.fn.countAll<number>().as('n'))
+        .executeTakeFirstOrThrow()
+    ).n;
+  const countHistory = async () =>
+    (
+      await host.ctx.db
+        .selectFrom('history')
+        .select((eb) => eb.fn.countAll<number>().as('n'))
+        .executeTakeFirstOrThrow()
+    ).n;
   return {
     server,
     host,

@@ -84,9 +84,7 @@ async function main(): Promise<void> {
   const supplies = () => {
     const packs = [...ids('batteries')];
     const take = (): string[] => (packs.length > 0 ? packs.splice(Math.floor(random() * packs.length), 1) : []);
-    return Array.from({ length: int(1, 2) }, () => ({ arrangement: pick(['series', 'parallel'] as const), batteryIds: Array.from({ length: int(1, 2) }, take).flat() })).filter(
-      (s) => s.batteryIds.length > 0,
-    );
+    return Array.from({ length: int(1, 2) }, () => ({ arrangement: pick(['series', 'parallel'] as const), batteryIds: Array.from({ length: int(1, 2) }, take).flat() })).filter((s) => s.batteryIds.length > 0);
   };
 
   for (;;) {
@@ -131,7 +129,15 @@ async function main(): Promise<void> {
       const current = (await call('batteries.get', { id: shared.id })) as Record<string, unknown>;
       const { version: _v, archivedAt: _a, ...sharedFields } = current;
       const pack = { id: `imp-${tag}-${n}`, name: `Imported ${tag}/${n}`, chemistry: 'lipo', cellsSeries: pick([2, 3, 4]), capacityMah: 4000, cRatingContinuous: pick([20, 60]), cRatingBurst: 100, cellResistanceOhm: 0.003 };
-      const build = { id: `impb-${tag}-${n}`, name: `Imported build ${tag}/${n}`, vehicleId: pick(ids('vehicles')), motorId: pick(ids('motors')), controllerId: pick(ids('controllers')), gearing: gearing(), supplies: [{ batteryIds: [pack.id, shared.id] }] };
+      const build = {
+        id: `impb-${tag}-${n}`,
+        name: `Imported build ${tag}/${n}`,
+        vehicleId: pick(ids('vehicles')),
+        motorId: pick(ids('motors')),
+        controllerId: pick(ids('controllers')),
+        gearing: gearing(),
+        supplies: [{ batteryIds: [pack.id, shared.id] }],
+      };
       const fleet = { format: 'rigbook-fleet', version: 1, batteries: [pack, { ...sharedFields, cRatingContinuous: pick([10, 25, 45, 90]) }], motors: [], controllers: [], propellers: [], vehicles: [], classRules: [], builds: [build] };
       const report = (await call('fleet.import', { fleet, mode: 'merge', reason: `crash import ${tag}` })) as { ok: boolean; historyId: number | null; problems: unknown[] };
       if (!report.ok) {

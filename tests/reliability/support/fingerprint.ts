@@ -11,7 +11,7 @@ export function tableFingerprinter(raw: Database.Database): () => string {
       maxVersion: columns.includes('version') ? raw.prepare(`select max(version) from "${table}"`).pluck() : null,
     };
   });
-  const schema = raw.prepare("select type, name, tbl_name, sql from sqlite_master order by type, name").raw();
+  const schema = raw.prepare('select type, name, tbl_name, sql from sqlite_master order by type, name').raw();
   return () =>
     [
       `schema:${hash(schema.all())}`,

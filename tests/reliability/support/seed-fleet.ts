@@ -22,16 +22,21 @@ export async function seedSharedFleet(host: Pick<ServiceHost, 'call'>, buildCoun
     await id('vehicles.create', { name: 'Basher truck', kind: 'truck', massKg: 3.2, dragAreaM2: 0.05, rollingCoefficient: 0.04, tractionCoefficient: 0.9 }),
     await id('vehicles.create', { name: 'Touring car', kind: 'car', massKg: 1.4, dragAreaM2: 0.025, rollingCoefficient: 0.02, tractionCoefficient: 1.1, className: 'club' }),
   );
-  for (const [name, kv] of [['Shared 3300', 3300], ['Shared 2200', 2200], ['Shared 4600', 4600]] as const) {
+  for (const [name, kv] of [
+    ['Shared 3300', 3300],
+    ['Shared 2200', 2200],
+    ['Shared 4600', 4600],
+  ] as const) {
     fleet.motors.push(await id('motors.create', { name, kv, resistanceOhm: 0.012, noLoadCurrentA: 2.5, maxCurrentA: 120, maxPowerW: 1800, maxVoltageV: 17.4, maxRpm: 60000 }));
   }
-  for (const [name, amps] of [['Shared 120A', 120], ['Shared 60A', 60]] as const) {
+  for (const [name, amps] of [
+    ['Shared 120A', 120],
+    ['Shared 60A', 60],
+  ] as const) {
     fleet.controllers.push(await id('controllers.create', { name, maxVoltageV: 25.2, continuousCurrentA: amps, burstCurrentA: amps * 4, resistanceOhm: 0.001 }));
   }
   for (const cells of [2, 2, 3, 4, 4, 6]) {
-    fleet.batteries.push(
-      await id('batteries.create', { name: `Shared ${cells}S`, chemistry: 'lipo', cellsSeries: cells, capacityMah: 5000, cRatingContinuous: 50, cRatingBurst: 100, cellResistanceOhm: 0.003 }),
-    );
+    fleet.batteries.push(await id('batteries.create', { name: `Shared ${cells}S`, chemistry: 'lipo', cellsSeries: cells, capacityMah: 5000, cRatingContinuous: 50, cRatingBurst: 100, cellResistanceOhm: 0.003 }));
   }
   fleet.classRules.push(await id('classRules.create', { className: 'club', ruleId: 'class-voltage', figure: 'packVoltageFullV', limit: 9, unit: 'V' }));
   for (let i = 0; i < buildCount; i++) {

@@ -53,10 +53,7 @@ describe('figures of a truck on 4S', () => {
   });
 
   it('check every built-in rule except the propeller one', () => {
-    expect(s.findings.map((x) => x.rule)).toEqual([
-      'controller-voltage', 'motor-voltage', 'motor-speed', 'battery-continuous', 'battery-burst',
-      'controller-continuous', 'controller-burst', 'motor-current', 'motor-power',
-    ]);
+    expect(s.findings.map((x) => x.rule)).toEqual(['controller-voltage', 'motor-voltage', 'motor-speed', 'battery-continuous', 'battery-burst', 'controller-continuous', 'controller-burst', 'motor-current', 'motor-power']);
     expect(s.status).toBe('clear');
   });
 });
@@ -135,7 +132,10 @@ describe('rules on a build', () => {
     const base = truckContext();
     const ctx: BuildContext = {
       ...base,
-      batteries: new Map([[a.id, a], [b.id, b]]),
+      batteries: new Map([
+        [a.id, a],
+        [b.id, b],
+      ]),
       build: { ...base.build, supplies: [{ id: 'p', arrangement: 'parallel', batteryIds: ['a', 'b'] }] },
     };
     const s = supplyOf(ctx);
@@ -193,7 +193,7 @@ describe('rules on a build', () => {
 });
 
 describe('propeller builds', () => {
-  it('a quad draws four motors\' current from the pack and checks tip speed', () => {
+  it("a quad draws four motors' current from the pack and checks tip speed", () => {
     const s = supplyOf(quadContext());
     const f = s.figures;
     expect(f.peakCurrentA).toBeCloseTo(4 * (f.motorPeakCurrentA as number), 9);
@@ -267,13 +267,38 @@ describe('properties', () => {
           kind: fc.constantFrom('car', 'truck', 'boat', 'multirotor', 'plane', 'hovercraft'),
           arrangement: fc.constantFrom('series' as const, 'parallel' as const),
           packs: fc.array(fc.record({ cells: wildNum, parallel: wildNum, cap: wildNum, c: wild, burst: wild, r: wild, chem: fc.constantFrom('lipo', 'nimh', 'unobtainium') }), { minLength: 0, maxLength: 3 }),
-          kv: wildNum, rm: wild, i0: wild, maxA: wild, maxW: wild, maxV: wild, maxRpm: wild,
-          escV: wild, escCells: wild, escCont: wild, escBurst: wild, escR: wild,
-          mass: wild, cda: wild, crr: wild, mu: wild,
-          pinion: wild, spur: wild, ratio: wildNum, tire: wild, eff: wildNum,
-          diam: wildNum, ct: wild, cp: wild, motors: wildNum,
-          measuredPeak: wild, measuredAvg: wild, threshold: wild,
-          hasMotor: fc.boolean(), hasEsc: fc.boolean(), hasVehicle: fc.boolean(), hasProp: fc.boolean(),
+          kv: wildNum,
+          rm: wild,
+          i0: wild,
+          maxA: wild,
+          maxW: wild,
+          maxV: wild,
+          maxRpm: wild,
+          escV: wild,
+          escCells: wild,
+          escCont: wild,
+          escBurst: wild,
+          escR: wild,
+          mass: wild,
+          cda: wild,
+          crr: wild,
+          mu: wild,
+          pinion: wild,
+          spur: wild,
+          ratio: wildNum,
+          tire: wild,
+          eff: wildNum,
+          diam: wildNum,
+          ct: wild,
+          cp: wild,
+          motors: wildNum,
+          measuredPeak: wild,
+          measuredAvg: wild,
+          threshold: wild,
+          hasMotor: fc.boolean(),
+          hasEsc: fc.boolean(),
+          hasVehicle: fc.boolean(),
+          hasProp: fc.boolean(),
         }),
         (x) => {
           const packs = x.packs.map((p, i) =>

@@ -1,15 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import {
-  currentAt,
-  emptyOperatingPoint,
-  motorParams,
-  noLoadOmega,
-  operatingPointAt,
-  peakEfficiencyCurrent,
-  torqueAt,
-  torqueConstant,
-} from '../../../src-main/core/motor';
+import { currentAt, emptyOperatingPoint, motorParams, noLoadOmega, operatingPointAt, peakEfficiencyCurrent, torqueAt, torqueConstant } from '../../../src-main/core/motor';
 import { motorCurve } from '../../../src-main/core/motor-curve';
 
 describe('torque constant', () => {

@@ -22,7 +22,7 @@ const refusal = (text: string, locale: string): string => {
 function samples(): number[] {
   const out: number[] = [0, 1, 7, 10, 999, 1000, 2050, 12345.6, 1234567.891, 0.5, 0.014, 3.175, 110, 4.33, 99999.99, 100000, 2.85, 0.9];
   let seed = 20261202;
-  const next = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+  const next = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
   for (let i = 0; i < 400; i++) {
     const digits = Math.floor(next() * 9);
     const decimals = Math.floor(next() * 5);

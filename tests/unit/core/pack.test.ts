@@ -5,7 +5,7 @@ import { supplyModel } from '../../../src-main/core/supply';
 import { battery, controller, finding, motor, supplyOf, truckContext } from './fixtures';
 
 describe('pack voltages by chemistry', () => {
-  it('4S LiPo is 14.8 V nominal and 16.8 V full (cell makers\' spec sheets: 3.7 V / 4.20 V a cell)', () => {
+  it("4S LiPo is 14.8 V nominal and 16.8 V full (cell makers' spec sheets: 3.7 V / 4.20 V a cell)", () => {
     const p = packModel(battery({ chemistry: 'lipo', cellsSeries: 4 })).value;
     expect(p?.nominalV).toBeCloseTo(14.8, 10);
     expect(p?.fullV).toBeCloseTo(16.8, 10);
@@ -61,7 +61,13 @@ describe('supplies', () => {
 
   it('in parallel add capacities and combine resistances in parallel', () => {
     const c = battery({ id: 'c', cRatingContinuous: 30 });
-    const s = supplyModel({ id: 's', arrangement: 'parallel', batteryIds: ['a', 'c'] }, new Map([[a.id, a], [c.id, c]])).value;
+    const s = supplyModel(
+      { id: 's', arrangement: 'parallel', batteryIds: ['a', 'c'] },
+      new Map([
+        [a.id, a],
+        [c.id, c],
+      ]),
+    ).value;
     expect(s?.fullV).toBeCloseTo(16.8, 10);
     expect(s?.capacityMah).toBe(10000);
     expect(s?.resistanceOhm).toBeCloseTo(0.006, 12);
@@ -85,7 +91,13 @@ describe('supplies', () => {
 
   it('report resistance as unknown when any pack was never measured, but model it as zero', () => {
     const u = battery({ id: 'u', cellResistanceOhm: null });
-    const s = supplyModel({ id: 's', arrangement: 'series', batteryIds: ['a', 'u'] }, new Map([[a.id, a], [u.id, u]])).value;
+    const s = supplyModel(
+      { id: 's', arrangement: 'series', batteryIds: ['a', 'u'] },
+      new Map([
+        [a.id, a],
+        [u.id, u],
+      ]),
+    ).value;
     expect(s?.resistanceOhm).toBeNull();
     expect(s?.modelResistanceOhm).toBeCloseTo(0.012, 12);
   });

@@ -24,10 +24,7 @@ const base = (value: number | null, limit: number | null, threshold = 0.15): Lim
 describe('rule catalogue', () => {
   it('carries exactly the ids of the design brief', () => {
     expect([...BUILT_IN_RULE_IDS].sort()).toEqual(
-      [
-        'controller-voltage', 'motor-voltage', 'motor-speed', 'battery-continuous', 'battery-burst',
-        'controller-continuous', 'controller-burst', 'motor-current', 'motor-power', 'prop-tip-speed',
-      ].sort(),
+      ['controller-voltage', 'motor-voltage', 'motor-speed', 'battery-continuous', 'battery-burst', 'controller-continuous', 'controller-burst', 'motor-current', 'motor-power', 'prop-tip-speed'].sort(),
     );
   });
 });
@@ -67,18 +64,13 @@ describe('limit checks', () => {
 
   it('status is over exactly when the margin is negative (property)', () => {
     fc.assert(
-      fc.property(
-        fc.double({ min: 0, max: 1e12, noNaN: true }),
-        fc.double({ min: Number.MIN_VALUE, max: 1e12, noNaN: true }),
-        fc.double({ min: 0, max: 0.99, noNaN: true }),
-        (value, limit, threshold) => {
-          const f = checkLimit(base(value, limit, threshold));
-          expect(f.margin).not.toBeNull();
-          expect(f.status === 'over').toBe((f.margin ?? 0) < 0);
-          expect(f.status === 'over').toBe(value > limit);
-          expect(Number.isFinite(f.margin)).toBe(true);
-        },
-      ),
+      fc.property(fc.double({ min: 0, max: 1e12, noNaN: true }), fc.double({ min: Number.MIN_VALUE, max: 1e12, noNaN: true }), fc.double({ min: 0, max: 0.99, noNaN: true }), (value, limit, threshold) => {
+        const f = checkLimit(base(value, limit, threshold));
+        expect(f.margin).not.toBeNull();
+        expect(f.status === 'over').toBe((f.margin ?? 0) < 0);
+        expect(f.status === 'over').toBe(value > limit);
+        expect(Number.isFinite(f.margin)).toBe(true);
+      }),
     );
     expect(marginOf(1, 5e-324)).toBeLessThan(0);
   });

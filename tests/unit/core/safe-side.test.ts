@@ -105,7 +105,13 @@ describe('packs that must not be used as listed', () => {
     const base = truckContext();
     const v = evaluateBuild({
       ...base,
-      build: { ...base.build, supplies: [{ id: 'x', arrangement: 'series', batteryIds: ['pack-a'] }, { id: 'y', arrangement: 'series', batteryIds: ['pack-a'] }] },
+      build: {
+        ...base.build,
+        supplies: [
+          { id: 'x', arrangement: 'series', batteryIds: ['pack-a'] },
+          { id: 'y', arrangement: 'series', batteryIds: ['pack-a'] },
+        ],
+      },
     });
     expect(v.supplies.map((s) => s.findings.some((f) => f.rule === 'pack-repeated'))).toEqual([true, true]);
     expect(v.status).toBe('over');
@@ -354,7 +360,10 @@ describe('measured currents belong to one supply', () => {
     batteries: packs(battery(), second),
     build: {
       ...base.build,
-      supplies: [{ id: 's1', arrangement: 'series', batteryIds: ['pack-a'] }, { id: 's2', arrangement: 'series', batteryIds: ['pack-b'] }],
+      supplies: [
+        { id: 's1', arrangement: 'series', batteryIds: ['pack-a'] },
+        { id: 's2', arrangement: 'series', batteryIds: ['pack-b'] },
+      ],
       measuredPeakCurrentA: peak,
       measuredAverageCurrentA: null,
       measuredSupplyId,

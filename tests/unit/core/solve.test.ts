@@ -15,10 +15,17 @@ describe('bracketed root finding', () => {
 
   it('stops after its iteration bound and stays inside the bracket', () => {
     let calls = 0;
-    const r = findRoot((x) => {
-      calls++;
-      return x < 0.3 ? -1 : 1; // a step: no root to converge on, only a sign change
-    }, null, 0, 1, 0, 40);
+    const r = findRoot(
+      (x) => {
+        calls++;
+        return x < 0.3 ? -1 : 1; // a step: no root to converge on, only a sign change
+      },
+      null,
+      0,
+      1,
+      0,
+      40,
+    );
     expect(calls).toBeLessThanOrEqual(42);
     expect(r).toBeGreaterThanOrEqual(0);
     expect(r).toBeLessThanOrEqual(1);
