@@ -84,7 +84,7 @@ export async function openPostgresStore(url: string, options: PostgresOpenOption
   try {
     if (options.migrate !== false) {
       // No copy is taken before migrating here: the engine's own dump is the backup of a
-      // PostgreSQL store (see DEVELOPERS.md).
+      // PostgreSQL store (see docs/store-and-backup.md).
       const pending = await pendingMigrations(db, options.provider, schema);
       if (pending.length > 0) await migrateToLatest(db, options.provider, schema);
     }

@@ -52,13 +52,15 @@ const ARROWS: Readonly<Record<Layer, readonly Layer[]>> = {
 
 /**
  * The service files the page may import: the contract, the bridge type and the handler map's
- * types (erased, never bundled), and the edge schemas the forms validate with before a call.
+ * types (erased, never bundled), and the edge schemas the forms validate with before a call,
+ * with the one function that turns a schema's refusal into the service's field-named message.
  */
 const RENDERER_SERVICE_FILES: readonly { file: string; typeOnly: boolean }[] = [
   { file: 'src-main/service/contract', typeOnly: false },
   { file: 'src-main/service/bridge-api', typeOnly: true },
   { file: 'src-main/service/handlers', typeOnly: true },
   { file: 'src-main/service/schemas/', typeOnly: false },
+  { file: 'src-main/service/validate', typeOnly: false },
 ];
 
 /** Packages that do I/O or need Node or Electron: never in the core or the page. */

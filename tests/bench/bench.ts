@@ -1,4 +1,4 @@
-// `npm run bench`: shop-scale performance against the budgets of DESIGN.md §9. Generates fleets
+// `npm run bench`: shop-scale performance against the budgets of docs/performance.md. Generates fleets
 // of 1 000 and 10 000 builds into real SQLite files in a temp folder (through the real
 // `fleet.import` handler), then prints the median of several runs of each figure beside its
 // budget. A slow figure never fails the run: the benchmark reports, it does not gate. It exits
@@ -285,7 +285,7 @@ async function main(): Promise<void> {
     else rmSync(folder, { recursive: true, force: true });
   }
 
-  // Grouped for reading: the budgets first, in the order DESIGN.md §9 lists them, setup last.
+  // Grouped for reading: the budgets first, in the order docs/performance.md lists them, setup last.
   const order = (f: Figure) => {
     const at = ['Re-check after editing a motor used by 1', 'Core', 'Builds list query', 'Loopback shell', 'Setup'].findIndex((g) => f.group.startsWith(g));
     return f.group.includes('10,000 builds') && f.group.startsWith('Re-check') ? -1 : at;

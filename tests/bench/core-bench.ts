@@ -1,5 +1,5 @@
 // Micro-benchmark of the computation core: one build evaluation and one motor operating
-// point. Budgets (DESIGN §9): evaluation under 20 µs, operating point under 2 µs. Speed goals
+// point. Budgets (docs/performance.md): evaluation under 20 µs, operating point under 2 µs. Speed goals
 // live here, never in timed unit tests.
 
 import { pathToFileURL } from 'node:url';

@@ -1,10 +1,10 @@
-// The benchmark's table: every figure beside its budget from DESIGN.md §9 and whether it met
+// The benchmark's table: every figure beside its budget (docs/performance.md) and whether it met
 // it. A slow figure is reported, never thrown: the benchmark informs, it does not gate.
 
 export interface Budget {
   /** The figure must stay at or under this, in the figure's own unit. */
   max: number;
-  /** The budget as DESIGN.md §9 words it. */
+  /** The budget in words, as docs/performance.md lists it. */
   text: string;
 }
 
@@ -19,7 +19,7 @@ export interface Figure {
   budget?: Budget;
 }
 
-/** Budgets of DESIGN.md §9, quoted so the table says what each figure is held to. */
+/** The budgets of docs/performance.md, quoted so the table says what each figure is held to. */
 export const BUDGETS = {
   evaluation: { max: 20, text: '< 20 µs (one build evaluation)' },
   operatingPoint: { max: 2, text: '< 2 µs (one motor operating point)' },
@@ -83,7 +83,7 @@ export function renderTable(figures: readonly Figure[]): string {
   return lines.join('\n');
 }
 
-/** The same figures as a Markdown table, for pasting into DEVELOPERS.md. */
+/** The same figures as a Markdown table, for pasting into docs/performance.md. */
 export function renderMarkdown(figures: readonly Figure[]): string {
   const lines = ['| Figure | Median | Detail | Budget (DESIGN §9) | |', '|---|---:|---|---|---|'];
   for (const f of figures) {

@@ -129,7 +129,7 @@ describe('rigbook check', () => {
     const pair = byId.get('pair')!.supplies[0]!;
     const cont = pair.findings.find((x) => x.rule === 'battery-continuous')!;
     // Current division (Alexander & Sadiku, "Fundamentals of Electric Circuits", ch. 2): 106 × 30 ÷ 36 A.
-    // The check output rounds to 6 significant digits (DEVELOPERS.md, check output).
+    // The check output rounds to 6 significant digits (docs/command-line.md, check output).
     expect(cont.value as number).toBeCloseTo((106 * 30) / 36, 3);
     expect(cont.limit as number).toBeCloseTo(55, 9);
     expect(cont.status).toBe('over');

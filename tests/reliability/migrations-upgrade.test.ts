@@ -11,6 +11,7 @@ import { tableFingerprinter } from './support/fingerprint';
 import { seededRandom } from './support/random';
 import { seedSharedFleet } from './support/seed-fleet';
 import { ok } from './support/store-audit';
+import { fillEveryTable, type TableShape, type WrittenRows } from './support/schema-rows';
 
 // A store written by every earlier release must open in this one, upgraded, with every row
 // it held. The loop below takes each prefix of the static migration list, builds a store at
@@ -44,67 +45,25 @@ interface ForeignKey {
 
 const userTables = (raw: Database.Database): string[] => raw.prepare("select name from sqlite_master where type = 'table' and name not like 'sqlite_%' and name not like 'kysely_%' order by name").pluck().all() as string[];
 
-/** A plausible value for a column, by its name and declared type; the same rule for every schema version. */
-function valueFor(table: string, column: Column, row: number): string | number {
-  const name = column.name;
-  const type = column.type.toLowerCase();
-  const words: Record<string, string> = {
-    chemistry: 'lipo',
-    kind: 'car',
-    status: 'clear',
-    arrangement: 'series',
-    action: 'create',
-    entityKind: 'batteries',
-    ruleId: `class-rule-${row}`,
-    figure: 'packVoltageFullV',
-    unit: 'V',
-    className: 'club',
-    verdictChanges: '[]',
-    before: '{}',
-    after: '{}',
-    supplyStatuses: '',
-    actor: 'upgrade-test',
-  };
-  if (table === 'settings' && name === 'key') return ['units', 'tightThreshold', 'demoOffered'][row] ?? `key-${row}`;
-  if (table === 'settings' && name === 'value') return ['"metric"', '0.2', 'true'][row] ?? '0';
-  if (name in words) return words[name]!;
-  if (name.endsWith('At')) return `2026-11-0${row + 1}T08:00:00.000Z`;
-  if (type.includes('int')) return name === 'version' ? 1 + row : name === 'retired' ? 0 : name === 'position' ? row : row + 1;
-  if (type.includes('real')) return 1.5 + row;
-  return `${table}-${name}-${row}`;
+/** Every table's shape as SQLite reports it. */
+function shapeOf(raw: Database.Database): TableShape[] {
+  return userTables(raw).map((name) => ({
+    name,
+    columns: (raw.prepare(`pragma table_info("${name}")`).all() as Column[]).map((c) => ({ name: c.name, type: c.type, generated: false })),
+    keys: raw.prepare(`pragma foreign_key_list("${name}")`).all() as ForeignKey[],
+  }));
 }
 
-/** Fills every table with three rows, parents before children, foreign keys pointing at real parent rows. */
-function fillEveryTable(raw: Database.Database): Map<string, Array<Record<string, unknown>>> {
-  const tables = userTables(raw);
-  const columns = new Map(tables.map((t) => [t, raw.prepare(`pragma table_info("${t}")`).all() as Column[]]));
-  const keys = new Map(tables.map((t) => [t, raw.prepare(`pragma foreign_key_list("${t}")`).all() as ForeignKey[]]));
-  const order: string[] = [];
-  while (order.length < tables.length) {
-    const next = tables.find((t) => !order.includes(t) && keys.get(t)!.every((k) => k.table === t || order.includes(k.table)));
-    if (!next) throw new Error(`foreign keys form a cycle among ${tables.filter((t) => !order.includes(t)).join(', ')}`);
-    order.push(next);
-  }
-  const written = new Map<string, Array<Record<string, unknown>>>();
-  for (const table of order) {
-    const rows: Array<Record<string, unknown>> = [];
-    for (let i = 0; i < 3; i++) {
-      const row: Record<string, unknown> = {};
-      for (const column of columns.get(table)!) {
-        const key = keys.get(table)!.find((k) => k.from === column.name);
-        row[column.name] = key ? written.get(key.table)![i]![key.to] : valueFor(table, column, i);
-      }
-      const names = Object.keys(row);
-      raw.prepare(`insert into "${table}" (${names.map((n) => `"${n}"`).join(', ')}) values (${names.map(() => '?').join(', ')})`).run(...names.map((n) => row[n]));
-      rows.push(row);
-    }
-    written.set(table, rows);
-  }
-  return written;
+function fillEverySqliteTable(raw: Database.Database): Promise<WrittenRows> {
+  return fillEveryTable(shapeOf(raw), async (table, row) => {
+    const names = Object.keys(row);
+    raw.prepare(`insert into "${table}" (${names.map((n) => `"${n}"`).join(', ')}) values (${names.map(() => '?').join(', ')})`).run(...names.map((n) => row[n]));
+    return row;
+  });
 }
 
 /** Rows as they were written, looked up again column by column (columns a later migration dropped are not asked for). */
-function missingRows(raw: Database.Database, written: Map<string, Array<Record<string, unknown>>>): string[] {
+function missingRows(raw: Database.Database, written: WrittenRows): string[] {
   const problems: string[] = [];
   for (const [table, rows] of written) {
     const present = new Set((raw.prepare(`pragma table_info("${table}")`).all() as Column[]).map((c) => c.name));
@@ -134,7 +93,7 @@ describe('upgrading a store written at every earlier schema version', () => {
     const t = fresh();
     const file = t.file('old.sqlite');
     const old = await openStore(file, { provider: upTo(count) });
-    const written = fillEveryTable(old.raw);
+    const written = await fillEverySqliteTable(old.raw);
     expect([...written.keys()].length).toBeGreaterThan(0);
     await old.db.destroy();
 
