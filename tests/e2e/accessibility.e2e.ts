@@ -62,6 +62,21 @@ test.describe('on the invented fleet', () => {
     await expectNoAxeViolations(page, 'builds list, nothing matches');
   });
 
+  test('compare: builds marked in the list, four of mixed kinds side by side, one build alone', async ({ page, shell }) => {
+    await openApp(page, shell, '#/builds');
+    await expect(page.getByTestId('build-count')).toHaveText('11 builds');
+    await page.locator(`[data-build-id="${fleet.builds.sct}"]`).getByTestId('compare-pick').check();
+    await expect(page.getByTestId('compare-bar')).toContainText('1 marked');
+    await expectNoAxeViolations(page, 'builds list, one build marked for comparing');
+    const ids = [fleet.builds.buggyRace, fleet.builds.crawlerNoEsc, fleet.builds.boat, fleet.builds.quad].join(',');
+    await page.evaluate((h) => (window.location.hash = h), `#/compare?ids=${ids}`);
+    await expect(page.getByTestId('compare-checks').getByTestId('compare-column')).toHaveCount(4);
+    await expectNoAxeViolations(page, 'compare, four builds of mixed kinds');
+    await page.evaluate((h) => (window.location.hash = h), `#/compare?ids=${fleet.builds.sct}`);
+    await expect(page.getByTestId('compare')).toContainText('A comparison needs two to four builds');
+    await expectNoAxeViolations(page, 'compare, one build');
+  });
+
   test('the build sheet of each vehicle kind, an incomplete one, print, and a build that is not there', async ({ page, shell }) => {
     const sheets: [string, string, string][] = [
       ['car', fleet.builds.buggyRace!, 'Buggy club race'],

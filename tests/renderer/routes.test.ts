@@ -15,6 +15,7 @@ describe('hash routes', () => {
     { name: 'history', kind: null, id: null },
     { name: 'history', kind: 'batteries', id: 'pack-1' },
     { name: 'settings' },
+    { name: 'compare', ids: ['build-1', 'a,b', 'build-3'] },
   ];
 
   it('reads back every route it writes, so a reload opens the same screen', () => {
@@ -24,6 +25,10 @@ describe('hash routes', () => {
   it('writes the addresses the screens are known by', () => {
     expect(formatRoute({ name: 'build', id: 'build-12' })).toBe('#/builds/build-12');
     expect(formatRoute({ name: 'parts', slug: 'packs', id: null })).toBe('#/parts/packs');
+    expect(formatRoute({ name: 'compare', ids: ['b1', 'b2'] })).toBe('#/compare?ids=b1,b2');
+    // A build named twice is compared once.
+    expect(parseRoute('#/compare?ids=b1,b2,b1,')).toEqual({ name: 'compare', ids: ['b1', 'b2'] });
+    expect(tabOf({ name: 'compare', ids: [] })).toBe('builds');
   });
 
   it('opens the builds list for an empty or unknown address, and packs for an unknown part kind', () => {

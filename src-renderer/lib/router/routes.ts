@@ -13,6 +13,7 @@ export type Route =
   | { name: 'build'; id: string }
   | { name: 'build-edit'; id: string }
   | { name: 'build-swap'; id: string }
+  | { name: 'compare'; ids: string[] }
   | { name: 'parts'; slug: PartSlug; id: string | null }
   | { name: 'vehicles'; id: string | null }
   | { name: 'history'; kind: HistoryKind | null; id: string | null }
@@ -30,6 +31,24 @@ function decode(segment: string | undefined): string | null {
   } catch {
     return null;
   }
+}
+
+/** The builds a comparison names (`ids=a,b,c`), each once, in the order given. */
+function compareIds(search: string): string[] {
+  // Read by hand: each id is escaped on its own, so a comma inside one stays part of it.
+  const raw =
+    search
+      .split('&')
+      .find((p) => p.startsWith('ids='))
+      ?.slice(4) ?? '';
+  return [
+    ...new Set(
+      raw
+        .split(',')
+        .map((s) => decode(s.trim()))
+        .filter((s): s is string => s !== null),
+    ),
+  ];
 }
 
 /** Reads `#/builds/abc` into a route; anything unknown opens the builds list. */
@@ -59,6 +78,8 @@ export function parseRoute(hash: string): Route {
       return isHistoryKind(a) && decode(b) !== null ? { name: 'history', kind: a, id: decode(b) } : { name: 'history', kind: null, id: null };
     case 'settings':
       return { name: 'settings' };
+    case 'compare':
+      return { name: 'compare', ids: compareIds(search) };
     default:
       return { name: 'builds' };
   }
@@ -88,6 +109,8 @@ export function formatRoute(route: Route): string {
       return route.kind !== null && route.id !== null ? `#/history/${route.kind}/${enc(route.id)}` : '#/history';
     case 'settings':
       return '#/settings';
+    case 'compare':
+      return `#/compare?ids=${route.ids.map(enc).join(',')}`;
   }
 }
 
@@ -98,6 +121,7 @@ export function tabOf(route: Route): Tab {
     case 'build':
     case 'build-edit':
     case 'build-swap':
+    case 'compare':
       return 'builds';
     default:
       return route.name;

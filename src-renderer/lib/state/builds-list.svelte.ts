@@ -3,6 +3,7 @@ import type { ServiceEvent } from '$service/contract';
 import { decodeColumns } from '$core/column-table';
 import type { Client } from '../api/client';
 import { Loader } from './loader.svelte';
+import { MAX_COMPARED } from '../compare/compare-limit';
 import type { BuildSummary } from '../builds/build-summary';
 import { DEFAULT_LIST_QUERY, type ListQuery } from '../builds/list-query';
 import { countByStatus, haystackOf, isEmptyFilter, matchingPositions, narrows, ownersOf, sortSummaries, type BuildFilter, type SortDir, type SortKey } from '../builds/build-filter';
@@ -47,6 +48,10 @@ export class BuildsListState {
   /** Lists the archived builds instead of the active ones. */
   archived = $state(false);
   selectedId = $state<string | null>(null);
+  /** Builds marked for comparing, in the order marked (two to four make a comparison). */
+  compareIds = $state<string[]>([]);
+  /** Said when a fifth build is marked: the marks stay as they were. */
+  compareNote = $state<string | null>(null);
   /** Build ids whose rows changed by an event in the last moments, to draw the eye. */
   recentlyChanged = $state.raw<ReadonlySet<string>>(new Set());
 
@@ -203,6 +208,24 @@ export class BuildsListState {
     this.archived = archived;
     this.selectedId = null;
     void this.load();
+  }
+
+  /** Marks a build for comparing, or unmarks it; refuses a fifth and says why. */
+  toggleCompare(id: string): void {
+    if (this.compareIds.includes(id)) {
+      this.compareIds = this.compareIds.filter((x) => x !== id);
+      this.compareNote = null;
+    } else if (this.compareIds.length >= MAX_COMPARED) {
+      this.compareNote = `Up to ${MAX_COMPARED} builds can be compared: unmark one first.`;
+    } else {
+      this.compareIds = [...this.compareIds, id];
+      this.compareNote = null;
+    }
+  }
+
+  clearCompare(): void {
+    this.compareIds = [];
+    this.compareNote = null;
   }
 
   selectIndex(index: number): void {
