@@ -20,8 +20,12 @@ test('opened without the token, the page explains how to open Rigbook and shows 
   await expect(page.getByRole('navigation')).toHaveCount(0);
   await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'open-without-token.png'), fullPage: true });
 
-  // The printed address still opens the store as before.
+  // The printed address still opens the store as before, pasted as a fresh load (from the
+  // same page it would be a fragment change only). Wait for the app itself before moving on:
+  // the heading's absence alone can be read in the moment before the app has taken the token.
+  await page.goto('about:blank');
   await page.goto(shell.openUrl);
+  await expect(page.getByRole('navigation').first()).toBeVisible();
   await expect(page.getByRole('heading', { name: 'Open Rigbook from where it started' })).toHaveCount(0);
   await page.evaluate(() => (window.location.hash = '#/parts/packs'));
   await expect(page.getByText('Kept pack 3S').first()).toBeVisible();
