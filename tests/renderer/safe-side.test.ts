@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { runConfig } from '../../src-renderer/lib/charts/chart-configs';
+import { runBandsConfig } from '../../src-renderer/lib/charts/sheet-chart-configs';
 import { countByStatus, sortSummaries } from '../../src-renderer/lib/builds/build-filter';
 import type { BuildSummary } from '../../src-renderer/lib/builds/build-summary';
 import { figureGroupsFor } from '../../src-renderer/lib/figures/figure-groups';
@@ -37,7 +37,7 @@ describe('the build sheet figures', () => {
     expect(trace).not.toBeNull();
     const figures = evaluateBuild(ctx).supplies[0]!.figures;
     expect(trace!.rmsCurrentA).toBeCloseTo(figures.runRmsCurrentA as number, 9);
-    const config = runConfig(trace!, 'imperial');
+    const config = runBandsConfig(trace!, [], 'imperial');
     const [current, speed] = config.data.datasets;
     expect(current!.data).toHaveLength(trace!.timeS.length);
     // Speed shown in mph on an imperial sheet: km/h ÷ 1.609344 (NIST SP 811, mile = 1609.344 m).

@@ -1,6 +1,5 @@
 import { Chart, type ChartConfiguration } from 'chart.js';
 import type { Finding } from '$core/domain';
-import type { RunTrace } from '$core/run-trace';
 import { displayUnit, toDisplay, type UnitSystem } from '$core/units';
 import type { MotorChartData } from './motor-chart-data';
 import { ruleName } from '../verdict/rule-names';
@@ -192,47 +191,6 @@ export function currentLimitsConfig(findings: readonly Finding[]): ChartConfigur
       scales: {
         x: { min: 0, title: { display: true, text: 'Current (A); controller and motor rows are per motor' }, grid: { color: '#ebe9e3' } },
         y: { grid: { display: false } },
-      },
-    },
-  };
-}
-
-/** The full-throttle run of a car or truck: supply current and road speed against time. */
-export function runConfig(run: RunTrace, units: UnitSystem): ChartConfiguration<'line'> {
-  const speedUnit = displayUnit('speedKmh', units);
-  return {
-    type: 'line',
-    data: {
-      datasets: [
-        { label: 'Supply current (A)', data: xy(run.timeS, run.currentA), borderColor: SERIES.current.color, borderDash: SERIES.current.dash, borderWidth: 2, pointRadius: 0, yAxisID: 'y' },
-        {
-          label: `Speed (${speedUnit})`,
-          data: xy(
-            run.timeS,
-            run.speedKmh.map((v) => toDisplay(v, 'speedKmh', units)),
-          ),
-          borderColor: SERIES.power.color,
-          borderDash: SERIES.power.dash,
-          borderWidth: 2,
-          pointRadius: 0,
-          yAxisID: 'y1',
-        },
-      ],
-    },
-    options: {
-      responsive: true,
-      maintainAspectRatio: false,
-      parsing: false,
-      animation: false,
-      interaction: { mode: 'nearest', intersect: false },
-      plugins: {
-        legend: { position: 'bottom', labels: { boxWidth: 18, boxHeight: 2 } },
-        tooltip: { callbacks: { title: (items) => `${(items[0]?.parsed.x ?? 0).toFixed(2)} s` } },
-      },
-      scales: {
-        x: { type: 'linear', min: 0, max: run.runLengthS, title: { display: true, text: 'Time from standstill (s)' }, grid: { color: '#ebe9e3' } },
-        y: { type: 'linear', position: 'left', min: 0, title: { display: true, text: 'Supply current (A)' }, grid: { color: '#ebe9e3' } },
-        y1: { type: 'linear', position: 'right', min: 0, title: { display: true, text: `Speed (${speedUnit})` }, grid: { drawOnChartArea: false } },
       },
     },
   };
