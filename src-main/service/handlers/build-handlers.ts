@@ -21,6 +21,8 @@ import { flag, id, MAX_NAME, name, oneOf, record, text } from '../schemas/field-
 import { STATUSES, VEHICLE_KINDS } from '../../core/domain';
 import { conflict, reasonField, updateInput, writePartPatch } from './part-handlers';
 import type { ServiceContext } from '../service-context';
+import { draftPreviewSchema } from '../schemas/draft-schemas';
+import { previewDraft } from './draft-preview';
 
 type SupplyInput = { id?: string | undefined; arrangement: Supply['arrangement']; batteryIds: string[] };
 
@@ -252,8 +254,9 @@ const previewInput = v.union(
     record({
       part: record({ kind: oneOf(PART_TABLES), id: id(), expectedVersion: v.pipe(v.number('must be a number'), v.integer('must be a whole number')), changes: v.record(v.string(), v.unknown()), reason: reasonField() }),
     }),
+    record({ draft: draftPreviewSchema }),
   ],
-  'must name either a build change or a part change',
+  'must name a build change, a part change or a draft part',
 );
 
 /**
@@ -262,7 +265,12 @@ const previewInput = v.union(
  */
 export const previewChange = defineHandler(previewInput, async (ctx, input) => {
   let outcome: WriteOutcome<unknown>;
-  if ('build' in input) {
+  let skipped: string[] = [];
+  if ('draft' in input) {
+    const tried = await previewDraft(ctx, input.draft);
+    skipped = tried.result.skipped;
+    outcome = tried;
+  } else if ('build' in input) {
     outcome = await writeBuildPatch(ctx, input.build, 'update', { preview: true });
   } else if ('create' in input) {
     outcome = await writeNewBuild(ctx, input.create, { preview: true });
@@ -275,5 +283,6 @@ export const previewChange = defineHandler(previewInput, async (ctx, input) => {
   const ids = outcome.verdicts.map((x) => x.buildId);
   const settings = await readSettings(ctx.db);
   const before = (await loadBuildContexts(ctx.db, byIds(ids), settings.tightThreshold)).map((context) => evaluateBuild(context));
-  return { before, after: outcome.verdicts, verdictChanges: outcome.verdictChanges };
+  // `skipped`: builds of the vehicle a draft pack had no place in (none for other changes).
+  return { before, after: outcome.verdicts, verdictChanges: outcome.verdictChanges, skipped };
 });
