@@ -15,14 +15,19 @@ import { PART_FIELDS, type FieldDef } from '../parts/part-fields';
 import { Loader } from './loader.svelte';
 import { partApi } from '../parts/part-api';
 import type { PartTable } from '../parts/part-kinds';
+import { DraftPart } from './draft-part.svelte';
 
-export type SwapMode = 'part' | 'gearing' | 'record';
+export type SwapMode = 'part' | 'gearing' | 'record' | 'draft';
 
 export interface PreviewResult {
   before: BuildVerdict[];
   after: BuildVerdict[];
   verdictChanges: { buildId: string; supplyId: string | null; from: BuildVerdict['status'] | null; to: BuildVerdict['status'] }[];
+  /** Builds of the vehicle a draft pack had no place in. */
+  skipped?: string[];
 }
+
+type DraftRequest = Extract<ApiInput<'builds.preview'>, { draft: unknown }>;
 
 /** A slot of the build a replacement can go into: the motor, controller, propeller or one pack of a supply. */
 export type Slot = 'motorId' | 'controllerId' | 'propellerId' | `pack:${number}:${number}`;
@@ -57,12 +62,18 @@ export class SwapPreviewState {
   fieldErrors = $state<Problems>({});
   busy = $state(false);
   saved = $state(false);
+  /** A part typed in on the spot (the "draft" mode). */
+  readonly draft: DraftPart;
+  /** The draft part once added to the inventory at the person's asking. */
+  added = $state<{ table: PartTable; id: string; name: string } | null>(null);
 
   constructor(
     private readonly client: Client,
     readonly id: string,
     private readonly units: UnitSystem,
-  ) {}
+  ) {
+    this.draft = new DraftPart(() => this.units);
+  }
 
   async load(): Promise<void> {
     if (await this.source.load()) this.resetGearing();
@@ -149,10 +160,21 @@ export class SwapPreviewState {
     return { gearing };
   }
 
+  /** Where a draft pack goes: the pack chosen in the slot list, else the first pack. */
+  draftPackAt(): { supply: number; pack: number } {
+    if (!this.slot.startsWith('pack:')) return { supply: 0, pack: 0 };
+    const [, supply, pack] = this.slot.split(':').map(Number) as [number, number, number];
+    return { supply, pack };
+  }
+
   /** What the preview or save call takes. */
-  private request(): { build: ApiInput<'builds.update'> } | { part: { kind: PartTable; id: string; expectedVersion: number; changes: Record<string, unknown>; reason: string } } | null {
+  private request(): { build: ApiInput<'builds.update'> } | { part: { kind: PartTable; id: string; expectedVersion: number; changes: Record<string, unknown>; reason: string } } | DraftRequest | null {
     const b = this.sheet?.build;
     if (!b) return null;
+    if (this.mode === 'draft') {
+      const d = this.draft;
+      return { draft: { kind: d.kind, part: d.record(), buildId: b.id, scope: d.scope, ...(d.kind === 'batteries' ? { packAt: this.draftPackAt() } : {}) } };
+    }
     if (this.mode === 'record') {
       const t = this.targetRecord();
       const def = this.recordFields().find((d) => d.key === this.recordField);
@@ -166,6 +188,13 @@ export class SwapPreviewState {
   private fail(error: unknown): void {
     // A gearing field is named `gearing.pinionTeeth` by a build change and `pinionTeeth` inside the gearing.
     const defOf = (key: string) => [...GEARING_DEFS, ...this.recordFields()].find((d) => d.key === key || d.key === `gearing.${key.replace(/^gearing\./, '')}`);
+    if (this.mode === 'draft') {
+      // The service names a draft's field `draft.part.<key>`.
+      const placed = placeError(error, (key) => this.draft.defs.find((d) => d.key === key.replace(/^(draft\.part\.)/, '')), this.units);
+      this.error = placed.summary;
+      if (placed.key !== null && placed.beside !== null) this.draft.errors = { [placed.key.replace(/^(draft\.part\.)/, '')]: placed.beside };
+      return;
+    }
     const placed = placeError(error, defOf, this.units);
     this.error = placed.summary;
     this.fieldError = placed.key !== null && defOf(placed.key) ? placed.beside : null;
@@ -173,6 +202,11 @@ export class SwapPreviewState {
 
   /** Every typed value that cannot be used, before anything is sent; true when all are fine. */
   private check(): boolean {
+    if (this.mode === 'draft') {
+      const summary = this.draft.check();
+      if (summary !== null) this.error = { kind: 'invalid', message: summary };
+      return summary === null;
+    }
     let problems: Problems = {};
     let defs = GEARING_DEFS;
     if (this.mode === 'gearing') {
@@ -239,9 +273,12 @@ export class SwapPreviewState {
     try {
       if ('build' in req) {
         await this.client.call('builds.update', req.build);
-      } else {
+      } else if ('part' in req) {
         const p = req.part;
         await partApi.update(this.client, p.kind, p.id, p.expectedVersion, p.changes, p.reason);
+      } else {
+        // A draft part is never saved into a build from here: it is added to the inventory on its own.
+        return false;
       }
       this.saved = true;
       return true;
@@ -251,6 +288,37 @@ export class SwapPreviewState {
     } finally {
       this.busy = false;
     }
+  }
+
+  /**
+   * Adds the draft part to the inventory, only at the person's asking; it is fitted to no build
+   * (that is a change of its own, previewed and saved as any other swap).
+   */
+  async addDraftToInventory(): Promise<boolean> {
+    if (!this.check()) return false;
+    this.busy = true;
+    this.error = null;
+    try {
+      const stored = await partApi.create(this.client, this.draft.kind, this.draft.record());
+      this.added = { table: this.draft.kind, id: stored.id, name: stored.name };
+      return true;
+    } catch (error) {
+      this.fail(error);
+      return false;
+    } finally {
+      this.busy = false;
+    }
+  }
+
+  /** Turns to replacing a part, with the added part chosen in the draft's place. */
+  fitAdded(): void {
+    const added = this.added;
+    if (!added) return;
+    this.mode = 'part';
+    if (added.table !== 'batteries') this.slot = added.table === 'motors' ? 'motorId' : added.table === 'controllers' ? 'controllerId' : 'propellerId';
+    this.replacementId = added.id;
+    this.added = null;
+    this.clear();
   }
 
   /** Drops the preview; the store was never touched. */
