@@ -16,6 +16,9 @@ describe('hash routes', () => {
     { name: 'history', kind: 'batteries', id: 'pack-1' },
     { name: 'settings' },
     { name: 'compare', ids: ['build-1', 'a,b', 'build-3'] },
+    { name: 'compare', ids: ['build-1'], of: { supplies: true } },
+    // A change carries its preview request as JSON, with characters an address must escape.
+    { name: 'compare', ids: ['build-1'], of: { change: JSON.stringify({ draft: { kind: 'motors', part: { name: 'A & B? #2 100%' }, buildId: 'build-1' } }), title: 'the draft motor "A & B"' } },
   ];
 
   it('reads back every route it writes, so a reload opens the same screen', () => {
@@ -29,6 +32,9 @@ describe('hash routes', () => {
     // A build named twice is compared once.
     expect(parseRoute('#/compare?ids=b1,b2,b1,')).toEqual({ name: 'compare', ids: ['b1', 'b2'] });
     expect(tabOf({ name: 'compare', ids: [] })).toBe('builds');
+    expect(formatRoute({ name: 'compare', ids: ['b1'], of: { supplies: true } })).toBe('#/compare?ids=b1&supplies=1');
+    // One build only, where its supplies are compared.
+    expect(parseRoute('#/compare?ids=b1,b2&supplies=1')).toEqual({ name: 'compare', ids: ['b1'], of: { supplies: true } });
   });
 
   it('opens the builds list for an empty or unknown address, and packs for an unknown part kind', () => {

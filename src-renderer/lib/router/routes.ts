@@ -13,11 +13,17 @@ export type Route =
   | { name: 'build'; id: string }
   | { name: 'build-edit'; id: string }
   | { name: 'build-swap'; id: string }
-  | { name: 'compare'; ids: string[] }
+  | { name: 'compare'; ids: string[]; of?: CompareOf }
   | { name: 'parts'; slug: PartSlug; id: string | null }
   | { name: 'vehicles'; id: string | null }
   | { name: 'history'; kind: HistoryKind | null; id: string | null }
   | { name: 'settings' };
+
+/**
+ * What a comparison of one build sets side by side: its supplies, or the build as it is and with
+ * a change (`change` is the `builds.preview` request as JSON, so a reload previews it afresh).
+ */
+export type CompareOf = { supplies: true } | { change: string; title: string };
 
 export type Tab = 'builds' | 'parts' | 'vehicles' | 'history' | 'settings';
 
@@ -78,8 +84,14 @@ export function parseRoute(hash: string): Route {
       return isHistoryKind(a) && decode(b) !== null ? { name: 'history', kind: a, id: decode(b) } : { name: 'history', kind: null, id: null };
     case 'settings':
       return { name: 'settings' };
-    case 'compare':
-      return { name: 'compare', ids: compareIds(search) };
+    case 'compare': {
+      const ids = compareIds(search);
+      const params = new URLSearchParams(search);
+      const change = params.get('change');
+      if (params.get('supplies') === '1') return { name: 'compare', ids: ids.slice(0, 1), of: { supplies: true } };
+      if (change !== null) return { name: 'compare', ids: ids.slice(0, 1), of: { change, title: params.get('title') ?? '' } };
+      return { name: 'compare', ids };
+    }
     default:
       return { name: 'builds' };
   }
@@ -109,8 +121,11 @@ export function formatRoute(route: Route): string {
       return route.kind !== null && route.id !== null ? `#/history/${route.kind}/${enc(route.id)}` : '#/history';
     case 'settings':
       return '#/settings';
-    case 'compare':
-      return `#/compare?ids=${route.ids.map(enc).join(',')}`;
+    case 'compare': {
+      const base = `#/compare?ids=${route.ids.map(enc).join(',')}`;
+      if (!route.of) return base;
+      return 'supplies' in route.of ? `${base}&supplies=1` : `${base}&${new URLSearchParams({ change: route.of.change, title: route.of.title }).toString()}`;
+    }
   }
 }
 

@@ -56,6 +56,8 @@ export class SwapPreviewState {
   recordValue = $state('');
   reason = $state('');
   result = $state.raw<PreviewResult | null>(null);
+  /** The request behind the preview on screen, as JSON: what the compare view previews again. */
+  previewed = $state<string | null>(null);
   error = $state<ApiError | null>(null);
   fieldError = $state<string | null>(null);
   /** Problems of the typed values, by field key, each shown beside its input. */
@@ -255,6 +257,7 @@ export class SwapPreviewState {
     this.busy = true;
     try {
       this.result = await this.client.call('builds.preview', req);
+      this.previewed = JSON.stringify(req);
     } catch (error) {
       this.result = null;
       this.fail(error);
@@ -324,6 +327,7 @@ export class SwapPreviewState {
   /** Drops the preview; the store was never touched. */
   clear(): void {
     this.result = null;
+    this.previewed = null;
     this.error = null;
     this.fieldError = null;
     this.fieldErrors = {};
