@@ -147,6 +147,12 @@ test.describe('on the invented fleet', () => {
     await page.getByRole('button', { name: 'Preview' }).click();
     await expect(page.getByTestId('preview-other').first()).toBeVisible();
     await expectNoAxeViolations(page, "swap preview, a shared part's rating");
+
+    await page.getByRole('tab', { name: "Try a part you don't own" }).click();
+    await page.getByTestId('draft-part').getByLabel('Kind of draft part').selectOption({ label: 'pack' });
+    await page.getByRole('button', { name: 'Preview' }).click();
+    await expect(page.getByTestId('draft-part').locator('[data-field="name"] .error')).toBeVisible();
+    await expectNoAxeViolations(page, 'swap preview, a draft pack refused');
   });
 
   const PART_KINDS = [
