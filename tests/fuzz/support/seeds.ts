@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { pick, type Gen } from './payloads';
 import type { FuzzStore } from './fuzz-store';
+import { draftFieldKeys, isDraftKind } from '../../../src-main/core/catalogue/draft-fields';
 
 // One valid payload per handler, built against what the store holds right now (real ids, the
 // current version), so that a payload bent by one field still reaches the handler's own checks.
@@ -13,6 +14,14 @@ const PART_BASES: Record<string, Record<string, unknown>> = {
   vehicles: { name: 'Fuzz racer', kind: 'car', massKg: 1.5, dragAreaM2: 0.03, rollingCoefficient: 0.03, tractionCoefficient: 1, owner: 'Shop', className: 'club', notes: '' },
   classRules: { className: 'club', ruleId: 'class-peak', figure: 'peakCurrentA', limit: 90, unit: 'A', notes: '' },
 };
+
+/** A draft part: mostly only the fields a draft takes (so most are tried), sometimes a whole record (refused by field). */
+function draftPart(g: Gen, kind: string): Record<string, unknown> {
+  const whole = { ...PART_BASES[kind], ...someFields(g, kind) };
+  if (!isDraftKind(kind) || g(fc.integer, { min: 0, max: 3 }) === 0) return whole;
+  const keys: readonly string[] = draftFieldKeys(kind);
+  return Object.fromEntries(Object.entries(whole).filter(([key]) => keys.includes(key)));
+}
 
 /** Second valid values, so an update changes something (and verdicts move). */
 const PART_ALTERNATES: Record<string, Record<string, unknown>> = {
@@ -115,6 +124,19 @@ export function validPayload(name: string, g: Gen, store: FuzzStore, files: Seed
     if (verb === 'update') return { ...target(g, store, 'builds'), changes: someBuildChanges(g, store), reason: 'fuzz' };
     if (verb === 'archive') return { ...target(g, store, 'builds'), archived: g(fc.boolean), reason: 'fuzz' };
     if (verb === 'preview') {
+      if (g(fc.integer, { min: 0, max: 3 }) === 0) {
+        // A draft part: a whole part of its kind (which may carry fields a draft does not take), tried on a build or its vehicle.
+        const draftKind = pick(g, ['batteries', 'motors', 'controllers', 'propellers', 'vehicles']);
+        return {
+          draft: {
+            kind: draftKind,
+            part: draftPart(g, draftKind),
+            buildId: pick(g, store.ids('builds')),
+            scope: pick(g, ['build', 'vehicle']),
+            ...(g(fc.boolean) ? { packAt: { supply: g(fc.integer, { min: 0, max: 2 }), pack: g(fc.integer, { min: 0, max: 2 }) } } : {}),
+          },
+        };
+      }
       if (g(fc.boolean)) return { build: { ...target(g, store, 'builds'), changes: someBuildChanges(g, store), reason: '' } };
       const partKind = pick(g, ['batteries', 'motors', 'controllers', 'propellers', 'vehicles']);
       return { part: { kind: partKind, ...target(g, store, partKind), changes: someFields(g, partKind), reason: '' } };
