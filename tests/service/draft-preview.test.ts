@@ -84,6 +84,18 @@ forEachEngine((engine) => {
       expect((await f.call('builds.get', { id: seed.onFour.id })).verdict.supplies[0]?.figures.noLoadRpm).toBeCloseTo(35_520, 0);
     });
 
+    it('a draft pack tried on the vehicle names the builds with no pack at that place', async () => {
+      const seed = await seedTwoBuggies(f);
+      // The 2S buggy gets a second supply; the 4S one has only one.
+      const spare = await f.call('batteries.create', { ...draftPack, name: 'Spare 4S' });
+      await f.call('builds.update', { id: seed.onTwo.id, expectedVersion: seed.onTwo.version, changes: { supplies: [{ id: seed.onTwo.supplies[0]!.id, batteryIds: [seed.pack2s.id] }, { batteryIds: [spare.id] }] } });
+      const rows = await dumpStore(f.db);
+      const preview = await f.call('builds.preview', { draft: { kind: 'batteries', part: draftPack, buildId: seed.onTwo.id, scope: 'vehicle', packAt: { supply: 1, pack: 0 } } });
+      expect(preview.after.map((a) => a.buildId)).toEqual([seed.onTwo.id]);
+      expect(preview.skipped).toEqual([seed.onFour.id]);
+      expect(await dumpStore(f.db)).toEqual(rows);
+    });
+
     it('names the field of a draft that cannot be used, and takes only the fields the checks read', async () => {
       const seed = await seedTwoBuggies(f);
       const rows = await dumpStore(f.db);
