@@ -92,6 +92,9 @@ test('a draft pack tried on every build of the vehicle re-checks each of them, a
   await expect(volts.locator('.after')).toHaveText('8.40 V');
   await expect(page.getByTestId('preview-other')).toHaveCount(1);
   await expect(page.getByTestId('preview-other').first()).toContainText('Second truck, same vehicle');
+  // The supply names the pack the draft stands in for.
+  await expect(result.getByRole('region', { name: 'Supply 1 before and after' })).toContainText('Test 4S 5000 → draft "Draft 2S 5000"');
+  await page.screenshot({ path: `${SCREENSHOT_DIR}/swap-draft-pack-vehicle.png`, fullPage: true });
 
   expect(await shell.api<StoredRecord[]>('batteries.list', {})).toEqual(packsBefore);
   expect((await shell.api<SheetValue>('builds.get', { id: other.record.id })).build.version).toBe(other.record.version);
