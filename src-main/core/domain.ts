@@ -35,6 +35,10 @@ export type DriveLayout = (typeof DRIVE_LAYOUTS)[number];
 
 export const WATER_TYPES = ['fresh', 'sea'] as const;
 export type WaterType = (typeof WATER_TYPES)[number];
+
+/** What a car or truck runs on: it sets the typical rolling coefficient and grip. */
+export const SURFACES = ['asphalt', 'carpet', 'dirt', 'grass'] as const;
+export type Surface = (typeof SURFACES)[number];
 export type Arrangement = (typeof ARRANGEMENTS)[number];
 
 /** Fields every stored, editable record carries. */
