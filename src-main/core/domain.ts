@@ -10,7 +10,7 @@ import type { RecordOf } from './catalogue/field-spec';
 import type { MOTOR_FIELDS } from './catalogue/motor-fields';
 import type { PROPELLER_FIELDS } from './catalogue/propeller-fields';
 import type { VEHICLE_FIELDS } from './catalogue/vehicle-fields';
-import type { Figures } from './catalogue/figures';
+import type { FigureKey, Figures } from './catalogue/figures';
 
 export type { Figures };
 
@@ -118,6 +118,16 @@ export interface Finding {
   assumed?: string[];
   /** The pack a per-pack rule (battery-continuous, battery-burst, pack-retired) is about: the worst one. */
   batteryId?: string;
+  /** Typical or estimated inputs the figure rests on (field paths), while the user has not confirmed them. */
+  typical?: string[];
+}
+
+/** An input the user left empty and the engine took from a table or estimated. */
+export interface ValueUsed {
+  /** Field path: `vehicle.dragAreaM2`, `propeller.powerCoefficient`. */
+  field: string;
+  value: number;
+  basis: 'typical' | 'estimated';
 }
 
 /** One pack's part of a supply's current, as judged. */
@@ -144,6 +154,10 @@ export interface SupplyVerdict {
   packShares: PackShare[];
   /** What the model assumed where it had to (plain sentences, for the sheet). */
   assumptions: string[];
+  /** Inputs taken as typical or estimated values (absent where none was). */
+  valuesUsed?: ValueUsed[];
+  /** Figures that rest on those values, marked so on the sheet (absent where none does). */
+  markedFigures?: FigureKey[];
 }
 
 export interface BuildVerdict {
