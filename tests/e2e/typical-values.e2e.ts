@@ -31,6 +31,14 @@ test('a truck on typical values reads tight with its figures marked, and clear o
   await expect(supply.getByTestId('figure-mark').first()).toHaveText('typical value used');
   expect((await shell.api<{ verdict: { status: string } }>('builds.get', { id: build.record.id })).verdict.status).toBe('tight');
   await page.screenshot({ path: `${SCREENSHOT_DIR}/typical-values-unconfirmed.png`, fullPage: true });
+  // The printed sheet carries the wider figures and the values they rest on.
+  await page.emulateMedia({ media: 'print' });
+  await expect(supply.getByTestId('wider-figures')).toContainText('Run time to the depth of discharge');
+  await expect(supply.getByTestId('wider-figures')).toContainText('Heat loss per motor');
+  await expect(supply.getByTestId('wider-figures').getByTestId('figure-mark').first()).toBeVisible();
+  await expect(used).toBeVisible();
+  await page.screenshot({ path: `${SCREENSHOT_DIR}/typical-values-print.png`, fullPage: true });
+  await page.emulateMedia({ media: 'screen' });
 
   await page.evaluate((id) => (window.location.hash = `#/vehicles/${id}`), truck.id);
   const form = page.getByRole('form', { name: 'Edit vehicle' });
