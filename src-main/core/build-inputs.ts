@@ -83,6 +83,7 @@ export interface BuildInputs {
   motorPoles: Known;
   motorMaxLossW: number | null;
   controllerMaxErpm: number | null;
+  controllerMinVoltageV: number | null;
   vehicleMassKg: Known;
 }
 
@@ -188,6 +189,7 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
   const dodGiven = typeof dod === 'number' && isPlausible('build.depthOfDischarge', dod);
   const maxLoss = motor?.maxLossW;
   const maxErpm = controller?.maxErpm;
+  const minVoltage = controller?.minVoltageV;
 
   return {
     kind: vehicle ? ((VEHICLE_KINDS as readonly string[]).includes(vehicle.kind) ? known(vehicle.kind) : lacking<VehicleKind>('vehicle.kind')) : lacking<VehicleKind>('build.vehicleId'),
@@ -238,6 +240,7 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
     motorPoles: motor ? count(motor.poles, 'motor.poles') : noMotor,
     motorMaxLossW: typeof maxLoss === 'number' && maxLoss > 0 ? maxLoss : null,
     controllerMaxErpm: typeof maxErpm === 'number' && maxErpm > 0 ? maxErpm : null,
+    controllerMinVoltageV: typeof minVoltage === 'number' && minVoltage > 0 ? minVoltage : null,
     vehicleMassKg: massKg,
   };
 }

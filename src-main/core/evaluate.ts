@@ -279,8 +279,11 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
     motorContA,
     thrustN: op.thrustN,
   });
+  // The sag at cut-off needs a measured pack resistance: taken as zero it would read the voltage high.
+  const loadedCutoffV = peakA.value !== null && cutoffV.value !== null && packR.value !== null ? known(Math.max(0, cutoffV.value - peakA.value * packR.value)) : lacking(...missingOf(peakA, cutoffV, packR));
   const entries: Record<FigureKey, Known> = {
     ...wider,
+    loadedCutoffVoltageV: loadedCutoffV,
     packVoltageNominalV: nominalV,
     packVoltageFullV: fullV,
     packVoltageCutoffV: cutoffV,
@@ -355,6 +358,7 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
     motorContinuousCurrentA: null,
     motorPeakPowerW: null,
     packEnergyWh: null,
+    loadedCutoffVoltageV: null,
     runTimeMin: null,
     hoverCurrentA: null,
     erpm: null,
@@ -406,6 +410,12 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
   if (kind === 'multirotor') {
     findings.push(
       checkMinimum({ rule: 'thrust-to-weight', unit: ':1', value: wider.thrustToWeight, overBelow: THRUST_TO_WEIGHT_OVER, tightBelow: THRUST_TO_WEIGHT_TIGHT, text: ratingRule('thrust-to-weight').text, source: 'model', messages }),
+    );
+  }
+  if (inp.controllerMinVoltageV !== null) {
+    const least = inp.controllerMinVoltageV;
+    findings.push(
+      checkMinimum({ rule: 'controller-min-voltage', unit: 'V', value: finite(loadedCutoffV), overBelow: least, tightBelow: least * (1 + threshold), text: ratingRule('controller-min-voltage').text, source: peakSource, messages }),
     );
   }
   pushPackLimit(env, 'wire-current', contA, s, contSource, (b) => (typeof b.wireGaugeAwg === 'number' ? chassisAmpacity(b.wireGaugeAwg) : null), site.names);

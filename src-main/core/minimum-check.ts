@@ -34,9 +34,13 @@ export function checkMinimum(c: MinimumCheck): Finding {
   finding.margin = (v - c.overBelow) / c.overBelow;
   finding.status = v < c.overBelow ? 'over' : v < c.tightBelow ? 'tight' : 'clear';
   if (!c.messages) return finding;
-  const shown = `${messageNumber(v)}${c.unit}`;
-  if (finding.status === 'over') finding.message = `${c.text.what} is ${shown}, under ${c.text.limitName}. ${c.text.risk} ${c.text.fix}`;
-  else if (finding.status === 'tight') finding.message = `${c.text.what} is ${shown}. ${c.text.tightHint}`;
-  else finding.message = `${c.text.what} is ${shown}, at least ${messageNumber(c.tightBelow)}${c.unit} (common practice).`;
+  // A ratio reads "1.8:1"; a quantity "11.2 V".
+  const withUnit = (x: number): string => `${messageNumber(x)}${c.unit === ':1' ? ':1' : ` ${c.unit}`}`;
+  const shown = withUnit(v);
+  const least = withUnit(c.overBelow);
+  const spare = `${Math.round(finding.margin * 100)} % to spare`;
+  if (finding.status === 'over') finding.message = `${c.text.what} is ${shown}, under ${c.text.limitName} of ${least}. ${c.text.risk} ${c.text.fix} Follow the part maker's ratings.`;
+  else if (finding.status === 'tight') finding.message = `${c.text.what} is ${shown}, close to ${c.text.limitName} of ${least} (${spare}). ${c.text.tightHint}`;
+  else finding.message = `${c.text.what} is ${shown}, above ${c.text.limitName} of ${least} (${spare}).`;
   return finding;
 }

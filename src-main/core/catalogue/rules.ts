@@ -182,10 +182,18 @@ const RATING_TEXT = {
   },
   'thrust-to-weight': {
     what: 'Static thrust-to-weight ratio',
-    limitName: 'the least a multirotor needs to hold a hover and still climb and steer (1.3; under 2 is tight; common practice)',
+    limitName: 'the least a multirotor needs to hold a hover and still climb and steer (under 2 reads tight; common practice)',
     risk: 'With so little thrust to spare the craft may not climb, recover from a gust or stop a descent, and it can come down on people or property.',
     fix: 'Lighten the craft, or fit larger propellers, more cells or stronger motors within their ratings.',
     tightHint: 'Under 2:1 there is little thrust to spare for climbing, wind and control (common practice).',
+    perMotor: false,
+  },
+  'controller-min-voltage': {
+    what: 'Supply voltage at cut-off under the peak current',
+    limitName: "the controller's minimum input voltage",
+    risk: 'Near the end of a run the voltage sags below what the controller works on: it cuts out or resets without warning.',
+    fix: 'Use one more cell in series, packs with a lower resistance, or a controller that works at a lower voltage; land or stop earlier.',
+    tightHint: 'Little room: a colder or older pack sags further; stop the run before the pack reaches cut-off.',
     perMotor: false,
   },
   'wire-current': {
@@ -317,6 +325,15 @@ const CATALOGUE = {
     cautions: ['flight', 'propeller'],
     text: RATING_TEXT['thrust-to-weight'],
   },
+  'controller-min-voltage': {
+    // A least value: judged by the same check as thrust-to-weight.
+    kind: 'rating',
+    figure: 'loadedCutoffVoltageV',
+    limit: ['controller.minVoltageV'],
+    name: 'Controller minimum voltage',
+    cautions: ['brownout'],
+    text: RATING_TEXT['controller-min-voltage'],
+  },
   'wire-current': {
     kind: 'rating',
     figure: 'continuousCurrentA',
@@ -432,7 +449,7 @@ export function isRatedMaximum(rule: string): boolean {
 }
 
 /** Rules whose figure must stay at or above the limit (the finding's limit is the least value). */
-export const MINIMUM_RULE_IDS: readonly RuleId[] = ['thrust-to-weight'];
+export const MINIMUM_RULE_IDS: readonly RuleId[] = ['thrust-to-weight', 'controller-min-voltage'];
 
 export function isMinimumRule(rule: string): boolean {
   return (MINIMUM_RULE_IDS as readonly string[]).includes(rule);

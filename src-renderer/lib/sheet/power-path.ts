@@ -81,6 +81,7 @@ const POINT_WORD: Readonly<Record<string, string>> = {
   'wire-current': 'continuous',
   'connector-current': 'continuous',
   'thrust-to-weight': 'static',
+  'controller-min-voltage': 'peak',
 };
 
 const RESISTANCE_WORDS: Readonly<Record<string, string>> = {
@@ -116,7 +117,7 @@ export function assumedText(f: Finding): string | null {
   if (point) parts.push(point);
   if (f.unit === 'A' || f.unit === 'W') parts.push(f.source === 'measured' ? 'measured' : 'model');
   else if (f.unit === 'rpm' || f.unit === 'm/s') parts.push('model');
-  parts.push('full charge');
+  parts.push(f.rule === 'controller-min-voltage' ? 'cut-off' : 'full charge');
   for (const a of f.assumed ?? []) parts.push(RESISTANCE_WORDS[a] ?? `${a} taken as zero`);
   if (f.typical && f.typical.length > 0) parts.push(f.typical.some((t) => t.startsWith('propeller.')) ? 'estimated propeller values' : 'typical values used');
   return parts.join(', ');

@@ -22,7 +22,7 @@ describe('figure catalogue', () => {
     // Ratings entered only where a maker gives them (heat loss, eRPM limit, lead gauge, connector).
     const rated = {
       motor: motor({ maxLossW: 150 }),
-      controller: controller({ maxErpm: 300_000 }),
+      controller: controller({ maxErpm: 300_000, minVoltageV: 6 }),
       batteries: new Map([['pack-a', battery({ wireGaugeAwg: 10, connectorRatingA: 90 })]]),
     };
     const quad = quadContext();
@@ -87,7 +87,7 @@ describe('rule catalogue', () => {
     // Ratings entered only where a maker gives them (heat loss, eRPM limit, lead gauge, connector).
     const rated = {
       motor: motor({ maxLossW: 150 }),
-      controller: controller({ maxErpm: 300_000 }),
+      controller: controller({ maxErpm: 300_000, minVoltageV: 6 }),
       batteries: new Map([['pack-a', battery({ wireGaugeAwg: 10, connectorRatingA: 90 })]]),
     };
     const quad = quadContext();

@@ -40,6 +40,7 @@ describe('rule catalogue', () => {
         'thrust-to-weight',
         'wire-current',
         'connector-current',
+        'controller-min-voltage',
       ].sort(),
     );
   });

@@ -227,6 +227,32 @@ describe('motor heat and controller eRPM', () => {
   });
 });
 
+describe('controller minimum voltage', () => {
+  // Truck fixture: 4S LiPo, cut-off 3.0 V per cell (cell makers' specification sheets) = 12.0 V;
+  // 4 × 3 mΩ = 12 mΩ; at a measured 100 A peak the cut-off voltage sags to 12.0 − 1.2 = 10.8 V.
+  const at100 = (over: Partial<BuildContext>) => {
+    const base = truckContext(over);
+    return supplyOf({ ...base, build: { ...base.build, measuredPeakCurrentA: 100 } });
+  };
+
+  it('the cut-off voltage under the peak current is held above the controller minimum', () => {
+    expect(at100({}).figures.loadedCutoffVoltageV).toBeCloseTo(10.8, 9);
+    expect(at100({}).findings.some((f) => f.rule === 'controller-min-voltage')).toBe(false);
+    const over = finding(at100({ controller: controller({ minVoltageV: 11 }) }), 'controller-min-voltage');
+    expect(over).toMatchObject({ status: 'over', limit: 11 });
+    expect(over.message).toMatch(/under the controller's minimum input voltage of 11 V/);
+    // (10.8 − 10) ÷ 10 = 8 % to spare, under the 15 % threshold: tight; (10.8 − 9) ÷ 9 = 20 %: clear.
+    expect(finding(at100({ controller: controller({ minVoltageV: 10 }) }), 'controller-min-voltage').status).toBe('tight');
+    expect(finding(at100({ controller: controller({ minVoltageV: 9 }) }), 'controller-min-voltage').status).toBe('clear');
+  });
+
+  it('without a measured pack resistance the sag is not known: incomplete, naming it', () => {
+    const f = finding(at100({ controller: controller({ minVoltageV: 9 }), batteries: new Map([['pack-a', battery({ cellResistanceOhm: null })]]) }), 'controller-min-voltage');
+    expect(f.status).toBe('incomplete');
+    expect(f.missing).toEqual(['battery.cellResistanceOhm']);
+  });
+});
+
 describe('lead wire and connector', () => {
   it('12 AWG carries 41 A in chassis wiring (AWG ampacity table, chassis wiring column)', () => {
     expect(chassisAmpacity(12)).toBe(41);
