@@ -281,8 +281,17 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
   });
   // The sag at cut-off needs a measured pack resistance: taken as zero it would read the voltage high.
   const loadedCutoffV = peakA.value !== null && cutoffV.value !== null && packR.value !== null ? known(Math.max(0, cutoffV.value - peakA.value * packR.value)) : lacking(...missingOf(peakA, cutoffV, packR));
+  // Written out key by key: a spread here turns the object into a slow dictionary on the hot path.
   const entries: Record<FigureKey, Known> = {
-    ...wider,
+    packEnergyWh: wider.packEnergyWh,
+    runTimeMin: wider.runTimeMin,
+    hoverCurrentA: wider.hoverCurrentA,
+    hoverMotorCurrentA: wider.hoverMotorCurrentA,
+    hoverThrottle: wider.hoverThrottle,
+    erpm: wider.erpm,
+    motorLossW: wider.motorLossW,
+    allUpMassKg: wider.allUpMassKg,
+    thrustToWeight: wider.thrustToWeight,
     loadedCutoffVoltageV: loadedCutoffV,
     packVoltageNominalV: nominalV,
     packVoltageFullV: fullV,
