@@ -20,7 +20,7 @@ import { PACK_REPEATED_RULE_ID, PACK_RETIRED_RULE_ID, packRuleMessage, ratingRul
 import { compareStatus } from './status';
 import { supplyModel, type SupplyModel } from './supply';
 import { tightThresholdFor } from './threshold';
-import { mpsToKmh } from './units';
+import { mpsToKmh, newtonToGramForce } from './units';
 import { checkMinimum } from './minimum-check';
 import { markTypical, typicalSentences, type TypicalMarks } from './typical-marks';
 import { widerEntries } from './wider-entries';
@@ -292,6 +292,7 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
     motorLossW: wider.motorLossW,
     allUpMassKg: wider.allUpMassKg,
     thrustToWeight: wider.thrustToWeight,
+    thrustGrams: op.thrustN.value === null ? op.thrustN : known(newtonToGramForce(op.thrustN.value)),
     loadedCutoffVoltageV: loadedCutoffV,
     packVoltageNominalV: nominalV,
     packVoltageFullV: fullV,
@@ -375,6 +376,7 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
     hoverMotorCurrentA: null,
     allUpMassKg: null,
     thrustToWeight: null,
+    thrustGrams: null,
     hoverThrottle: null,
     currentSource: anyCurrent ? (usePeak || measuredAvg ? 'measured' : 'model') : null,
     peakCurrentSource: peakA.value !== null ? peakSource : null,

@@ -171,6 +171,8 @@ describe('multirotor hover and thrust-to-weight', () => {
     // Quad fixture: 1.2 kg frame + 0.5 kg pack.
     expect(s.figures.allUpMassKg).toBeCloseTo(1.7, 12);
     expect(s.figures.thrustToWeight).toBeCloseTo(s.figures.thrustN! / (1.7 * STANDARD_GRAVITY), 12);
+    // Thrust in grams: newtons ÷ 9.80665 m/s² (standard gravity, 3rd CGPM) × 1000.
+    expect(s.figures.thrustGrams).toBeCloseTo((s.figures.thrustN! / 9.80665) * 1000, 9);
   });
 
   it('hover needs less than full throttle and less current than full throttle; a heavier craft more', () => {
