@@ -2,7 +2,7 @@ import { CAUTION_TEXT, CAUTION_TOPICS, type CautionTopic } from '../core/catalog
 import { FIGURE_KEYS, FIGURES, type FigureKey } from '../core/catalogue/figures';
 import { cautionsOfAll, isRuleId, ruleName } from '../core/catalogue/rules';
 import { isLithium } from '../core/chemistry';
-import type { BuildVerdict, Figures, Finding, PackShare, Status, SupplyVerdict } from '../core/domain';
+import type { BuildVerdict, Figures, Finding, PackShare, Status, SupplyVerdict, ValueUsed } from '../core/domain';
 import { STATUSES } from '../core/domain';
 import type { FleetRecords } from '../service/fleet/fleet-format';
 import { formatNumber, formatPercent, JSON_SIGNIFICANT_DIGITS, roundSignificant } from './format-number';
@@ -27,6 +27,10 @@ export interface CheckJson {
       findings: Pick<Finding, FindingField>[];
       packShares: PackShare[];
       assumptions: string[];
+      /** Inputs left empty and taken as typical or estimated values (empty where none was). */
+      valuesUsed: ValueUsed[];
+      /** Figures resting on them. */
+      markedFigures: FigureKey[];
     }[];
   }[];
 }
@@ -48,7 +52,7 @@ function supplyNamer(fleet: FleetRecords): (buildId: string, s: SupplyVerdict) =
 
 /**
  * The documented shape, `{ builds: [{ id, name, status, supplies: [{ id, name, batteryIds,
- * status, figures, findings, packShares, assumptions }] }] }`, with every figure, value, limit and margin rounded to
+ * status, figures, findings, packShares, assumptions, valuesUsed, markedFigures }] }] }`, with every figure, value, limit and margin rounded to
  * JSON_SIGNIFICANT_DIGITS significant digits.
  */
 export function checkJson(fleet: FleetRecords, verdicts: readonly BuildVerdict[]): CheckJson {
@@ -68,6 +72,8 @@ export function checkJson(fleet: FleetRecords, verdicts: readonly BuildVerdict[]
         findings: s.findings.map((f) => ({ rule: f.rule, status: f.status, value: round(f.value), limit: round(f.limit), unit: f.unit, margin: round(f.margin), message: f.message })),
         packShares: s.packShares.map((p) => ({ ...p, share: round(p.share) ?? 0, continuousA: round(p.continuousA), peakA: round(p.peakA), continuousLimitA: round(p.continuousLimitA), burstLimitA: round(p.burstLimitA) })),
         assumptions: [...s.assumptions],
+        valuesUsed: (s.valuesUsed ?? []).map((u) => ({ ...u, value: round(u.value) ?? 0 })),
+        markedFigures: [...(s.markedFigures ?? [])],
       })),
     })),
   };
@@ -133,6 +139,7 @@ export function checkText(fleet: FleetRecords, verdicts: readonly BuildVerdict[]
       for (const f of s.findings) if (f.status !== 'clear') lines.push(`    ${WORD[f.status]} ${ruleWords(f.rule)}: ${f.message}`);
       for (const c of cautionsOfAll(s.findings, lithium(s))) cautions.add(c);
       for (const a of s.assumptions) lines.push(`    assumed: ${a}`);
+      for (const u of s.valuesUsed ?? []) lines.push(`    ${u.basis}: ${u.field} ${formatNumber(u.value)}`);
     });
     lines.push('');
   }

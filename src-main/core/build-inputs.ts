@@ -2,12 +2,15 @@
 // part makes each of its fields lack the build's reference to it (e.g. `build.motorId`), so a
 // finding says to pick the part rather than to fill in one of its fields.
 
+import { fieldAir, type FieldAir } from './atmosphere';
 import { millivoltExact } from './chemistry';
 import { AIR_DENSITY, CONTROLLER_VOLTS_PER_RATED_CELL, DEFAULT_2WD_DRIVEN_SHARE, DEFAULT_RUN_LENGTH_S, FRESH_WATER_DENSITY, SEA_WATER_DENSITY } from './constants';
-import { VEHICLE_KINDS, type BuildContext, type VehicleKind } from './domain';
+import { SURFACES, VEHICLE_KINDS, type BuildContext, type Surface, type VehicleKind } from './domain';
 import { finalDriveRatio } from './drivetrain';
 import { count, known, lacking, nonNegative, positive, type Known } from './known';
 import { isPlausible, type PlausibleField } from './plausibility';
+import { estimateStaticCoefficients } from './propeller-estimate';
+import { typicalDragArea, typicalRollingCoefficient, typicalTractionCoefficient } from './typical-values';
 
 /** A positive value inside the field's plausible range, else lacking the field. */
 function plausible(x: number | null | undefined, field: PlausibleField): Known {
@@ -63,7 +66,29 @@ export interface BuildInputs {
   propMaxRpm: number | null;
   runLengthS: number;
   runLengthDefault: boolean;
+  // The wider checks' inputs.
+  /** Air at the field (ISA pressure for the altitude, the given or standard temperature). */
+  air: FieldAir;
+  fieldAltitudeM: number | null;
+  /** Vehicle coefficients left empty and taken from the typical values (field paths). */
+  typicalFields: string[];
+  /** Propeller coefficients left empty and estimated from the geometry (field paths). */
+  estimatedFields: string[];
+  /** The user confirmed the typical and estimated values: verdicts resting on them may read clear. */
+  typicalConfirmed: boolean;
+  surface: Surface | null;
+  /** Share of the capacity a run uses, 0 to 1, and whether it is the default. */
+  depthOfDischarge: number;
+  depthOfDischargeDefault: boolean;
+  motorPoles: Known;
+  motorMaxLossW: number | null;
+  controllerMaxErpm: number | null;
+  controllerMinVoltageV: number | null;
+  vehicleMassKg: Known;
 }
+
+/** Share of a pack's capacity a run is taken to use where the build sets none (common practice for lithium packs). */
+export const DEFAULT_DEPTH_OF_DISCHARGE = 0.8;
 
 function measured(x: number | null | undefined, field: string): Known | null {
   return x === null || x === undefined ? null : positive(x, field);
@@ -106,7 +131,10 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
   }
   const boat = vehicle?.kind === 'boat';
   const water = vehicle?.water ?? null;
-  const fluidDensity = !boat ? AIR_DENSITY : water === 'fresh' ? FRESH_WATER_DENSITY : SEA_WATER_DENSITY;
+  const altitude = typeof build.fieldAltitudeM === 'number' && isPlausible('build.fieldAltitudeM', build.fieldAltitudeM) ? build.fieldAltitudeM : null;
+  const temperature = typeof build.airTemperatureC === 'number' && isPlausible('build.airTemperatureC', build.airTemperatureC) ? build.airTemperatureC : null;
+  const air = altitude === null && temperature === null ? { densityKgM3: AIR_DENSITY, pressurePa: 101_325, temperatureC: 15, standardTemperature: true } : fieldAir(altitude, temperature);
+  const fluidDensity = !boat ? air.densityKgM3 : water === 'fresh' ? FRESH_WATER_DENSITY : SEA_WATER_DENSITY;
 
   const run = build.runLengthS;
   const runGiven = typeof run === 'number' && isPlausible('build.runLengthS', run);
@@ -114,6 +142,54 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
 
   const controllerR = controller ? nonNegative(controller.resistanceOhm, 'controller.resistanceOhm') : known(0);
   const diameterMm = propeller ? positive(propeller.diameterMm, 'propeller.diameterMm') : noProp;
+  const pitchMm = propeller ? positive(propeller.pitchMm, 'propeller.pitchMm') : noProp;
+
+  // A car's or truck's empty coefficients take their typical values; an entered value wins.
+  const kindValue = vehicle?.kind ?? null;
+  const groundKind = kindValue === 'car' || kindValue === 'truck' ? kindValue : null;
+  const surface = vehicle?.surface != null && (SURFACES as readonly string[]).includes(vehicle.surface) ? vehicle.surface : null;
+  const massKg = vehicle ? positive(vehicle.massKg, 'vehicle.massKg') : noVehicle;
+  const typicalFields: string[] = [];
+  let dragAreaM2: Known = vehicle ? nonNegative(vehicle.dragAreaM2, 'vehicle.dragAreaM2') : noVehicle;
+  let rollingCoefficient: Known = vehicle ? nonNegative(vehicle.rollingCoefficient, 'vehicle.rollingCoefficient') : noVehicle;
+  let tractionCoefficient: Known = vehicle ? positive(vehicle.tractionCoefficient, 'vehicle.tractionCoefficient') : noVehicle;
+  if (vehicle && groundKind !== null) {
+    if (dragAreaM2.value === null && vehicle.dragAreaM2 == null) {
+      dragAreaM2 = massKg.value === null ? massKg : known(typicalDragArea(groundKind, massKg.value));
+      typicalFields.push('vehicle.dragAreaM2');
+    }
+    if (rollingCoefficient.value === null && vehicle.rollingCoefficient == null) {
+      rollingCoefficient = known(typicalRollingCoefficient(surface));
+      typicalFields.push('vehicle.rollingCoefficient');
+    }
+    if (tractionCoefficient.value === null && vehicle.tractionCoefficient == null) {
+      tractionCoefficient = known(typicalTractionCoefficient(surface));
+      typicalFields.push('vehicle.tractionCoefficient');
+    }
+  }
+
+  // An air propeller without coefficients gets them estimated from its geometry; water
+  // propellers are not estimated (their blade area differs too much from an air propeller's).
+  const estimatedFields: string[] = [];
+  let thrustCoefficient: Known = propeller ? positive(propeller.thrustCoefficient, 'propeller.thrustCoefficient') : noProp;
+  let powerCoefficient: Known = propeller ? positive(propeller.powerCoefficient, 'propeller.powerCoefficient') : noProp;
+  const airProp = kindValue === 'multirotor' || kindValue === 'plane';
+  if (propeller && airProp && (propeller.thrustCoefficient == null || propeller.powerCoefficient == null) && diameterMm.value !== null && pitchMm.value !== null) {
+    const est = estimateStaticCoefficients(diameterMm.value / 1000, pitchMm.value / 1000, propeller.blades);
+    if (propeller.thrustCoefficient == null) {
+      thrustCoefficient = known(est.thrustCoefficient);
+      estimatedFields.push('propeller.thrustCoefficient');
+    }
+    if (propeller.powerCoefficient == null) {
+      powerCoefficient = known(est.powerCoefficient);
+      estimatedFields.push('propeller.powerCoefficient');
+    }
+  }
+  const dod = build.depthOfDischarge;
+  const dodGiven = typeof dod === 'number' && isPlausible('build.depthOfDischarge', dod);
+  const maxLoss = motor?.maxLossW;
+  const maxErpm = controller?.maxErpm;
+  const minVoltage = controller?.minVoltageV;
 
   return {
     kind: vehicle ? ((VEHICLE_KINDS as readonly string[]).includes(vehicle.kind) ? known(vehicle.kind) : lacking<VehicleKind>('vehicle.kind')) : lacking<VehicleKind>('build.vehicleId'),
@@ -133,14 +209,14 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
     finalDrive,
     tireDiameterMm: positive(gearing?.tireDiameterMm, 'gearing.tireDiameterMm'),
     drivetrainEfficiency,
-    massKg: vehicle ? positive(vehicle.massKg, 'vehicle.massKg') : noVehicle,
-    dragAreaM2: vehicle ? nonNegative(vehicle.dragAreaM2, 'vehicle.dragAreaM2') : noVehicle,
-    rollingCoefficient: vehicle ? nonNegative(vehicle.rollingCoefficient, 'vehicle.rollingCoefficient') : noVehicle,
-    tractionCoefficient: vehicle ? positive(vehicle.tractionCoefficient, 'vehicle.tractionCoefficient') : noVehicle,
+    massKg,
+    dragAreaM2,
+    rollingCoefficient,
+    tractionCoefficient,
     hasPropeller: propeller !== null,
     propDiameterM: diameterMm.value === null ? diameterMm : known(diameterMm.value / 1000),
-    powerCoefficient: propeller ? positive(propeller.powerCoefficient, 'propeller.powerCoefficient') : noProp,
-    thrustCoefficient: propeller ? positive(propeller.thrustCoefficient, 'propeller.thrustCoefficient') : noProp,
+    powerCoefficient,
+    thrustCoefficient,
     measuredPeakA: measured(build.measuredPeakCurrentA, 'build.measuredPeakCurrentA'),
     measuredAverageA: measured(build.measuredAverageCurrentA, 'build.measuredAverageCurrentA'),
     drivenShare,
@@ -149,9 +225,22 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
     waterAssumed: boat && water !== 'fresh' && water !== 'sea',
     propGearRatio,
     propGeared,
-    pitchMm: propeller ? positive(propeller.pitchMm, 'propeller.pitchMm') : noProp,
+    pitchMm,
     propMaxRpm: typeof propMaxRpm === 'number' && isPlausible('propeller.maxRpm', propMaxRpm) ? propMaxRpm : null,
     runLengthS: runGiven ? run : DEFAULT_RUN_LENGTH_S,
     runLengthDefault: !runGiven,
+    air,
+    fieldAltitudeM: altitude,
+    typicalFields,
+    estimatedFields,
+    typicalConfirmed: vehicle?.typicalValuesConfirmed === true,
+    surface,
+    depthOfDischarge: dodGiven ? dod : DEFAULT_DEPTH_OF_DISCHARGE,
+    depthOfDischargeDefault: !dodGiven,
+    motorPoles: motor ? count(motor.poles, 'motor.poles') : noMotor,
+    motorMaxLossW: typeof maxLoss === 'number' && maxLoss > 0 ? maxLoss : null,
+    controllerMaxErpm: typeof maxErpm === 'number' && maxErpm > 0 ? maxErpm : null,
+    controllerMinVoltageV: typeof minVoltage === 'number' && minVoltage > 0 ? minVoltage : null,
+    vehicleMassKg: massKg,
   };
 }

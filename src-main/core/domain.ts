@@ -10,7 +10,7 @@ import type { RecordOf } from './catalogue/field-spec';
 import type { MOTOR_FIELDS } from './catalogue/motor-fields';
 import type { PROPELLER_FIELDS } from './catalogue/propeller-fields';
 import type { VEHICLE_FIELDS } from './catalogue/vehicle-fields';
-import type { Figures } from './catalogue/figures';
+import type { FigureKey, Figures } from './catalogue/figures';
 
 export type { Figures };
 
@@ -35,6 +35,10 @@ export type DriveLayout = (typeof DRIVE_LAYOUTS)[number];
 
 export const WATER_TYPES = ['fresh', 'sea'] as const;
 export type WaterType = (typeof WATER_TYPES)[number];
+
+/** What a car or truck runs on: it sets the typical rolling coefficient and grip. */
+export const SURFACES = ['asphalt', 'carpet', 'dirt', 'grass'] as const;
+export type Surface = (typeof SURFACES)[number];
 export type Arrangement = (typeof ARRANGEMENTS)[number];
 
 /** Fields every stored, editable record carries. */
@@ -114,6 +118,16 @@ export interface Finding {
   assumed?: string[];
   /** The pack a per-pack rule (battery-continuous, battery-burst, pack-retired) is about: the worst one. */
   batteryId?: string;
+  /** Typical or estimated inputs the figure rests on (field paths), while the user has not confirmed them. */
+  typical?: string[];
+}
+
+/** An input the user left empty and the engine took from a table or estimated. */
+export interface ValueUsed {
+  /** Field path: `vehicle.dragAreaM2`, `propeller.powerCoefficient`. */
+  field: string;
+  value: number;
+  basis: 'typical' | 'estimated';
 }
 
 /** One pack's part of a supply's current, as judged. */
@@ -140,6 +154,10 @@ export interface SupplyVerdict {
   packShares: PackShare[];
   /** What the model assumed where it had to (plain sentences, for the sheet). */
   assumptions: string[];
+  /** Inputs taken as typical or estimated values (absent where none was). */
+  valuesUsed?: ValueUsed[];
+  /** Figures that rest on those values, marked so on the sheet (absent where none does). */
+  markedFigures?: FigureKey[];
 }
 
 export interface BuildVerdict {

@@ -7,4 +7,7 @@
 // 3: safe-side model: parallel shares by conductance, unloaded tip speed, run current, geared
 //    propellers, retired and repeated packs, incomplete above tight, plausibility bounds.
 // 4: pack, supply and cell-count voltages exact to the millivolt (3 × 4.2 V no longer passes 12.6 V).
-export const ENGINE_VERSION = 4;
+// 5: air density from field altitude and temperature; typical car and truck coefficients and
+//    estimated propeller coefficients (verdicts on them no better than tight until confirmed);
+//    run time, pack energy, hover, thrust-to-weight, motor heat, eRPM, lead wire and connector checks.
+export const ENGINE_VERSION = 5;

@@ -6,7 +6,7 @@ import { buildInputs, type BuildInputs } from './build-inputs';
 import { classFindings, classRulesFor } from './class-rules';
 import { FRESH_WATER_DENSITY, PROP_TIP_MACH_LIMIT, SEA_WATER_DENSITY, SPEED_OF_SOUND_SEA_LEVEL } from './constants';
 import { FIGURE_KEYS, FIGURES, type FigureKey } from './catalogue/figures';
-import type { BuildContext, BuildVerdict, Figures, Finding, PackShare, Status, Supply, SupplyVerdict } from './domain';
+import type { Battery, BuildContext, BuildVerdict, Figures, Finding, PackShare, Status, Supply, SupplyVerdict } from './domain';
 import { rolloutMm, speedKmhAt } from './drivetrain';
 import { known, lacking, missingOf, type Known } from './known';
 import { messageNumber } from './message-number';
@@ -20,7 +20,11 @@ import { PACK_REPEATED_RULE_ID, PACK_RETIRED_RULE_ID, packRuleMessage, ratingRul
 import { compareStatus } from './status';
 import { supplyModel, type SupplyModel } from './supply';
 import { tightThresholdFor } from './threshold';
-import { mpsToKmh } from './units';
+import { mpsToKmh, newtonToGramForce } from './units';
+import { checkMinimum } from './minimum-check';
+import { markTypical, typicalSentences, type TypicalMarks } from './typical-marks';
+import { widerEntries } from './wider-entries';
+import { chassisAmpacity } from './wire-ampacity';
 
 /** Stands in for a build without supplies, so its verdict still says what is missing. */
 const NO_SUPPLY: Supply = { id: '', arrangement: 'series', batteryIds: [] };
@@ -260,7 +264,36 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
   const tipLimit = makerLimit !== null && makerLimit < machLimit ? makerLimit : machLimit;
 
   const anyCurrent = peakA.value !== null || contA.value !== null;
+  const wider = widerEntries({
+    inp,
+    supply: model,
+    batteries: site.names,
+    batteryIds: supply.batteryIds,
+    nominalV,
+    fullV,
+    capacityMah,
+    noLoadRpmFull,
+    contA,
+    measuredAvgA: measuredAvg,
+    runAverageA: times(op.runAverageMotorA, inp.motorCount, product),
+    motorContA,
+    thrustN: op.thrustN,
+  });
+  // The sag at cut-off needs a measured pack resistance: taken as zero it would read the voltage high.
+  const loadedCutoffV = peakA.value !== null && cutoffV.value !== null && packR.value !== null ? known(Math.max(0, cutoffV.value - peakA.value * packR.value)) : lacking(...missingOf(peakA, cutoffV, packR));
+  // Written out key by key: a spread here turns the object into a slow dictionary on the hot path.
   const entries: Record<FigureKey, Known> = {
+    packEnergyWh: wider.packEnergyWh,
+    runTimeMin: wider.runTimeMin,
+    hoverCurrentA: wider.hoverCurrentA,
+    hoverMotorCurrentA: wider.hoverMotorCurrentA,
+    hoverThrottle: wider.hoverThrottle,
+    erpm: wider.erpm,
+    motorLossW: wider.motorLossW,
+    allUpMassKg: wider.allUpMassKg,
+    thrustToWeight: wider.thrustToWeight,
+    thrustGrams: op.thrustN.value === null ? op.thrustN : known(newtonToGramForce(op.thrustN.value)),
+    loadedCutoffVoltageV: loadedCutoffV,
     packVoltageNominalV: nominalV,
     packVoltageFullV: fullV,
     packVoltageCutoffV: cutoffV,
@@ -334,6 +367,17 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
     motorPeakCurrentA: null,
     motorContinuousCurrentA: null,
     motorPeakPowerW: null,
+    packEnergyWh: null,
+    loadedCutoffVoltageV: null,
+    runTimeMin: null,
+    hoverCurrentA: null,
+    erpm: null,
+    motorLossW: null,
+    hoverMotorCurrentA: null,
+    allUpMassKg: null,
+    thrustToWeight: null,
+    thrustGrams: null,
+    hoverThrottle: null,
     currentSource: anyCurrent ? (usePeak || measuredAvg ? 'measured' : 'model') : null,
     peakCurrentSource: peakA.value !== null ? peakSource : null,
     continuousCurrentSource: contA.value !== null ? contSource : null,
@@ -371,6 +415,23 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
     const byMaker = makerLimit !== null && makerLimit < machLimit;
     pushRule(env, 'prop-tip-speed', op.tipSpeedMps, known(tipLimit), undefined, byMaker ? { limitName: `the propeller maker's limit of ${messageNumber(inp.propMaxRpm ?? 0)} rpm` } : undefined);
   }
+  // The wider checks: each judged where its rating is entered (thrust-to-weight on every multirotor).
+  if (inp.motorMaxLossW !== null) pushRule(env, 'motor-heat', wider.motorLossW, known(inp.motorMaxLossW), contSource);
+  if (inp.controllerMaxErpm !== null) pushRule(env, 'controller-erpm', wider.erpm, known(inp.controllerMaxErpm));
+  if (kind === 'multirotor') {
+    findings.push(
+      checkMinimum({ rule: 'thrust-to-weight', unit: ':1', value: wider.thrustToWeight, overBelow: THRUST_TO_WEIGHT_OVER, tightBelow: THRUST_TO_WEIGHT_TIGHT, text: ratingRule('thrust-to-weight').text, source: 'model', messages }),
+    );
+  }
+  if (inp.controllerMinVoltageV !== null) {
+    const least = inp.controllerMinVoltageV;
+    findings.push(
+      checkMinimum({ rule: 'controller-min-voltage', unit: 'V', value: finite(loadedCutoffV), overBelow: least, tightBelow: least * (1 + threshold), text: ratingRule('controller-min-voltage').text, source: peakSource, messages }),
+    );
+  }
+  pushPackLimit(env, 'wire-current', contA, s, contSource, (b) => (typeof b.wireGaugeAwg === 'number' ? chassisAmpacity(b.wireGaugeAwg) : null), site.names);
+  pushPackLimit(env, 'connector-current', contA, s, contSource, (b) => (typeof b.connectorRatingA === 'number' && b.connectorRatingA > 0 ? b.connectorRatingA : null), site.names);
+  const marks: TypicalMarks = markTypical(inp, findings, figures, messages);
   for (const f of classFindings(classRules, figures, figureMissing, threshold)) findings.push(f);
 
   const packShares: PackShare[] = [];
@@ -433,6 +494,7 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
         );
       }
     }
+    for (const text of typicalSentences(inp, kind, marks)) say(text);
     if (suspect && measuredPeak?.value != null && modelContA.value !== null) {
       say(
         `The measured peak of ${messageNumber(measuredPeak.value)} A is below the model's continuous current of ${messageNumber(modelContA.value)} A: it looks suspect (a logger set to average, or logged on another pack), so the model's peak is judged instead.`,
@@ -447,7 +509,7 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
     }
   }
 
-  return {
+  const verdict: SupplyVerdict = {
     supplyId: supply.id,
     batteryIds: [...supply.batteryIds],
     status: worstFindingStatus(findings),
@@ -456,6 +518,35 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
     packShares,
     assumptions,
   };
+  if (marks.valuesUsed.length > 0) verdict.valuesUsed = marks.valuesUsed;
+  if (marks.markedFigures.length > 0) verdict.markedFigures = marks.markedFigures;
+  return verdict;
+}
+
+/** Multirotor thrust-to-weight under which the check reads over, and under which tight (common practice). */
+const THRUST_TO_WEIGHT_OVER = 1.3;
+const THRUST_TO_WEIGHT_TIGHT = 2;
+
+/**
+ * A per-pack rating entered on some packs only (lead gauge, connector): each pack that has one
+ * is judged on its share of the current; the finding names the pack with the least headroom.
+ * Not judged at all where no pack of the supply has the rating.
+ */
+function pushPackLimit(env: RuleEnv, id: 'wire-current' | 'connector-current', totalA: Known, s: SupplyModel | null, source: 'model' | 'measured', limitOf: (b: Battery) => number | null, names: BuildContext['batteries']): void {
+  if (s === null) return;
+  let w: { limit: number; share: number; id: string; margin: number } | null = null;
+  for (let k = 0; k < s.packs.length; k++) {
+    const p = s.packs[k]!;
+    const b = names.get(p.id);
+    const limit = b ? limitOf(b) : null;
+    if (limit === null) continue;
+    const share = s.shares[k]?.share ?? 1;
+    const margin = totalA.value === null ? Infinity : (limit - totalA.value * share) / limit;
+    if (w === null || margin < w.margin) w = { limit, share, id: p.id, margin };
+  }
+  if (w === null) return;
+  const value = totalA.value === null ? totalA : known(totalA.value * w.share);
+  pushRule(env, id, value, known(w.limit), source, { batteryId: w.id });
 }
 
 /** A pack that must not be in the build as it is (retired, or named twice): over, naming it. */

@@ -101,6 +101,9 @@ function buildColumns(b: Build): Record<string, unknown> {
     measuredAverageCurrentA: b.measuredAverageCurrentA,
     measuredSupplyId: b.measuredSupplyId ?? null,
     runLengthS: b.runLengthS ?? null,
+    fieldAltitudeM: b.fieldAltitudeM ?? null,
+    airTemperatureC: b.airTemperatureC ?? null,
+    depthOfDischarge: b.depthOfDischarge ?? null,
     tightThreshold: b.tightThreshold,
   };
 }

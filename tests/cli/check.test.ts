@@ -14,7 +14,18 @@ interface CheckOutput {
     id: string;
     name: string;
     status: string;
-    supplies: { id: string; name: string; batteryIds: string[]; status: string; figures: Record<string, number | string | null>; findings: Record<string, unknown>[]; packShares: Record<string, unknown>[]; assumptions: string[] }[];
+    supplies: {
+      id: string;
+      name: string;
+      batteryIds: string[];
+      status: string;
+      figures: Record<string, number | string | null>;
+      findings: Record<string, unknown>[];
+      packShares: Record<string, unknown>[];
+      assumptions: string[];
+      valuesUsed: { field: string; value: number; basis: string }[];
+      markedFigures: string[];
+    }[];
   }[];
 }
 
@@ -32,7 +43,7 @@ describe('rigbook check', () => {
     for (const b of out.builds) {
       expect(Object.keys(b)).toEqual(['id', 'name', 'status', 'supplies']);
       for (const s of b.supplies) {
-        expect(Object.keys(s)).toEqual(['id', 'name', 'batteryIds', 'status', 'figures', 'findings', 'packShares', 'assumptions']);
+        expect(Object.keys(s)).toEqual(['id', 'name', 'batteryIds', 'status', 'figures', 'findings', 'packShares', 'assumptions', 'valuesUsed', 'markedFigures']);
         expect(Object.keys(s.figures)).toEqual(expect.arrayContaining(['packVoltageNominalV', 'packVoltageFullV', 'torqueConstantNmPerA', 'noLoadRpm', 'finalDriveRatio', 'theoreticalSpeedKmh', 'peakCurrentA', 'continuousCurrentA']));
         for (const finding of s.findings) expect(Object.keys(finding)).toEqual(['rule', 'status', 'value', 'limit', 'unit', 'margin', 'message']);
       }
@@ -150,6 +161,43 @@ describe('rigbook check', () => {
     const steady = byId.get('truck-on-3s')!.supplies[0]!.figures;
     expect(steady.continuousCurrentA as number).toBeGreaterThanOrEqual(steady.steadyCurrentA as number);
     expect(steady.runLengthS).toBe(4);
+  });
+
+  it('--json carries the wider figures, the typical and estimated values used and the figures resting on them', async () => {
+    const t = temp();
+    const fleet = JSON.parse(readFileSync(EXAMPLE, 'utf8')) as Record<string, Record<string, unknown>[]>;
+    // Owners' builds as entered from scratch: a truck by kind and mass only, a quad's propeller by size only.
+    fleet.vehicles!.push({ id: 'plain-truck', name: 'Plain truck', kind: 'truck', massKg: 3 }, { id: 'quad', name: 'Quad', kind: 'multirotor', massKg: 0.7 });
+    fleet.propellers = [{ id: 'prop-5', name: '5 inch', diameterMm: 127, pitchMm: 109, blades: 3 }];
+    const truck = fleet.builds![0]!;
+    fleet.builds!.push(
+      { ...truck, id: 'plain', name: 'Plain truck build', vehicleId: 'plain-truck' },
+      { ...truck, id: 'quad-build', name: 'Quad', vehicleId: 'quad', propellerId: 'prop-5', motorCount: 4, gearing: { internalRatio: 1 }, fieldAltitudeM: 1000, airTemperatureC: 30 },
+    );
+    writeFileSync(t.file('plain.json'), JSON.stringify(fleet));
+    const run = await rigbook(['check', t.file('plain.json'), '--json']);
+    expect(run.err).toBe('');
+    const out = JSON.parse(run.out) as CheckOutput;
+    const byId = new Map(out.builds.map((b) => [b.id, b.supplies[0]!]));
+    const plain = byId.get('plain')!;
+    expect(plain.valuesUsed.map((u) => [u.field, u.basis])).toEqual([
+      ['vehicle.dragAreaM2', 'typical'],
+      ['vehicle.rollingCoefficient', 'typical'],
+      ['vehicle.tractionCoefficient', 'typical'],
+    ]);
+    expect(plain.markedFigures).toContain('continuousCurrentA');
+    for (const rule of ['battery-continuous', 'battery-burst', 'controller-continuous', 'controller-burst', 'motor-current', 'motor-power']) {
+      const f = plain.findings.find((x) => x.rule === rule);
+      if (f) expect(f.status, rule).not.toMatch(/incomplete|clear/);
+    }
+    expect(plain.figures.packEnergyWh as number).toBeGreaterThan(0);
+    expect(plain.figures.motorLossW as number).toBeGreaterThan(0);
+    const quad = byId.get('quad-build')!;
+    expect(quad.valuesUsed.map((u) => u.basis)).toEqual(['estimated', 'estimated']);
+    // ISO 2533 at 1000 m with 30 °C: 1.0328 kg/m³ (hand computation in tests/unit/core/wider-checks.test.ts).
+    expect(quad.figures.fluidDensityKgM3 as number).toBeCloseTo(1.0328, 4);
+    for (const key of ['thrustToWeight', 'allUpMassKg', 'hoverThrottle', 'runTimeMin']) expect(quad.figures[key], key).not.toBeNull();
+    expect(quad.findings.map((x) => x.rule)).toContain('thrust-to-weight');
   });
 
   it('refuses a file that lists one pack twice in a build, naming it', async () => {

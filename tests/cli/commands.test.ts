@@ -110,8 +110,8 @@ describe('rigbook demo, export and import', () => {
     await rigbook(['demo', '--db', db]);
     const csv = await rigbook(['export', '--csv', 'packs', '--db', db]);
     expect(csv.code).toBe(0);
-    expect(csv.out.split('\r\n')[0]).toBe('id,name,chemistry,cellsSeries,cellsParallel,capacityMah,cRatingContinuous,cRatingBurst,cellResistanceOhm,massKg,cycleCount,retired,notes,version,archivedAt');
-    writeFileSync(t.file('packs.csv'), csv.out.replace('2S 5000 shorty A,lipo,2,1,5000,50,100,0.0025,0.23,84', '2S 5000 shorty A,lipo,2,1,5000,50,100,0.0025,0.23,85'));
+    expect(csv.out.split('\r\n')[0]).toBe('id,name,chemistry,cellsSeries,cellsParallel,capacityMah,cRatingContinuous,cRatingBurst,cellResistanceOhm,massKg,wireGaugeAwg,connectorRatingA,cycleCount,retired,notes,version,archivedAt');
+    writeFileSync(t.file('packs.csv'), csv.out.replace('2S 5000 shorty A,lipo,2,1,5000,50,100,0.0025,0.23,,,84', '2S 5000 shorty A,lipo,2,1,5000,50,100,0.0025,0.23,,,85'));
     const run = await rigbook(['import', 'packs.csv', '--csv', 'packs', '--db', db], { cwd: t.dir });
     expect(run.code).toBe(0);
     expect(run.out).toMatch(/updated 1 pack; 23 unchanged/);

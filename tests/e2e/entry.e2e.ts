@@ -217,17 +217,18 @@ test('retired and archived packs are never offered in a build form; one a build 
 
 test('a check that lacks an input names the field by its label and links to it; jargon fields carry hints', async ({ page, shell }) => {
   const { build, car } = await seedOneBuild(shell);
-  await shell.api('vehicles.update', { id: car.id, expectedVersion: car.version, changes: { dragAreaM2: null }, reason: 'unknown' });
+  // A left-out drag area takes a typical value now; the mass has none, so the checks need it.
+  await shell.api('vehicles.update', { id: car.id, expectedVersion: car.version, changes: { massKg: null }, reason: 'unknown' });
   await openApp(page, shell, `#/builds/${build.id}`);
   const sheet = page.locator('main');
-  const link = sheet.getByTestId('missing-input').filter({ hasText: 'Drag area Cd·A (m²)' }).first();
+  const link = sheet.getByTestId('missing-input').filter({ hasText: 'Mass (kg)' }).first();
   await expect(link).toBeVisible();
-  await expect(sheet).not.toContainText('vehicle.dragAreaM2');
+  await expect(sheet).not.toContainText('vehicle.massKg');
   await expect(sheet).not.toContainText(/\((vehicle|motor|battery|gearing|build)\.\w+\)/u);
   await shot(page, 'entry-missing-input', true);
   await link.click();
   const form = page.getByRole('form', { name: 'Edit vehicle' });
-  await expect(form.getByLabel('Drag area Cd·A (m²)')).toBeFocused();
+  await expect(form.getByLabel('Mass (kg)')).toBeFocused();
   await expect(form.locator('[data-field="rollingCoefficient"] .hint')).toContainText('0.02–0.04');
   await expect(form.locator('[data-field="tractionCoefficient"] .hint')).toContainText('from memory');
   await expect(form.locator('[data-field="dragAreaM2"] .hint')).toContainText('m²');

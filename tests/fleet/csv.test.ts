@@ -66,8 +66,26 @@ describe('CSV export and import per part kind', () => {
     expect(out.kind).toBe('batteries');
     const read = parseCsv(out.text);
     if (!read.ok) throw new Error(read.reason);
-    expect(read.rows[0]).toEqual(['id', 'name', 'chemistry', 'cellsSeries', 'cellsParallel', 'capacityMah', 'cRatingContinuous', 'cRatingBurst', 'cellResistanceOhm', 'massKg', 'cycleCount', 'retired', 'notes', 'version', 'archivedAt']);
-    expect(read.rows[1]).toEqual(['p-neg', `'=HYPERLINK("x")`, 'lipo', '2', '1', '5000', '', '', '', '', '0', 'false', "'-20 °C storage test", '1', '']);
+    expect(read.rows[0]).toEqual([
+      'id',
+      'name',
+      'chemistry',
+      'cellsSeries',
+      'cellsParallel',
+      'capacityMah',
+      'cRatingContinuous',
+      'cRatingBurst',
+      'cellResistanceOhm',
+      'massKg',
+      'wireGaugeAwg',
+      'connectorRatingA',
+      'cycleCount',
+      'retired',
+      'notes',
+      'version',
+      'archivedAt',
+    ]);
+    expect(read.rows[1]).toEqual(['p-neg', `'=HYPERLINK("x")`, 'lipo', '2', '1', '5000', '', '', '', '', '', '', '0', 'false', "'-20 °C storage test", '1', '']);
   });
 
   it('a negative number is data: numeric cells are never escaped', async () => {
@@ -109,7 +127,7 @@ describe('CSV export and import per part kind', () => {
       'an extra column',
       (t: string) => t.replace('archivedAt\r\n', 'archivedAt,colour\r\n').replace(/,1,\r\n/g, ',1,,red\r\n'),
       [
-        'row 1, column "colour": column 16 is not a pack field Rigbook knows (the columns are: id, name, chemistry, cellsSeries, cellsParallel, capacityMah, cRatingContinuous, cRatingBurst, cellResistanceOhm, massKg, cycleCount, retired, notes, version, archivedAt)',
+        'row 1, column "colour": column 18 is not a pack field Rigbook knows (the columns are: id, name, chemistry, cellsSeries, cellsParallel, capacityMah, cRatingContinuous, cRatingBurst, cellResistanceOhm, massKg, wireGaugeAwg, connectorRatingA, cycleCount, retired, notes, version, archivedAt)',
       ],
     ],
     [
@@ -117,7 +135,7 @@ describe('CSV export and import per part kind', () => {
       (t: string) => t.replace(',lipo,4,', ',lead,4,').replace(',lipo,2,1,5000,50', ',lipo,2,1,lots,50'),
       ['row 2, column "capacityMah": must be a number', 'row 3, column "chemistry": must be one of: lipo, lihv, lifepo4, liion, nimh'],
     ],
-    ['a short row', (t: string) => t.replace(/,false,,1,\r\n$/, ',false,,1\r\n'), ['row 3: has 14 cells; the header has 15']],
+    ['a short row', (t: string) => t.replace(/,false,,1,\r\n$/, ',false,,1\r\n'), ['row 3: has 16 cells; the header has 17']],
     ['an empty required cell', (t: string) => t.replace('Test 4S', ''), ['row 3, column "name": is required']],
   ])('%s gets a report naming row and column, and the store is unchanged', async (_label, edit, expected) => {
     await seedTwoBuggies(f);

@@ -125,7 +125,7 @@ describe('ids a spreadsheet cannot mangle', () => {
     await seedTwoBuggies(f);
     const { text } = await f.call('fleet.exportCsv', { kind: 'batteries' });
     const header = text.split('\r\n')[0]!;
-    const row = '001,Club pack,lipo,2,1,4000,,,,,0,false,,1,';
+    const row = '001,Club pack,lipo,2,1,4000,,,,,,,0,false,,1,';
     const report = await f.call('fleet.importCsv', { kind: 'batteries', text: `${header}\r\n${row}\r\n` });
     expect(report.ok).toBe(false);
     expect(report.problems.map(problemLine)).toEqual([expect.stringMatching(/^row 2, column "id": must start with a letter \("001" does not\)/)]);
@@ -212,7 +212,7 @@ describe('CSV rows and cells as spreadsheets write them', () => {
     const { text } = await f.call('fleet.exportCsv', { kind: 'batteries' });
     const read = parseCsv(text);
     if (!read.ok) throw new Error(read.reason);
-    const notes = read.rows.slice(1).map((r) => r[12]);
+    const notes = read.rows.slice(1).map((r) => r[read.rows[0]!.indexOf('notes')]);
     expect(notes).toEqual(leads.map((lead) => `'${lead}=1+2`));
     const report = await f.call('fleet.importCsv', { kind: 'batteries', text });
     expect(report.counts.batteries).toEqual({ added: 0, updated: 0, unchanged: leads.length });

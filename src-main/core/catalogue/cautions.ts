@@ -4,7 +4,7 @@
 
 import type { Finding } from '../domain';
 
-export const CAUTION_TOPICS = ['fire', 'heat', 'propeller', 'voltage', 'mechanical'] as const;
+export const CAUTION_TOPICS = ['fire', 'heat', 'propeller', 'voltage', 'mechanical', 'flight', 'brownout'] as const;
 export type CautionTopic = (typeof CAUTION_TOPICS)[number];
 
 export const CAUTION_TEXT: Readonly<Record<CautionTopic, string>> = {
@@ -13,6 +13,8 @@ export const CAUTION_TEXT: Readonly<Record<CautionTopic, string>> = {
   propeller: 'Injury risk: a propeller near the speed of sound is stressed beyond its design and can break and throw pieces. Keep clear of turning propellers.',
   voltage: 'Over-voltage can destroy a controller or motor at once; a failing controller can catch fire.',
   mechanical: 'Above its rated speed a motor’s rotor and bearings are over-stressed and can come apart.',
+  brownout: 'Brown-out: a controller that drops below its minimum input voltage cuts out or resets; a craft in the air loses power and comes down, a vehicle stops or lurches.',
+  flight: 'Flight risk: a craft with little thrust to spare can fail to climb or recover and come down without warning. Fly away from people and follow local rules for flying.',
 };
 
 /** The finding fields the cautions are chosen by. */

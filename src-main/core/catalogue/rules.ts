@@ -3,7 +3,7 @@
 // of the rigbook-fleet interchange format. The evaluation, the build sheet, the cautions and
 // the command line all read from here, so a rule missing an entry does not compile.
 
-import type { Battery, Build, Controller, Motor, Propeller, RecordMeta, Supply } from '../domain';
+import type { Battery, Build, Controller, Motor, Propeller, RecordMeta, Supply, Vehicle } from '../domain';
 import { cautionsOfOtherRule, CAUTION_TOPICS, type CautionFinding, type CautionTopic } from './cautions';
 import type { FigureKey } from './figures';
 
@@ -36,6 +36,7 @@ interface PartRecords {
   propeller: Propeller;
   supply: Supply;
   build: Build;
+  vehicle: Vehicle;
 }
 
 /** A field of a part record, as findings name missing inputs (`motor.maxCurrentA`). */
@@ -162,6 +163,55 @@ const RATING_TEXT = {
     tightHint: 'Little headroom: do not fit a larger propeller, more cells or a higher-Kv motor without checking again.',
     perMotor: true,
   },
+  // The wider checks.
+  'motor-heat': {
+    what: 'Heat loss in the motor at the continuous current (I²·R + I₀·V)',
+    limitName: "the motor's rated heat loss",
+    risk: 'The windings get hotter than the motor is built for: the magnets can weaken and the insulation can burn.',
+    fix: 'Gear down, fit a smaller propeller, improve the cooling or use a bigger motor.',
+    tightHint: 'Little headroom: check the motor temperature after a run.',
+    perMotor: true,
+  },
+  'controller-erpm': {
+    what: 'Electrical rpm at no load, full charge (motor rpm × pole pairs)',
+    limitName: "the controller's electrical rpm limit",
+    risk: 'Past its eRPM limit the controller loses step with the motor: the motor stutters or stops and the current can spike.',
+    fix: 'Use a lower-Kv motor, fewer cells, or a controller with a higher eRPM limit.',
+    tightHint: 'There is no room for more cells or a higher Kv.',
+    perMotor: false,
+  },
+  'thrust-to-weight': {
+    what: 'Static thrust-to-weight ratio',
+    limitName: 'the least a multirotor needs to hold a hover and still climb and steer (under 2 reads tight; common practice)',
+    risk: 'With so little thrust to spare the craft may not climb, recover from a gust or stop a descent, and it can come down on people or property.',
+    fix: 'Lighten the craft, or fit larger propellers, more cells or stronger motors within their ratings.',
+    tightHint: 'Under 2:1 there is little thrust to spare for climbing, wind and control (common practice).',
+    perMotor: false,
+  },
+  'controller-min-voltage': {
+    what: 'Supply voltage at cut-off under the peak current',
+    limitName: "the controller's minimum input voltage",
+    risk: 'Near the end of a run the voltage sags below what the controller works on: it cuts out or resets without warning.',
+    fix: 'Use one more cell in series, packs with a lower resistance, or a controller that works at a lower voltage; land or stop earlier.',
+    tightHint: 'Little room: a colder or older pack sags further; stop the run before the pack reaches cut-off.',
+    perMotor: false,
+  },
+  'wire-current': {
+    what: 'Continuous current through the pack leads',
+    limitName: 'what the lead gauge carries in chassis wiring (AWG ampacity table)',
+    risk: 'Undersized leads heat up: insulation softens and can melt and short, and solder joints can let go.',
+    fix: 'Use heavier leads (a lower AWG number), or gear down / fit a smaller propeller. The wire maker\u2019s own rating comes first.',
+    tightHint: 'Little headroom: check how warm the leads get after a run.',
+    perMotor: false,
+  },
+  'connector-current': {
+    what: 'Continuous current through the pack connector',
+    limitName: "the connector's rating",
+    risk: 'An overloaded connector heats up, its contacts wear and can weld or melt the housing.',
+    fix: 'Use a connector rated for more current, or gear down / fit a smaller propeller.',
+    tightHint: 'Little headroom: check how warm the connector gets after a run.',
+    perMotor: false,
+  },
 } as const satisfies Record<string, RuleText>;
 
 const PACK_CAUTIONS = ['fire', 'heat'] as const satisfies readonly CautionTopic[];
@@ -249,6 +299,56 @@ const CATALOGUE = {
     name: 'Propeller tip speed',
     cautions: ['propeller'],
     text: RATING_TEXT['prop-tip-speed'],
+  },
+  'motor-heat': {
+    kind: 'rating',
+    figure: 'motorLossW',
+    limit: ['motor.maxLossW'],
+    name: 'Motor heat',
+    cautions: ['heat'],
+    text: RATING_TEXT['motor-heat'],
+  },
+  'controller-erpm': {
+    kind: 'rating',
+    figure: 'erpm',
+    limit: ['controller.maxErpm', 'motor.poles'],
+    name: 'Controller eRPM',
+    cautions: ['heat'],
+    text: RATING_TEXT['controller-erpm'],
+  },
+  'thrust-to-weight': {
+    // A least value rather than a most: judged by its own check (core/minimum-check.ts).
+    kind: 'rating',
+    figure: 'thrustToWeight',
+    limit: ['vehicle.massKg', 'battery.massKg'],
+    name: 'Thrust to weight',
+    cautions: ['flight', 'propeller'],
+    text: RATING_TEXT['thrust-to-weight'],
+  },
+  'controller-min-voltage': {
+    // A least value: judged by the same check as thrust-to-weight.
+    kind: 'rating',
+    figure: 'loadedCutoffVoltageV',
+    limit: ['controller.minVoltageV'],
+    name: 'Controller minimum voltage',
+    cautions: ['brownout'],
+    text: RATING_TEXT['controller-min-voltage'],
+  },
+  'wire-current': {
+    kind: 'rating',
+    figure: 'continuousCurrentA',
+    limit: ['battery.wireGaugeAwg'],
+    name: 'Lead wire current',
+    cautions: ['heat'],
+    text: RATING_TEXT['wire-current'],
+  },
+  'connector-current': {
+    kind: 'rating',
+    figure: 'continuousCurrentA',
+    limit: ['battery.connectorRatingA'],
+    name: 'Connector current',
+    cautions: ['heat'],
+    text: RATING_TEXT['connector-current'],
   },
   'supply-match': {
     kind: 'match',
@@ -346,6 +446,13 @@ export function isRatedMaximum(rule: string): boolean {
   if (!isRuleId(rule)) return false;
   const spec: RuleSpec = CATALOGUE[rule];
   return spec.kind === 'rating' && spec.text.ratedMaximum === true;
+}
+
+/** Rules whose figure must stay at or above the limit (the finding's limit is the least value). */
+export const MINIMUM_RULE_IDS: readonly RuleId[] = ['thrust-to-weight', 'controller-min-voltage'];
+
+export function isMinimumRule(rule: string): boolean {
+  return (MINIMUM_RULE_IDS as readonly string[]).includes(rule);
 }
 
 /** The cautions an `over` finding calls for (a class rule's by its unit); none for any other status. */

@@ -1,4 +1,4 @@
-import { DRIVE_LAYOUTS, VEHICLE_KINDS, WATER_TYPES } from '../domain';
+import { DRIVE_LAYOUTS, SURFACES, VEHICLE_KINDS, WATER_TYPES } from '../domain';
 import { NAME, NOTES } from './common-fields';
 import type { FieldCatalogue } from './field-spec';
 
@@ -60,6 +60,22 @@ export const VEHICLE_FIELDS = {
     hint: 'boats: sea water (1025 kg/m³) loads a propeller more than fresh',
     nullable: true,
     fallback: null,
+    optional: true,
+  },
+  surface: {
+    type: 'choice',
+    label: 'Surface',
+    options: SURFACES,
+    hint: 'cars and trucks: sets the typical rolling coefficient and grip where none is entered',
+    nullable: true,
+    fallback: null,
+    optional: true,
+  },
+  typicalValuesConfirmed: {
+    type: 'flag',
+    label: 'Typical values confirmed (drag area, rolling coefficient, grip)',
+    hint: 'without this a verdict resting on typical values reads no better than tight',
+    fallback: false,
     optional: true,
   },
   owner: { type: 'text', label: 'Owner', maxLength: 120, fallback: '' },

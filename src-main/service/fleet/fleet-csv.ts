@@ -40,7 +40,20 @@ export type CsvRecords = { ok: true; records: unknown[]; skippedRows: number } |
  * Columns added after the first files were written: a file from before them may leave them
  * out, and the fields then take their defaults (not known).
  */
-const LATER_COLUMNS: ReadonlySet<string> = new Set(['maxRpm', 'driveLayout', 'drivenWeightShare', 'water']);
+const LATER_COLUMNS: ReadonlySet<string> = new Set([
+  'maxRpm',
+  'driveLayout',
+  'drivenWeightShare',
+  'water',
+  // The wider checks' inputs.
+  'surface',
+  'typicalValuesConfirmed',
+  'maxLossW',
+  'maxErpm',
+  'minVoltageV',
+  'wireGaugeAwg',
+  'connectorRatingA',
+]);
 
 /** A row of nothing but separators (and spaces): spreadsheets write them for formatted empty rows. */
 function isBlankRow(cells: readonly string[]): boolean {

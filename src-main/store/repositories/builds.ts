@@ -22,6 +22,9 @@ const EVALUATION_COLUMNS = [
   'builds.measuredAverageCurrentA',
   'builds.measuredSupplyId',
   'builds.runLengthS',
+  'builds.fieldAltitudeM',
+  'builds.airTemperatureC',
+  'builds.depthOfDischarge',
   'builds.tightThreshold',
 ] as const;
 
@@ -56,6 +59,9 @@ function rowToBuild(row: EvaluationRow, supplies: Supply[], meta: BuildMeta): Bu
     measuredAverageCurrentA: row.measuredAverageCurrentA,
     measuredSupplyId: row.measuredSupplyId,
     runLengthS: row.runLengthS,
+    fieldAltitudeM: row.fieldAltitudeM,
+    airTemperatureC: row.airTemperatureC,
+    depthOfDischarge: row.depthOfDischarge,
     tightThreshold: row.tightThreshold,
   };
 }

@@ -21,6 +21,8 @@ const BUILT_IN: Readonly<Record<string, RuleBasis>> = {
   'controller-continuous': { basis: 'continuous', whose: 'controller', long: "the continuous current against the speed controller's continuous rating" },
   'controller-burst': { basis: 'peak', whose: 'controller', long: "the peak current against the speed controller's burst rating" },
   'motor-current': { basis: 'peak', whose: 'motor', long: "the peak current through one motor against the motor's rated current" },
+  'wire-current': { basis: 'continuous', whose: 'leads', long: "one pack's share of the continuous current against what its lead gauge carries in chassis wiring" },
+  'connector-current': { basis: 'continuous', whose: 'connector', long: "one pack's share of the continuous current against its connector's rating" },
 };
 
 export function ruleBasis(rule: string | null): RuleBasis {

@@ -48,6 +48,17 @@ function figureDef(key: FigureKey, propeller: boolean): FigureDef {
 }
 
 /**
+ * The wider figures a sheet shows outside the figure tables, on screen and in print: energy and
+ * run time, motor heat and electrical rpm, and for propeller builds the lift they give.
+ */
+export const WIDER_FIGURE_KEYS: readonly FigureKey[] = ['packEnergyWh', 'runTimeMin', 'motorLossW', 'erpm', 'allUpMassKg', 'thrustToWeight', 'hoverThrottle', 'hoverCurrentA', 'fluidDensityKgM3'];
+
+export function widerFigures(propeller: boolean): { id: 'wider'; title: string; figures: readonly FigureDef[] } {
+  // Every one is listed only where it has a value: each belongs to some builds only.
+  return { id: 'wider', title: 'Energy, run time, heat and lift', figures: WIDER_FIGURE_KEYS.map((k) => ({ ...figureDef(k, propeller), optional: true })) };
+}
+
+/**
  * The catalogue's listed figures of some stages, in catalogue order. `applies` keeps the
  * figures of one kind of vehicle (all of them when 'all'); `propeller` takes the wording of a
  * propeller build.

@@ -47,6 +47,7 @@ export const CHEMISTRY_LABELS: Readonly<Record<string, string>> = { lipo: 'LiPo'
 export const KIND_LABELS: Readonly<Record<string, string>> = { car: 'Car', truck: 'Truck', boat: 'Boat', multirotor: 'Multirotor', plane: 'Plane' };
 export const DRIVE_LAYOUT_LABELS: Readonly<Record<string, string>> = { '': 'not recorded (taken as 4WD)', '4wd': '4WD (all wheels driven)', '2wd': '2WD (one axle driven)' };
 export const WATER_LABELS: Readonly<Record<string, string>> = { '': 'not recorded (taken as sea water)', fresh: 'Fresh water', sea: 'Sea water' };
+export const SURFACE_LABELS: Readonly<Record<string, string>> = { '': 'not recorded (the grippiest, dirt and grass rolling)', asphalt: 'Asphalt', carpet: 'Carpet', dirt: 'Dirt', grass: 'Grass' };
 
 /** What the parts table shows of each kind, besides every field on the form. */
 const COLUMNS: Readonly<Record<PartTable, readonly string[]>> = {
@@ -62,6 +63,7 @@ const OPTION_LABELS: Readonly<Record<string, Readonly<Record<string, string>>>> 
   kind: KIND_LABELS,
   driveLayout: DRIVE_LAYOUT_LABELS,
   water: WATER_LABELS,
+  surface: SURFACE_LABELS,
 };
 
 /**
@@ -74,13 +76,15 @@ const VEHICLE_FORM_PLACES = {
   owner: 3,
   className: 4,
   massKg: 5,
-  dragAreaM2: 6,
-  rollingCoefficient: 7,
-  tractionCoefficient: 8,
-  driveLayout: 9,
-  drivenWeightShare: 10,
-  water: 11,
-  notes: 12,
+  surface: 6,
+  dragAreaM2: 7,
+  rollingCoefficient: 8,
+  tractionCoefficient: 9,
+  typicalValuesConfirmed: 10,
+  driveLayout: 11,
+  drivenWeightShare: 12,
+  water: 13,
+  notes: 14,
 } as const satisfies Record<keyof typeof VEHICLE_FIELDS, number>;
 
 const VEHICLE_FORM_ORDER = Object.entries(VEHICLE_FORM_PLACES)

@@ -1,5 +1,6 @@
 import type { Battery, Controller, Figures, Finding, Motor, Propeller, Status, SupplyVerdict, Vehicle } from '$core/domain';
 import type { FigureKey } from '$core/catalogue/figures';
+import { isMinimumRule } from '$core/catalogue/rules';
 import { compareStatus } from '$core/status';
 import { displayUnit, quantityOfUnit, toDisplay, type UnitSystem } from '$core/units';
 import { DRIVETRAIN_FIGURES, MOTOR_FIGURES, PROPELLER_FIGURES, SUPPLY_FIGURES, figureText, type FigureDef } from '../figures/figure-groups';
@@ -59,6 +60,10 @@ const LIMIT_WORD: Readonly<Record<string, string>> = {
   'motor-current': 'rated',
   'motor-power': 'rated',
   'prop-tip-speed': 'limit',
+  'motor-heat': 'rated loss',
+  'controller-erpm': 'eRPM limit',
+  'wire-current': 'lead gauge',
+  'connector-current': 'connector rating',
 };
 
 /** Which of the model's operating points a check judged, besides the charge state. */
@@ -71,6 +76,12 @@ const POINT_WORD: Readonly<Record<string, string>> = {
   'motor-power': 'peak',
   'motor-speed': 'no load',
   'prop-tip-speed': 'unloaded',
+  'motor-heat': 'continuous',
+  'controller-erpm': 'no load',
+  'wire-current': 'continuous',
+  'connector-current': 'continuous',
+  'thrust-to-weight': 'static',
+  'controller-min-voltage': 'peak',
 };
 
 const RESISTANCE_WORDS: Readonly<Record<string, string>> = {
@@ -93,6 +104,7 @@ export function askedText(f: Finding, system: UnitSystem): string {
     if (f.status === 'incomplete') return `${ruleName(f.rule)}: cannot be checked`;
     return ruleName(f.rule);
   }
+  if (isMinimumRule(f.rule)) return `${amount(f.value, f.unit, system)}, at least ${amount(f.limit, f.unit, system)} needed`;
   const word = LIMIT_WORD[f.rule] ?? (f.rule.startsWith('class-') ? 'class limit' : 'limit');
   return `${amount(f.value, f.unit, system)} of ${amount(f.limit, f.unit, system)} ${word}`;
 }
@@ -105,8 +117,9 @@ export function assumedText(f: Finding): string | null {
   if (point) parts.push(point);
   if (f.unit === 'A' || f.unit === 'W') parts.push(f.source === 'measured' ? 'measured' : 'model');
   else if (f.unit === 'rpm' || f.unit === 'm/s') parts.push('model');
-  parts.push('full charge');
+  parts.push(f.rule === 'controller-min-voltage' ? 'cut-off' : 'full charge');
   for (const a of f.assumed ?? []) parts.push(RESISTANCE_WORDS[a] ?? `${a} taken as zero`);
+  if (f.typical && f.typical.length > 0) parts.push(f.typical.some((t) => t.startsWith('propeller.')) ? 'estimated propeller values' : 'typical values used');
   return parts.join(', ');
 }
 

@@ -208,9 +208,9 @@ describe('propeller builds', () => {
     expect(f.theoreticalSpeedKmh).toBeNull();
   });
 
-  it('names missing propeller coefficients', () => {
+  it('names missing propeller coefficients where no pitch lets them be estimated', () => {
     const base = quadContext();
-    const s = supplyOf({ ...base, propeller: { ...(base.propeller as NonNullable<BuildContext['propeller']>), powerCoefficient: null } });
+    const s = supplyOf({ ...base, propeller: { ...(base.propeller as NonNullable<BuildContext['propeller']>), powerCoefficient: null, pitchMm: null } });
     // The current checks cannot be made without C_P ...
     expect(finding(s, 'motor-current').missing).toEqual(['propeller.powerCoefficient']);
     // ... but the unloaded tip speed needs no propeller coefficient, so it is still judged.

@@ -22,9 +22,26 @@ const base = (value: number | null, limit: number | null, threshold = 0.15): Lim
 });
 
 describe('rule catalogue', () => {
-  it('carries exactly the ids of the design brief', () => {
+  it('carries exactly the ids of the design brief and of issue 14', () => {
     expect([...BUILT_IN_RULE_IDS].sort()).toEqual(
-      ['controller-voltage', 'motor-voltage', 'motor-speed', 'battery-continuous', 'battery-burst', 'controller-continuous', 'controller-burst', 'motor-current', 'motor-power', 'prop-tip-speed'].sort(),
+      [
+        'controller-voltage',
+        'motor-voltage',
+        'motor-speed',
+        'battery-continuous',
+        'battery-burst',
+        'controller-continuous',
+        'controller-burst',
+        'motor-current',
+        'motor-power',
+        'prop-tip-speed',
+        'motor-heat',
+        'controller-erpm',
+        'thrust-to-weight',
+        'wire-current',
+        'connector-current',
+        'controller-min-voltage',
+      ].sort(),
     );
   });
 });

@@ -1,0 +1,18 @@
+import type { ValueUsed } from '$core/domain';
+import { smart } from '../format/number';
+
+// A typical or estimated input as the sheet lists it: what it is, its value, and where it came from.
+
+const WORDS: Readonly<Record<string, { label: string; unit: string }>> = {
+  'vehicle.dragAreaM2': { label: 'Drag area Cd·A', unit: ' m²' },
+  'vehicle.rollingCoefficient': { label: 'Rolling coefficient', unit: '' },
+  'vehicle.tractionCoefficient': { label: 'Tyre grip μ', unit: '' },
+  'propeller.thrustCoefficient': { label: 'Thrust coefficient C_T', unit: '' },
+  'propeller.powerCoefficient': { label: 'Power coefficient C_P', unit: '' },
+};
+
+export function valueUsedText(u: ValueUsed): string {
+  const w = WORDS[u.field] ?? { label: u.field, unit: '' };
+  const basis = u.basis === 'estimated' ? 'estimated from diameter, pitch and blades (about ±20 %)' : 'typical value for the kind and surface';
+  return `${w.label}: ${smart(u.value)}${w.unit}, ${basis}`;
+}
