@@ -99,7 +99,7 @@ export const listBuildColumns = defineHandler(listInput, async (ctx, input): Pro
 export const getBuildSheet = defineHandler(record({ id: id() }), async (ctx, input) => {
   const build = await requireBuild(ctx.db, input.id);
   const settings = await readSettings(ctx.db);
-  const [context] = await loadBuildContexts(ctx.db, byIds([build.id]), settings.tightThreshold);
+  const [context] = await loadBuildContexts(ctx.db, byIds([build.id]), settings.tightThreshold, ctx.now().toISOString());
   const evaluatedAt = await getEvaluatedAt(ctx.db, build.id);
   if (!context) throw new ServiceError('not-found', `id: no build with id "${input.id}"`, 'id');
   const verdict = evaluateBuild(context);
@@ -274,6 +274,6 @@ export const previewChange = defineHandler(previewInput, async (ctx, input) => {
   }
   const ids = outcome.verdicts.map((x) => x.buildId);
   const settings = await readSettings(ctx.db);
-  const before = (await loadBuildContexts(ctx.db, byIds(ids), settings.tightThreshold)).map((context) => evaluateBuild(context));
+  const before = (await loadBuildContexts(ctx.db, byIds(ids), settings.tightThreshold, ctx.now().toISOString())).map((context) => evaluateBuild(context));
   return { before, after: outcome.verdicts, verdictChanges: outcome.verdictChanges };
 });
