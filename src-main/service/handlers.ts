@@ -8,7 +8,7 @@ import { storeInfo } from './handlers/store-handlers';
 import { exportCsvHandler, exportFleetHandler, importCsvHandler, importFleetHandler } from './handlers/fleet-handlers';
 import { backupStoreHandler } from './handlers/backup-handlers';
 import { loadDemoHandler } from './handlers/demo-handlers';
-import { addPackEvent, getPackHealthSettings, listPackLog, removePackEvent, updatePackHealthSettings } from './handlers/log-handlers';
+import { addPackEvent, getPackHealthSettings, getRunLogHandler, importRunLog, listPackLog, listRunLogsHandler, previewRunLog, removePackEvent, removeRunLog, updatePackHealthSettings, useRunLogFigures } from './handlers/log-handlers';
 import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from './schemas/part-schemas';
 
 /**
@@ -71,6 +71,12 @@ export const handlers = {
   'packLog.remove': removePackEvent,
   'settings.packHealth': getPackHealthSettings,
   'settings.updatePackHealth': updatePackHealthSettings,
+  'runLogs.preview': previewRunLog,
+  'runLogs.import': importRunLog,
+  'runLogs.list': listRunLogsHandler,
+  'runLogs.get': getRunLogHandler,
+  'runLogs.useFigures': useRunLogFigures,
+  'runLogs.remove': removeRunLog,
 } satisfies Record<string, AnyHandler>;
 
 export type Handlers = typeof handlers;

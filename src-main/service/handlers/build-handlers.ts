@@ -69,7 +69,7 @@ function withSupplyIds(ctx: ServiceContext, supplies: readonly SupplyInput[]): S
   return supplies.map((s) => ({ id: s.id ?? ctx.newId('sup'), arrangement: s.arrangement, batteryIds: [...s.batteryIds] }));
 }
 
-async function requireBuild(db: DbHandle, buildId: string): Promise<Build> {
+export async function requireBuild(db: DbHandle, buildId: string): Promise<Build> {
   const found = await getBuild(db, buildId);
   if (!found) throw new ServiceError('not-found', `id: no build with id "${buildId}"`, 'id');
   return found;
@@ -194,7 +194,7 @@ export const duplicateBuild = defineHandler(record({ id: id(), newId: v.optional
   return { record: outcome.result, verdict: outcome.verdicts[0] ?? null };
 });
 
-async function writeBuildPatch(
+export async function writeBuildPatch(
   ctx: ServiceContext,
   input: { id: string; expectedVersion: number; changes: Partial<Omit<BuildFields, 'supplies'>> & { supplies?: SupplyInput[]; archivedAt?: string | null }; reason: string },
   action: string,
