@@ -268,8 +268,9 @@ export function readRows(state: LogReadState, lines: readonly string[], from: nu
 
 /** The samples of the used quantities only. */
 export function finishedSamples(state: LogReadState, uses: readonly ColumnUse[]): LogSamples {
+  // Columns in one fixed order, whatever the file's: a log exported and read again is the same text.
   const out: LogSamples = { timeS: state.samples.timeS };
-  for (const use of uses) if (use.quantity !== 'time') out[SAMPLE_KEYS[use.quantity]] = state.samples[SAMPLE_KEYS[use.quantity]];
+  for (const quantity of LOG_QUANTITIES) if (quantity !== 'time' && uses.some((u) => u.quantity === quantity)) out[SAMPLE_KEYS[quantity]] = state.samples[SAMPLE_KEYS[quantity]];
   return out;
 }
 
