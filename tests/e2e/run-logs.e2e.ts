@@ -57,3 +57,31 @@ test('a run log imported through the window is drawn beside the model, and its f
   await expect(shown.getByText('This supply is judged on these measured figures.')).toBeVisible();
   await page.screenshot({ path: `${SCREENSHOT_DIR}/run-log-used.png`, fullPage: true });
 });
+
+test('the pack log on the pack page: cycles from the log, a resistance that moves the sag, a worn pack turning its build over', async ({ page, shell }) => {
+  test.setTimeout(120_000);
+  const { pack, build } = await seedOneBuild(shell);
+  await shell.api('packLog.add', { batteryId: pack.id, at: '2026-10-01', kind: 'resistance', cellResistancesOhm: [0.003, 0.003, 0.003, 0.003], temperatureC: 22 });
+  await shell.api('packLog.add', { batteryId: pack.id, at: '2026-10-20', kind: 'discharge', mah: 4700, capacityCheck: true, voltagePerCellV: 3.6 });
+  await shell.api('packLog.add', { batteryId: pack.id, at: '2026-11-20', kind: 'charge', mah: 4600, voltagePerCellV: 4.2 });
+  await openApp(page, shell, `#/parts/packs/${pack.id}`);
+  const log = page.getByTestId('pack-log');
+  await expect(log.getByTestId('pack-cycles')).toHaveText('1 cycle');
+
+  // A new measurement through the form: 4.6 mΩ a lead on average, 53 % over the first 3 mΩ, past the 50 % growth threshold.
+  await log.getByLabel('Kind').selectOption('resistance');
+  await log.getByLabel('Date', { exact: true }).fill('2026-11-25');
+  await log.getByLabel('Readings per cell lead (mΩ, separated by spaces)').fill('4.6 4.6 4.5 4.7');
+  await log.getByRole('button', { name: 'Add to the log' }).click();
+  await expect(log.getByText('Newest resistance measurement (2026-11-25): 18.4 mΩ for the pack.')).toBeVisible();
+  await expect(log.getByTestId('pack-health')).toContainText('resistance up 53 % over its first measurement');
+  await expect(log.getByRole('img', { name: /Measured pack resistance and capacity checks/ })).toBeVisible();
+  await expectNoAxeViolations(page, 'pack page with its log');
+  await page.screenshot({ path: `${SCREENSHOT_DIR}/pack-log.png`, fullPage: true });
+
+  const sheet = await shell.api<{ verdict: { status: string; supplies: { figures: Record<string, number | null>; findings: { rule: string; status: string }[] }[] } }>('builds.get', { id: build.id });
+  // Series readings add: 4.6 + 4.6 + 4.5 + 4.7 = 18.4 mΩ for the pack.
+  expect(sheet.verdict.supplies[0]!.figures.packResistanceOhm).toBeCloseTo(0.0184, 9);
+  expect(sheet.verdict.supplies[0]!.findings.find((f) => f.rule === 'pack-health')?.status).toBe('over');
+  expect(sheet.verdict.status).toBe('over');
+});
