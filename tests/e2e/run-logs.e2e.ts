@@ -64,6 +64,8 @@ test('the pack log on the pack page: cycles from the log, a resistance that move
   await shell.api('packLog.add', { batteryId: pack.id, at: '2026-10-01', kind: 'resistance', cellResistancesOhm: [0.003, 0.003, 0.003, 0.003], temperatureC: 22 });
   await shell.api('packLog.add', { batteryId: pack.id, at: '2026-10-20', kind: 'discharge', mah: 4700, capacityCheck: true, voltagePerCellV: 3.6 });
   await shell.api('packLog.add', { batteryId: pack.id, at: '2026-11-20', kind: 'charge', mah: 4600, voltagePerCellV: 4.2 });
+  // Brought to storage voltage the next day, so the pack was never left charged whatever today's date.
+  await shell.api('packLog.add', { batteryId: pack.id, at: '2026-11-21', kind: 'storage', voltagePerCellV: 3.85 });
   await openApp(page, shell, `#/parts/packs/${pack.id}`);
   const log = page.getByTestId('pack-log');
   await expect(log.getByTestId('pack-cycles')).toHaveText('1 cycle');
@@ -84,4 +86,16 @@ test('the pack log on the pack page: cycles from the log, a resistance that move
   expect(sheet.verdict.supplies[0]!.figures.packResistanceOhm).toBeCloseTo(0.0184, 9);
   expect(sheet.verdict.supplies[0]!.findings.find((f) => f.rule === 'pack-health')?.status).toBe('over');
   expect(sheet.verdict.status).toBe('over');
+
+  // The thresholds live in Settings with their basis: 95 % of rated makes the 4700 mAh check (94 %) a worn pack too.
+  await openApp(page, shell, '#/settings');
+  const form = page.getByRole('form', { name: 'Pack health' });
+  await expect(form.getByLabel('Capacity check under (% of rated)')).toHaveValue('80');
+  await expect(form.getByText(/cycle life to 80 % of rated capacity/)).toBeVisible();
+  await form.getByLabel('Capacity check under (% of rated)').fill('95');
+  await form.getByRole('button', { name: 'Save' }).click();
+  await expect(form.getByRole('status')).toHaveText('Pack-health thresholds saved; every build was re-checked.');
+  await page.screenshot({ path: `${SCREENSHOT_DIR}/pack-health-settings.png`, fullPage: true });
+  const after = await shell.api<{ health: { kind: string }[] }>('packLog.list', { batteryId: pack.id });
+  expect(after.health.map((h) => h.kind)).toEqual(['resistance', 'capacity']);
 });
