@@ -93,7 +93,7 @@ test('the pack log on the pack page: cycles from the log, a resistance that move
   await expect(form.getByLabel('Capacity check under (% of rated)')).toHaveValue('80');
   await expect(form.getByText(/cycle life to 80 % of rated capacity/)).toBeVisible();
   await form.getByLabel('Capacity check under (% of rated)').fill('95');
-  await form.getByRole('button', { name: 'Save' }).click();
+  await form.getByRole('button', { name: 'Apply thresholds' }).click();
   await expect(form.getByRole('status')).toHaveText('Pack-health thresholds saved; every build was re-checked.');
   await page.screenshot({ path: `${SCREENSHOT_DIR}/pack-health-settings.png`, fullPage: true });
   const after = await shell.api<{ health: { kind: string }[] }>('packLog.list', { batteryId: pack.id });
