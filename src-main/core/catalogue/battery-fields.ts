@@ -40,7 +40,7 @@ export const BATTERY_FIELDS = {
     need: 'the measured cell resistance',
   },
   massKg: { ...PART_MASS, typical: [0.003, 30] },
-  cycleCount: { type: 'integer', label: 'Cycles', unit: 'count', bounds: { min: 0, max: 100_000 }, fallback: 0 },
+  cycleCount: { type: 'integer', label: 'Cycles', unit: 'count', hint: 'before the pack log began; each logged charge adds one', bounds: { min: 0, max: 100_000 }, fallback: 0 },
   retired: { type: 'flag', label: 'Retired (no longer used in new builds)', fallback: false },
   notes: NOTES,
 } as const satisfies FieldCatalogue;
