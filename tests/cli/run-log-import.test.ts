@@ -63,3 +63,24 @@ describe('rigbook import --run-log', () => {
     expect(noSupply.err).toMatch(/--supply 2: build "Blue truck on 2S" has 1 supply/);
   });
 });
+
+describe('rigbook check on a version 2 file', () => {
+  it('judges a pack by its log, as the store does: a puffed inspection is over', async () => {
+    const dir = t();
+    const db = dir.file('store.sqlite');
+    const { buildId } = await storeWithBuild(db);
+    const host = await openServiceHost({ dbPath: db, actor: 'seed' });
+    const packs = (await host.call('batteries.list', {})) as { ok: true; value: { id: string }[] };
+    const packId = packs.value[0]!.id;
+    await host.call('packLog.add', { batteryId: packId, at: '2026-11-02', kind: 'inspection', puffed: true });
+    const exported = (await host.call('fleet.export', {})) as { ok: true; value: unknown };
+    await host.close();
+    writeFileSync(dir.file('fleet.json'), JSON.stringify(exported.value));
+    const run = await rigbook(['check', 'fleet.json', '--json'], { cwd: dir.dir });
+    const report = JSON.parse(run.out) as { builds: { id: string; status: string; supplies: { findings: { rule: string; status: string }[] }[] }[] };
+    const build = report.builds.find((b) => b.id === buildId)!;
+    expect(build.supplies[0]!.findings.find((f) => f.rule === 'pack-health')?.status).toBe('over');
+    expect(build.status).toBe('over');
+    expect(run.code).toBe(1);
+  });
+});
