@@ -11,6 +11,7 @@ import type { MOTOR_FIELDS } from './catalogue/motor-fields';
 import type { PROPELLER_FIELDS } from './catalogue/propeller-fields';
 import type { VEHICLE_FIELDS } from './catalogue/vehicle-fields';
 import type { FigureKey, Figures } from './catalogue/figures';
+import type { HealthProblem } from './pack-log';
 
 export type { Figures };
 
@@ -99,6 +100,8 @@ export interface BuildContext {
   classRules: readonly ClassRule[];
   /** The threshold to use when neither build nor class sets one. */
   defaultTightThreshold: number;
+  /** Health problems read from the packs' logs, by pack id (core/pack-log.ts); none where left out. */
+  packHealth?: ReadonlyMap<string, readonly HealthProblem[]>;
 }
 
 export interface Finding {
@@ -116,7 +119,7 @@ export interface Finding {
   source?: 'model' | 'measured';
   /** Unmeasured inputs the model took as zero (pack or controller resistance): reads currents on the high side. */
   assumed?: string[];
-  /** The pack a per-pack rule (battery-continuous, battery-burst, pack-retired) is about: the worst one. */
+  /** The pack a per-pack rule (battery-continuous, battery-burst, pack-retired, pack-health) is about: the worst one. */
   batteryId?: string;
   /** Typical or estimated inputs the figure rests on (field paths), while the user has not confirmed them. */
   typical?: string[];

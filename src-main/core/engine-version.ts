@@ -10,4 +10,5 @@
 // 5: air density from field altitude and temperature; typical car and truck coefficients and
 //    estimated propeller coefficients (verdicts on them no better than tight until confirmed);
 //    run time, pack energy, hover, thrust-to-weight, motor heat, eRPM, lead wire and connector checks.
+//    and pack logs: the newest logged resistance measurement sets a pack's sag; the pack-health rule.
 export const ENGINE_VERSION = 5;

@@ -14,9 +14,10 @@ import { torqueConstant } from './motor';
 import { operate } from './operating-point';
 import { NOT_APPLICABLE } from './operation';
 import type { PackModel } from './pack';
+import type { HealthProblem } from './pack-log';
 import { tipSpeed } from './propeller';
 import { checkLimit, type LimitCheck } from './rule-check';
-import { PACK_REPEATED_RULE_ID, PACK_RETIRED_RULE_ID, packRuleMessage, ratingRule, SUPPLY_MATCH_RULE_ID, type BuiltInRuleId } from './catalogue/rules';
+import { PACK_HEALTH_RULE_ID, PACK_REPEATED_RULE_ID, PACK_RETIRED_RULE_ID, packHealthMessage, packRuleMessage, ratingRule, SUPPLY_MATCH_RULE_ID, type BuiltInRuleId } from './catalogue/rules';
 import { compareStatus } from './status';
 import { supplyModel, type SupplyModel } from './supply';
 import { tightThresholdFor } from './threshold';
@@ -60,6 +61,7 @@ export function evaluateBuild(ctx: BuildContext, options?: EvaluateOptions): Bui
       measuredHere: measuredOnKnown && supply.id === measuredOn,
       measuredElsewhere: measuredOnKnown && supply.id !== measuredOn,
       names: ctx.batteries,
+      health: ctx.packHealth,
     };
     verdicts.push(evaluateSupply(inputs, supply, model, classRules, threshold, messages, site));
   }
@@ -89,6 +91,7 @@ interface SupplySite {
   /** They were logged on another supply of the build. */
   measuredElsewhere: boolean;
   names: BuildContext['batteries'];
+  health: BuildContext['packHealth'];
 }
 
 interface RuleOverride {
@@ -397,6 +400,12 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
     const b = site.names.get(id);
     if (b?.retired) findings.push(packFinding(PACK_RETIRED_RULE_ID, id, b.name, messages));
   }
+  if (site.health) {
+    for (const id of new Set(supply.batteryIds)) {
+      const problems = site.health.get(id);
+      if (problems && problems.length > 0) findings.push(healthFinding(id, site.names.get(id)?.name ?? id, problems, s?.lithium ?? true, messages));
+    }
+  }
 
   const modelAssumed: string[] = [];
   if (s && s.resistanceOhm === null) modelAssumed.push('battery.cellResistanceOhm');
@@ -553,6 +562,13 @@ function pushPackLimit(env: RuleEnv, id: 'wire-current' | 'connector-current', t
 function packFinding(rule: typeof PACK_RETIRED_RULE_ID | typeof PACK_REPEATED_RULE_ID, batteryId: string, name: string, messages: boolean): Finding {
   const message = messages ? packRuleMessage(rule, name) : '';
   return { rule, status: 'over', value: null, limit: null, unit: '', margin: null, message, batteryId };
+}
+
+/** What a pack's log shows against the health thresholds: over where worn or damaged, tight where only left charged. */
+function healthFinding(batteryId: string, name: string, problems: readonly HealthProblem[], lithium: boolean, messages: boolean): Finding {
+  const status: Status = problems.some((p) => p.status === 'over') ? 'over' : 'tight';
+  const message = messages ? packHealthMessage(name, problems, lithium) : '';
+  return { rule: PACK_HEALTH_RULE_ID, status, value: null, limit: null, unit: '', margin: null, message, batteryId };
 }
 
 function worstFindingStatus(findings: readonly Finding[]): Status {

@@ -8,6 +8,7 @@ import { storeInfo } from './handlers/store-handlers';
 import { exportCsvHandler, exportFleetHandler, importCsvHandler, importFleetHandler } from './handlers/fleet-handlers';
 import { backupStoreHandler } from './handlers/backup-handlers';
 import { loadDemoHandler } from './handlers/demo-handlers';
+import { addPackEvent, getPackHealthSettings, getRunLogHandler, importRunLog, listPackLog, listRunLogsHandler, previewRunLog, removePackEvent, removeRunLog, updatePackHealthSettings, useRunLogFigures } from './handlers/log-handlers';
 import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from './schemas/part-schemas';
 
 /**
@@ -64,6 +65,18 @@ export const handlers = {
   'fleet.importCsv': importCsvHandler,
   'demo.load': loadDemoHandler,
   'store.backup': backupStoreHandler,
+  // Pack logs and run logs (handlers/log-handlers.ts).
+  'packLog.list': listPackLog,
+  'packLog.add': addPackEvent,
+  'packLog.remove': removePackEvent,
+  'settings.packHealth': getPackHealthSettings,
+  'settings.updatePackHealth': updatePackHealthSettings,
+  'runLogs.preview': previewRunLog,
+  'runLogs.import': importRunLog,
+  'runLogs.list': listRunLogsHandler,
+  'runLogs.get': getRunLogHandler,
+  'runLogs.useFigures': useRunLogFigures,
+  'runLogs.remove': removeRunLog,
 } satisfies Record<string, AnyHandler>;
 
 export type Handlers = typeof handlers;

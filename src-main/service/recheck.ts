@@ -5,6 +5,9 @@ import { selectedBuildIds, selectsNothing, type BuildSelector } from '../store/b
 import { loadBuildsForEvaluation } from '../store/repositories/builds';
 import { rowToRecord } from '../store/repositories/part-records';
 import type { VerdictChange } from '../store/repositories/history';
+import { packHealthProblems, withLoggedResistance, type HealthProblem } from '../core/pack-log';
+import { packEventsOf } from '../store/repositories/pack-events';
+import { readSettings } from '../store/repositories/settings';
 import { getStoredStatuses, sameVerdictRow, verdictToRow, writeVerdicts } from '../store/repositories/verdicts';
 
 export interface RecheckResult {
@@ -32,26 +35,46 @@ async function referenced<T extends RefTable>(db: DbHandle, table: T, selector: 
   return new Map(rows.map((row) => [row.id, rowToRecord(table, row)]));
 }
 
-async function referencedPacks(db: DbHandle, selector: BuildSelector): Promise<Map<string, Battery>> {
-  const rows = await db
-    .selectFrom('batteries')
-    .selectAll()
-    .where('id', 'in', db.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplyPacks.batteryId').where('supplies.buildId', 'in', selectedBuildIds(db, selector)))
-    .execute();
-  return new Map(rows.map((row) => [row.id, rowToRecord('batteries', row)]));
+interface ReferencedPacks {
+  batteries: Map<string, Battery>;
+  health: Map<string, readonly HealthProblem[]>;
+}
+
+/**
+ * The packs the selected builds use, as the evaluation sees them: each with its newest logged
+ * resistance measurement in place of the typed one, and the health problems its log shows.
+ */
+async function referencedPacks(db: DbHandle, selector: BuildSelector, asOf: string): Promise<ReferencedPacks> {
+  const packIds = db.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplyPacks.batteryId').where('supplies.buildId', 'in', selectedBuildIds(db, selector));
+  const [rows, logs, settings] = await Promise.all([db.selectFrom('batteries').selectAll().where('id', 'in', packIds).execute(), packEventsOf(db, packIds), readSettings(db)]);
+  const batteries = new Map<string, Battery>();
+  const health = new Map<string, readonly HealthProblem[]>();
+  for (const row of rows) {
+    const typed = rowToRecord('batteries', row);
+    const events = logs.get(row.id);
+    if (!events) {
+      batteries.set(row.id, typed);
+      continue;
+    }
+    batteries.set(row.id, withLoggedResistance(typed, events));
+    const problems = packHealthProblems(typed, events, settings.packHealth, asOf);
+    if (problems.length > 0) health.set(row.id, problems);
+  }
+  return { batteries, health };
 }
 
 /** Resolves every record the selected builds refer to, with one query per table. */
-export async function loadBuildContexts(db: DbHandle, selector: BuildSelector, defaultTightThreshold: number): Promise<BuildContext[]> {
+export async function loadBuildContexts(db: DbHandle, selector: BuildSelector, defaultTightThreshold: number, asOf: string = new Date().toISOString()): Promise<BuildContext[]> {
   if (selectsNothing(selector)) return [];
-  const [builds, vehicles, motors, controllers, propellers, batteries] = await Promise.all([
+  const [builds, vehicles, motors, controllers, propellers, packs] = await Promise.all([
     loadBuildsForEvaluation(db, selector),
     referenced(db, 'vehicles', selector),
     referenced(db, 'motors', selector),
     referenced(db, 'controllers', selector),
     referenced(db, 'propellers', selector),
-    referencedPacks(db, selector),
+    referencedPacks(db, selector, asOf),
   ]);
+  const { batteries, health } = packs;
   const classNames = [...new Set([...vehicles.values()].map((x) => x.className).filter((c) => c !== ''))];
   const rules = classNames.length === 0 ? [] : await db.selectFrom('classRules').selectAll().where('className', 'in', classNames).where('archivedAt', 'is', null).execute();
   const rulesByClass = new Map<string, ClassRule[]>();
@@ -72,6 +95,7 @@ export async function loadBuildContexts(db: DbHandle, selector: BuildSelector, d
       batteries,
       classRules: vehicle ? (rulesByClass.get(vehicle.className) ?? []) : [],
       defaultTightThreshold,
+      packHealth: health,
     } satisfies BuildContext;
   });
 }
@@ -90,7 +114,7 @@ export function diffStatuses(verdict: BuildVerdict, stored: { status: Status; su
 /** Evaluates the selected builds and stores their verdicts; run inside the write's transaction. */
 export async function recheckBuilds(db: DbHandle, selector: BuildSelector, defaultTightThreshold: number, evaluatedAt: string, options: EvaluateOptions = { messages: false }): Promise<RecheckResult> {
   if (selectsNothing(selector)) return { verdicts: [], changes: [] };
-  const [contexts, stored] = await Promise.all([loadBuildContexts(db, selector, defaultTightThreshold), getStoredStatuses(db, selector)]);
+  const [contexts, stored] = await Promise.all([loadBuildContexts(db, selector, defaultTightThreshold, evaluatedAt), getStoredStatuses(db, selector)]);
   // Statuses and list figures are all a re-check stores, so by default it skips the sentences;
   // a preview, which shows its verdicts to a person, asks for them.
   const verdicts = contexts.map((context) => evaluateBuild(context, options));

@@ -4,6 +4,7 @@ import * as safeSideInputs from '../../migrations/20261202-0002-safe-side-inputs
 import * as verdictCurrentRule from '../../migrations/20261202-0004-verdict-current-rule';
 import * as historySelectors from '../../migrations/20261202-0005-history-selectors';
 import * as fieldAndTypicalValues from '../../migrations/20261203-0006-field-and-typical-values';
+import * as packLogRunLogs from '../../migrations/20261203-0007-pack-log-run-logs';
 
 // Static imports rather than a folder read at run time: bundlers follow these, so the
 // packaged app carries every migration. Add each new migration here, in name order.
@@ -13,6 +14,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261202-0004-verdict-current-rule': verdictCurrentRule,
   '20261202-0005-history-selectors': historySelectors,
   '20261203-0006-field-and-typical-values': fieldAndTypicalValues,
+  '20261203-0007-pack-log-run-logs': packLogRunLogs,
 };
 
 export const staticMigrationProvider: MigrationProvider = {

@@ -122,6 +122,44 @@ export interface HistorySelectorTable {
   target: string;
 }
 
+/** One dated entry of a pack's log; flags are 0/1, the per-cell readings JSON text. */
+export interface PackEventTable {
+  id: string;
+  batteryId: string;
+  at: string;
+  kind: string;
+  mah: number | null;
+  voltagePerCellV: number | null;
+  cellResistancesOhm: string | null;
+  temperatureC: number | null;
+  capacityCheck: number;
+  puffed: number;
+  damaged: number;
+  note: string;
+  createdAt: string;
+}
+
+/** A telemetry log attached to one supply of a build: its summary, and its (thinned) samples as JSON. */
+export interface RunLogTable {
+  id: string;
+  buildId: string;
+  supplyId: string;
+  name: string;
+  recordedAt: string;
+  importedAt: string;
+  sampleCount: number;
+  durationS: number | null;
+  peakCurrentA: number | null;
+  averageCurrentA: number | null;
+  rmsCurrentA: number | null;
+  minVoltageV: number | null;
+  maxTemperatureC: number | null;
+  usedMah: number | null;
+  samples: string;
+  mapping: string;
+  note: string;
+}
+
 export interface SettingTable {
   key: string;
   value: string;
@@ -142,6 +180,8 @@ export interface Db {
   historyBuilds: HistoryBuildTable;
   historySelectors: HistorySelectorTable;
   settings: SettingTable;
+  packEvents: PackEventTable;
+  runLogs: RunLogTable;
 }
 
 export type BuildRow = Selectable<BuildTable>;

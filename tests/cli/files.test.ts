@@ -16,7 +16,7 @@ describe('rigbook and fleet files from scripts and spreadsheets', () => {
   it('--version prints the package version', async () => {
     const run = await rigbook(['--version']);
     expect(run.code).toBe(0);
-    expect(run.out).toMatch(new RegExp(`^rigbook ${PACKAGE_VERSION.replace(/\./g, '\\.')} \\(rules engine \\d+, fleet file version 1\\)\\n$`));
+    expect(run.out).toMatch(new RegExp(`^rigbook ${PACKAGE_VERSION.replace(/\./g, '\\.')} \\(rules engine \\d+, fleet file version 2\\)\\n$`));
   });
 
   it('- reads standard input for check and import', async () => {

@@ -77,7 +77,7 @@ describe('the rigbook-fleet JSON Schema', () => {
     expect(validate(blankName)).toBe(false);
     const wrongFormat = { ...example(), format: 'other' };
     expect(validate(wrongFormat)).toBe(false);
-    const newer = { ...example(), version: 2 };
+    const newer = { ...example(), version: 3 };
     expect(validate(newer)).toBe(false);
   });
 });

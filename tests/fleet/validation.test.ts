@@ -106,7 +106,7 @@ describe('a fleet file is checked whole before anything is written', () => {
   it.each([
     ['not an object', [], '', /one JSON object/],
     ['another format', { format: 'some-other-list', version: 1 }, 'format', /must be "rigbook-fleet"/],
-    ['a newer version', { format: 'rigbook-fleet', version: 2 }, 'version', /newer Rigbook.*reads version 1/],
+    ['a newer version', { format: 'rigbook-fleet', version: 3 }, 'version', /newer Rigbook.*reads version 2/],
     ['no version', { format: 'rigbook-fleet' }, 'version', /is required/],
   ])('refuses %s before looking at records', (_label, value, place, message) => {
     const result = inspectFleet(value);

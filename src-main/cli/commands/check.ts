@@ -45,7 +45,8 @@ Exits 0 when nothing is over, 1 when something is over, 2 when the file cannot b
       for (const p of inspection.problems) io.err(`  ${problemLine(p)}\n`);
       return EXIT.invalid;
     }
-    const verdicts = evaluateFleet(inspection.fleet);
+    // A version 2 file's pack logs count as they do in the store (default thresholds, judged today).
+    const verdicts = evaluateFleet(inspection.fleet, undefined, { packEvents: inspection.logs.packEvents, asOf: io.now().toISOString() });
     if (flagValue(values, 'json')) io.out(`${JSON.stringify(checkJson(inspection.fleet, verdicts), null, 2)}\n`);
     else io.out(checkText(inspection.fleet, verdicts));
     return verdicts.some((v) => v.status === 'over') ? EXIT.over : EXIT.ok;

@@ -1,7 +1,9 @@
 import type { ImportReport } from '../../service/fleet/import-fleet';
 import { CSV_KIND_ALIASES, CSV_KIND_NAMES, type CsvKindName } from '../../service/fleet/csv-columns';
 import { CliFailure } from '../cli-io';
-import { encodingOption, ENCODING_HELP, flagValue, textValue, type Command } from '../command';
+import { encodingOption, ENCODING_HELP, flagValue, textValue, type Command, type CommandInput } from '../command';
+import type { RunLogInfo } from '../../store/repositories/run-logs';
+import { formatNumber } from '../format-number';
 import { EXIT } from '../../shell-common/exit-codes';
 import { importReportText, problemsText } from '../import-report-text';
 import { AUTO_BACKUPS_KEPT, callOrFail, withStore } from '../open-store';
@@ -18,6 +20,7 @@ export const importCommand: Command = {
   summary: 'import a rigbook-fleet file (or a CSV of one part kind) into the store',
   help: `Usage: rigbook import FILE [--mode merge|replace] [--dry-run] [--csv KIND] [--accept-changes]
                     [--reason TEXT] [--encoding E] [--json]
+       rigbook import FILE --run-log --build ID [--supply N] [--name TEXT] [--json]
 
 Checks the whole file (- reads standard input) first and lists every problem with its
 place; then writes all of it or nothing, re-checks every build it touched and adds one
@@ -35,6 +38,11 @@ history entry.
   --csv KIND       FILE is a CSV of one part kind (${KINDS}); always merged
   --reason TEXT    said in the history entry
   --json           print the import report as JSON
+  --run-log        FILE is a telemetry CSV of one run (time plus any of current, voltage,
+                   rpm, temperature, throttle, units in the header: "Current (A)"); it is
+                   attached to the build --build names, on its supply --supply N (1 for the
+                   first; may be left out when the build has one supply), all or nothing
+  --name TEXT      the run log's name (with --run-log)
 ${ENCODING_HELP}
 
 Exits 0 when imported, 2 when the file cannot be read, 3 when it is refused (problems
@@ -46,9 +54,16 @@ listed), 4 when the store cannot be opened or written.`,
     reason: { type: 'string' },
     'accept-changes': { type: 'boolean' },
     encoding: { type: 'string' },
+    'run-log': { type: 'boolean' },
+    build: { type: 'string' },
+    supply: { type: 'string' },
+    name: { type: 'string' },
   },
   positionals: { min: 1, max: 1 },
-  async run({ positionals, values, io, dbPath }) {
+  async run(input) {
+    if (flagValue(input.values, 'run-log')) return importRunLog(input);
+    for (const only of ['build', 'supply', 'name']) if (textValue(input.values, only) !== undefined) throw new CliFailure(EXIT.usage, `--${only} goes with --run-log.`);
+    const { positionals, values, io, dbPath } = input;
     const mode = textValue(values, 'mode') ?? 'merge';
     if (mode !== 'merge' && mode !== 'replace') throw new CliFailure(EXIT.usage, `--mode must be merge or replace (not "${mode}").`);
     const csv = textValue(values, 'csv');
@@ -72,6 +87,38 @@ listed), 4 when the store cannot be opened or written.`,
     return EXIT.ok;
   },
 };
+
+/** `--run-log`: one telemetry CSV attached to a build's supply, through the same handler as the window's import. */
+async function importRunLog({ positionals, values, io, dbPath }: CommandInput): Promise<number> {
+  const buildId = textValue(values, 'build');
+  if (buildId === undefined) throw new CliFailure(EXIT.usage, '--run-log needs --build ID: the build the log was recorded on.');
+  for (const other of ['csv', 'mode', 'dry-run', 'accept-changes', 'reason']) if (values[other] !== undefined) throw new CliFailure(EXIT.usage, `--${other} does not go with --run-log.`);
+  const supplyText = textValue(values, 'supply');
+  const supplyNumber = supplyText === undefined ? null : Number(supplyText);
+  if (supplyNumber !== null && !(Number.isInteger(supplyNumber) && supplyNumber >= 1)) throw new CliFailure(EXIT.usage, `--supply must be a supply's number, 1 for the first (not "${supplyText}").`);
+  const { label: file, text } = await readInputFile(io, positionals[0]!, encodingOption(values));
+  const log = (await withStore(io, dbPath, { mustExist: true }, async (host) => {
+    let supplyId: string | undefined;
+    if (supplyNumber !== null) {
+      const sheet = (await callOrFail(host, 'builds.get', { id: buildId })) as { build: { name: string; supplies: { id: string }[] } };
+      const supply = sheet.build.supplies[supplyNumber - 1];
+      if (!supply) throw new CliFailure(EXIT.usage, `--supply ${supplyNumber}: build "${sheet.build.name}" has ${sheet.build.supplies.length} ${sheet.build.supplies.length === 1 ? 'supply' : 'supplies'}.`);
+      supplyId = supply.id;
+    }
+    return callOrFail(host, 'runLogs.import', { buildId, text, name: textValue(values, 'name') ?? '', ...(supplyId ? { supplyId } : {}) });
+  })) as RunLogInfo;
+  if (flagValue(values, 'json')) {
+    io.out(`${JSON.stringify(log, null, 2)}\n`);
+    return EXIT.ok;
+  }
+  const figure = (x: number | null, unit: string): string => (x === null ? 'not logged' : `${formatNumber(x)} ${unit}`);
+  io.out(
+    `Imported ${file} as run log "${log.name}" (${log.sampleCount} samples over ${figure(log.durationS, 's')}) for build ${log.buildId}, supply ${log.supplyId}.\n` +
+      `  measured peak current ${figure(log.peakCurrentA, 'A')}, average ${figure(log.averageCurrentA, 'A')}, RMS ${figure(log.rmsCurrentA, 'A')}; ` +
+      `lowest voltage ${figure(log.minVoltageV, 'V')}; highest temperature ${figure(log.maxTemperatureC, '°C')}; used ${figure(log.usedMah, 'mAh')}\n`,
+  );
+  return EXIT.ok;
+}
 
 /** The checks that need no store: the file reads, and every record passes its schema. */
 function looksImportable(text: string, csv: string | undefined): boolean {

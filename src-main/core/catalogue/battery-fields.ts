@@ -62,7 +62,7 @@ export const BATTERY_FIELDS = {
     bounds: { above: 0, max: 10_000 },
     need: 'the connector current rating',
   },
-  cycleCount: { type: 'integer', label: 'Cycles', unit: 'count', bounds: { min: 0, max: 100_000 }, fallback: 0 },
+  cycleCount: { type: 'integer', label: 'Cycles', unit: 'count', hint: 'before the pack log began; each logged charge adds one', bounds: { min: 0, max: 100_000 }, fallback: 0 },
   retired: { type: 'flag', label: 'Retired (no longer used in new builds)', fallback: false },
   notes: NOTES,
 } as const satisfies FieldCatalogue;

@@ -4,11 +4,13 @@
 
 import type { Finding } from '../domain';
 
-export const CAUTION_TOPICS = ['fire', 'heat', 'propeller', 'voltage', 'mechanical', 'flight', 'brownout'] as const;
+export const CAUTION_TOPICS = ['fire', 'storage', 'heat', 'propeller', 'voltage', 'mechanical', 'flight', 'brownout'] as const;
 export type CautionTopic = (typeof CAUTION_TOPICS)[number];
 
 export const CAUTION_TEXT: Readonly<Record<CautionTopic, string>> = {
   fire: 'Fire risk: a lithium pack driven past its rating heats up, swells and can catch fire. Charge and store packs on a fire-safe surface, never unattended.',
+  storage:
+    'Storage: keep lithium packs at storage voltage (about 3.8 V a cell for LiPo) when not in use for more than a few days, in a fire-safe container away from heat and things that burn; charge only on a fire-safe surface, never unattended. Follow the pack maker\u2019s instructions and local rules.',
   heat: 'Heat: current above the rating heats wires, connectors and solder joints; insulation can melt and short.',
   propeller: 'Injury risk: a propeller near the speed of sound is stressed beyond its design and can break and throw pieces. Keep clear of turning propellers.',
   voltage: 'Over-voltage can destroy a controller or motor at once; a failing controller can catch fire.',

@@ -378,6 +378,15 @@ const CATALOGUE = {
     cautions: PACK_CAUTIONS,
     over: (name: string): string => `Pack listed twice: "${name}" appears more than once in this build, but one physical pack can only be in one place. Pick a second pack or remove the repeat.`,
   },
+  'pack-health': {
+    // Read from the pack's log (resistance growth, capacity checks, inspections, storage); the thresholds are settings.
+    kind: 'pack',
+    figure: null,
+    limit: ['battery.cellResistanceOhm', 'battery.capacityMah'],
+    name: 'Pack health',
+    cautions: ['fire', 'storage', 'heat'],
+    over: (name: string): string => `Pack health: the log of "${name}" shows it worn, damaged or left charged.`,
+  },
 } as const satisfies Record<string, RuleSpec>;
 
 /** Every rule a finding can name, except class rules (their ids start with `class-`). */
@@ -416,6 +425,22 @@ export const SUPPLY_MATCH_MESSAGE: string = CATALOGUE['supply-match'].over;
 export const SUPPLY_MATCH_RULE_ID = 'supply-match' satisfies RuleId;
 export const PACK_RETIRED_RULE_ID = 'pack-retired' satisfies RuleId;
 export const PACK_REPEATED_RULE_ID = 'pack-repeated' satisfies RuleId;
+export const PACK_HEALTH_RULE_ID = 'pack-health' satisfies RuleId;
+
+/**
+ * The message of a pack-health finding: what the log shows, then what to do. A worn or
+ * damaged lithium pack is taken out of use; one left charged is brought to storage voltage.
+ */
+export function packHealthMessage(packName: string, problems: readonly { text: string; status: 'over' | 'tight' }[], lithium: boolean): string {
+  const worn = problems.some((p) => p.status === 'over');
+  const what = problems.map((p) => p.text).join('; ');
+  const advice = worn
+    ? lithium
+      ? "A worn or damaged lithium pack sags more, heats more and can swell or catch fire under load: check it against the pack maker's limits, and retire a puffed or damaged pack and dispose of it as the maker and local rules say."
+      : "A worn or damaged pack sags and heats more under load: check it against the pack maker's limits before using it again."
+    : 'Bring it to storage voltage (charge or discharge it there) and store it on a fire-safe surface, as the pack maker says.';
+  return `Pack health: "${packName}" ${what}. ${advice}`;
+}
 
 /** Ids a class rule may not take. */
 export const RESERVED_RULE_IDS: readonly string[] = RULE_IDS;
@@ -459,8 +484,8 @@ export function isMinimumRule(rule: string): boolean {
 export function cautionsFor(finding: CautionFinding, lithium: boolean): CautionTopic[] {
   if (finding.status !== 'over') return [];
   const topics = isRuleId(finding.rule) ? CATALOGUE[finding.rule].cautions : cautionsOfOtherRule(finding);
-  // The fire caution is about lithium packs; other chemistries still heat their wiring.
-  return topics.filter((t) => t !== 'fire' || lithium);
+  // The fire and storage cautions are about lithium packs; other chemistries still heat their wiring.
+  return topics.filter((t) => (t !== 'fire' && t !== 'storage') || lithium);
 }
 
 /** Every caution of a set of findings, once each, in a fixed order. */

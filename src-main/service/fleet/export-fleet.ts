@@ -4,6 +4,7 @@ import { listParts } from '../../store/repositories/parts';
 import { canonicalRecord } from './canonical-record';
 import { FLEET_FORMAT, FLEET_PART_KINDS, FLEET_SCHEMA_ID, FLEET_VERSION, type FleetFile, type FleetRecords } from './fleet-format';
 import { progressCounter, type OnProgress } from './progress';
+import { exportLogs } from './fleet-logs';
 
 /**
  * The whole store as a rigbook-fleet file: every record, archived ones included (builds still
@@ -20,6 +21,7 @@ export async function exportFleet(db: DbHandle, onProgress?: OnProgress): Promis
     (parts as Record<string, unknown>)[kind] = records.map((r) => canonicalRecord(kind, r));
   }
   const builds = await loadBuilds(db, { by: 'all' });
+  const logs = await exportLogs(db);
   const tick = progressCounter(onProgress, 'export', builds.length);
   tick(0);
   builds.sort((a, b) => compareText(a.name, b.name) || compareText(a.id, b.id));
@@ -32,6 +34,8 @@ export async function exportFleet(db: DbHandle, onProgress?: OnProgress): Promis
       tick(i + 1);
       return canonicalRecord('builds', b) as unknown as FleetFile['builds'][number];
     }),
+    packEvents: logs.packEvents,
+    runLogs: logs.runLogs,
   };
   return out;
 }

@@ -1,15 +1,21 @@
-// The rigbook-fleet interchange file, version 1: the domain records as they are, grouped by
+// The rigbook-fleet interchange file, version 2: the domain records as they are, grouped by
 // kind, so a file can be read by a person, written by a script and checked without a store.
+// Version 2 adds the logs (`packEvents`, `runLogs`: service/fleet/fleet-logs.ts); a version 1
+// file, which has neither, still reads.
 
 import type { Battery, Build, ClassRule, Controller, Motor, Propeller, Vehicle } from '../../core/domain';
+import type { PackEvent } from '../../core/pack-log';
+import type { RunLog } from '../../store/repositories/run-logs';
 
 export const FLEET_FORMAT = 'rigbook-fleet';
-export const FLEET_VERSION = 1;
+export const FLEET_VERSION = 2;
+/** Versions this Rigbook reads. */
+export const FLEET_VERSIONS_READ = [1, 2] as const;
 /**
  * What exported files carry as `$schema`, and the `$id` of schema/rigbook-fleet.schema.json:
  * a name for the schema, not an address to fetch (point an editor at the shipped file).
  */
-export const FLEET_SCHEMA_ID = 'urn:rigbook:schema:rigbook-fleet:1';
+export const FLEET_SCHEMA_ID = 'urn:rigbook:schema:rigbook-fleet:2';
 
 /** Part kinds in the order a file lists them (and the order they are written: builds refer to them). */
 export const FLEET_PART_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classRules'] as const;
@@ -32,7 +38,11 @@ export interface FleetFile extends FleetRecords {
   /** Always written by an export; a file may leave it out. */
   $schema?: typeof FLEET_SCHEMA_ID;
   format: typeof FLEET_FORMAT;
-  version: typeof FLEET_VERSION;
+  version: (typeof FLEET_VERSIONS_READ)[number];
+  /** Version 2: each pack's log entries. */
+  packEvents?: PackEvent[];
+  /** Version 2: run logs with their kept samples. */
+  runLogs?: RunLog[];
 }
 
 /** How problems and counts name each kind, in the trade's words. */

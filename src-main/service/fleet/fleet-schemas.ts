@@ -8,7 +8,8 @@ import { GEARING_FIELDS } from '../../core/catalogue/build-fields';
 import { buildCreateSchema } from '../schemas/build-schemas';
 import { count, newId, nullable, record } from '../schemas/field-builders';
 import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from '../schemas/part-schemas';
-import { FLEET_FORMAT, FLEET_VERSION, type FleetKind } from './fleet-format';
+import { FLEET_FORMAT, FLEET_VERSIONS_READ, type FleetKind } from './fleet-format';
+import { packEventFileSchema, runLogFileSchema } from './fleet-logs';
 
 const MAX_VERSION = 1_000_000_000;
 
@@ -55,7 +56,7 @@ export const SUPPLY_ORDER: readonly string[] = ['id', 'arrangement', 'batteryIds
 export const fleetFileSchema = v.strictObject({
   $schema: v.optional(v.string('must be text')),
   format: v.literal(FLEET_FORMAT),
-  version: v.literal(FLEET_VERSION),
+  version: v.picklist(FLEET_VERSIONS_READ),
   batteries: v.optional(v.array(fleetRecordSchemas.batteries)),
   motors: v.optional(v.array(fleetRecordSchemas.motors)),
   controllers: v.optional(v.array(fleetRecordSchemas.controllers)),
@@ -63,4 +64,6 @@ export const fleetFileSchema = v.strictObject({
   vehicles: v.optional(v.array(fleetRecordSchemas.vehicles)),
   classRules: v.optional(v.array(fleetRecordSchemas.classRules)),
   builds: v.optional(v.array(fleetRecordSchemas.builds)),
+  packEvents: v.optional(v.array(packEventFileSchema)),
+  runLogs: v.optional(v.array(runLogFileSchema)),
 });

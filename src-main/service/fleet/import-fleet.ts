@@ -32,6 +32,7 @@ import { recordChange, suspectMessage, type RecordChange } from './fleet-changes
 import { validateFleet } from './validate-fleet';
 import { readJsonText } from './read-fleet-text';
 import { lossyDecodingReason } from './decode-file-bytes';
+import { logReferenceProblems, writeLogs } from './fleet-logs';
 
 export const IMPORT_MODES = ['merge', 'replace'] as const;
 export type ImportMode = (typeof IMPORT_MODES)[number];
@@ -343,11 +344,25 @@ export async function importFleet(ctx: ServiceContext, input: unknown, options: 
       ctx,
       async (trx, at) => {
         // Checked inside the transaction, so no other writer can change what the references resolve to.
-        const stored = options.mode === 'merge' ? await readFleetIds(trx) : NO_STORED_IDS;
+        const storedIds = options.mode === 'merge' ? await readFleetIds(trx) : null;
+        const stored: StoredIds = storedIds ?? NO_STORED_IDS;
         if (options.requireEmptyStore) await refuseUnlessEmpty(trx);
-        const problems = [...hintRewrittenIds(input, validation.problems, stored), ...referenceProblems(validation.fleet, validation.fileIds, stored, validation.buildPlaces)];
+        const fileSupplies = new Map(validation.fleet.builds.flatMap((b) => b.supplies.map((s) => [s.id, b.id] as const)));
+        const logProblems = logReferenceProblems(validation.logs, { batteries: validation.fileIds.batteries, builds: validation.fileIds.builds, supplyOwners: fileSupplies }, storedIds);
+        const problems = [...hintRewrittenIds(input, validation.problems, stored), ...referenceProblems(validation.fleet, validation.fileIds, stored, validation.buildPlaces), ...logProblems];
         if (problems.length > 0) throw new ImportRefused(sortProblems(problems, FLEET_KINDS));
         written = await writeFleet(trx, validation.fleet, options.mode, at, options.onProgress);
+        const logsWritten = await writeLogs(trx, validation.logs, at);
+        // A pack's log sets its sag and health: builds using a pack whose log came in are re-checked.
+        if (Array.isArray(written.recheck) && logsWritten.packIds.length > 0) {
+          const ids = new Set(written.recheck);
+          for (const buildId of await buildIdsUsingAny(trx, { batteries: logsWritten.packIds, motors: [], controllers: [], propellers: [], vehicles: [] }, [])) ids.add(buildId);
+          written.recheck = ids.size > RECHECK_ALL_ABOVE ? { by: 'all' } : [...ids];
+        }
+        const logWords = [
+          logsWritten.packEvents > 0 ? `${logsWritten.packEvents} pack log ${logsWritten.packEvents === 1 ? 'entry' : 'entries'}` : '',
+          logsWritten.runLogs > 0 ? `${logsWritten.runLogs} run log${logsWritten.runLogs === 1 ? '' : 's'}` : '',
+        ].filter((x) => x !== '');
         if (!options.acceptChanges) {
           const suspect = written.changes.flatMap((record) => record.fields.filter((f) => f.suspect !== null).map((f) => ({ place: '', message: suspectMessage(record, f) })));
           if (suspect.length > 0) throw new ImportRefused(suspect, written.changes);
@@ -359,7 +374,7 @@ export async function importFleet(ctx: ServiceContext, input: unknown, options: 
             action: 'import',
             entityKind: 'fleet',
             entityId: source,
-            summary: `Imported ${what} (${options.mode}): ${describeCounts(written.counts)}${written.removed ? `; removed what the store held first` : ''}`,
+            summary: `Imported ${what} (${options.mode}): ${describeCounts(written.counts)}${logWords.length > 0 ? `; with ${logWords.join(' and ')}` : ''}${written.removed ? `; removed what the store held first` : ''}`,
             reason: options.reason ?? '',
             before: written.removed,
             after: { mode: options.mode, source, counts: written.counts },

@@ -6,6 +6,7 @@ import { FLEET_FORMAT, FLEET_KINDS, FLEET_VERSION, KIND_WORDS, type FleetKind, t
 import { fleetFileSchema, fleetRecordSchemas } from './fleet-schemas';
 import { placeOf, schemaProblems, type FleetProblem } from './fleet-problems';
 import { progressCounter, type OnProgress } from './progress';
+import { validateLogs, type FleetLogs } from './fleet-logs';
 
 const MAX_ID = 64;
 
@@ -19,6 +20,8 @@ export interface FleetValidation {
   problems: FleetProblem[];
   /** False when the value is not a fleet file at all (no records were looked at). */
   envelopeOk: boolean;
+  /** The log sections (version 2), entries that passed. */
+  logs: FleetLogs;
 }
 
 function isPlainObject(x: unknown): x is Record<string, unknown> {
@@ -61,7 +64,7 @@ export function validateFleet(input: unknown, onProgress?: OnProgress): FleetVal
   const fleet = emptyRecords();
   const fileIds = emptyIds();
   const early = envelopeProblems(input);
-  if (early) return { fleet, fileIds, buildPlaces: [], problems: early, envelopeOk: false };
+  if (early) return { fleet, fileIds, buildPlaces: [], problems: early, envelopeOk: false, logs: { packEvents: [], runLogs: [] } };
   const file = input as Record<string, unknown>;
   const problems: FleetProblem[] = [];
   const known = new Set<string>(Object.keys(fleetFileSchema.entries));
@@ -117,7 +120,9 @@ export function validateFleet(input: unknown, onProgress?: OnProgress): FleetVal
   }
 
   fillSupplyIds(fleet, buildPlaces, duplicateBuilds, problems);
-  return { fleet, fileIds, buildPlaces, problems, envelopeOk: true };
+  const logs = validateLogs(file);
+  problems.push(...logs.problems);
+  return { fleet, fileIds, buildPlaces, problems, envelopeOk: true, logs: logs.logs };
 }
 
 /** Gives every supply an id and reports a supply id used twice anywhere in the file. */

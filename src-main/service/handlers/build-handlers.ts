@@ -71,7 +71,7 @@ function withSupplyIds(ctx: ServiceContext, supplies: readonly SupplyInput[]): S
   return supplies.map((s) => ({ id: s.id ?? ctx.newId('sup'), arrangement: s.arrangement, batteryIds: [...s.batteryIds] }));
 }
 
-async function requireBuild(db: DbHandle, buildId: string): Promise<Build> {
+export async function requireBuild(db: DbHandle, buildId: string): Promise<Build> {
   const found = await getBuild(db, buildId);
   if (!found) throw new ServiceError('not-found', `id: no build with id "${buildId}"`, 'id');
   return found;
@@ -101,7 +101,7 @@ export const listBuildColumns = defineHandler(listInput, async (ctx, input): Pro
 export const getBuildSheet = defineHandler(record({ id: id() }), async (ctx, input) => {
   const build = await requireBuild(ctx.db, input.id);
   const settings = await readSettings(ctx.db);
-  const [context] = await loadBuildContexts(ctx.db, byIds([build.id]), settings.tightThreshold);
+  const [context] = await loadBuildContexts(ctx.db, byIds([build.id]), settings.tightThreshold, ctx.now().toISOString());
   const evaluatedAt = await getEvaluatedAt(ctx.db, build.id);
   if (!context) throw new ServiceError('not-found', `id: no build with id "${input.id}"`, 'id');
   const verdict = evaluateBuild(context);
@@ -196,7 +196,7 @@ export const duplicateBuild = defineHandler(record({ id: id(), newId: v.optional
   return { record: outcome.result, verdict: outcome.verdicts[0] ?? null };
 });
 
-async function writeBuildPatch(
+export async function writeBuildPatch(
   ctx: ServiceContext,
   input: { id: string; expectedVersion: number; changes: Partial<Omit<BuildFields, 'supplies'>> & { supplies?: SupplyInput[]; archivedAt?: string | null }; reason: string },
   action: string,
@@ -282,7 +282,7 @@ export const previewChange = defineHandler(previewInput, async (ctx, input) => {
   }
   const ids = outcome.verdicts.map((x) => x.buildId);
   const settings = await readSettings(ctx.db);
-  const before = (await loadBuildContexts(ctx.db, byIds(ids), settings.tightThreshold)).map((context) => evaluateBuild(context));
+  const before = (await loadBuildContexts(ctx.db, byIds(ids), settings.tightThreshold, ctx.now().toISOString())).map((context) => evaluateBuild(context));
   // `skipped`: builds of the vehicle a draft pack had no place in (none for other changes).
   return { before, after: outcome.verdicts, verdictChanges: outcome.verdictChanges, skipped };
 });

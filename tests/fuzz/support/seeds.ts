@@ -164,6 +164,21 @@ export function validPayload(name: string, g: Gen, store: FuzzStore, files: Seed
   }
   if (name === 'store.backup') return { destination: `${files.sandbox}/backup-${g(fc.nat, { max: 3 })}.sqlite` };
   if (name === 'demo.load') return pick(g, [{}, { merge: true }, { merge: false }, undefined]);
+  if (name === 'packLog.list') return { batteryId: pick(g, store.ids('batteries')) };
+  if (name === 'packLog.add') {
+    const kind = pick(g, ['charge', 'discharge', 'storage', 'resistance', 'inspection']);
+    const base = { batteryId: pick(g, store.ids('batteries')), at: pick(g, ['2026-11-01', '2026-11-20T18:30', '2026-12-01']), kind, note: 'fuzz' };
+    if (kind === 'charge') return { ...base, mah: g(fc.integer, { min: 100, max: 6000 }), voltagePerCellV: 4.2 };
+    if (kind === 'discharge') return { ...base, mah: g(fc.integer, { min: 100, max: 6000 }), capacityCheck: g(fc.boolean), voltagePerCellV: 3.7 };
+    if (kind === 'storage') return { ...base, voltagePerCellV: pick(g, [3.8, 3.85, 4.2]) };
+    if (kind === 'resistance') return { ...base, cellResistancesOhm: [pick(g, [0.002, 0.004, 0.02])], temperatureC: 22 };
+    return { ...base, puffed: g(fc.boolean), damaged: g(fc.boolean) };
+  }
+  if (name === 'settings.packHealth') return pick(g, [{}, undefined]);
+  if (name === 'settings.updatePackHealth') return { resistanceGrowthShare: pick(g, [0.3, 0.5, 1]), capacityShareOfRated: pick(g, [0.7, 0.8, 0.9]), storageDays: pick(g, [1, 7, 30]) };
+  if (name === 'runLogs.preview') return { text: pick(g, ['Time (s),Current (A)\n0,1\n1,2', 'time;amps;volts\n0;1,5;8,4\n1;2;8,3']) };
+  if (name === 'runLogs.import') return { buildId: pick(g, store.ids('builds')), text: 'Time (s),Current (A),Voltage (V)\n0,10,8.3\n1,20,8.1\n2,15,8.2', name: 'fuzz' };
+  if (name === 'runLogs.list') return { buildId: pick(g, store.ids('builds')) };
   if (name === 'settings.update') return { units: pick(g, ['metric', 'imperial']), tightThreshold: pick(g, [0, 0.1, 0.15, 0.3, 0.9]), demoOffered: g(fc.boolean) };
   return null;
 }

@@ -45,6 +45,9 @@ export function valueFor(table: string, column: Pick<ColumnShape, 'name' | 'type
     after: '{}',
     supplyStatuses: '',
     actor: 'upgrade-test',
+    cellResistancesOhm: '[0.003, 0.004]',
+    samples: '{"timeS":[0,1],"currentA":[10,20]}',
+    mapping: '{}',
   };
   if (table === 'settings' && name === 'key') return ['units', 'tightThreshold', 'demoOffered'][row] ?? `key-${row}`;
   if (table === 'settings' && name === 'value') return ['"metric"', '0.2', 'true'][row] ?? '0';
