@@ -8,6 +8,7 @@ import { storeInfo } from './handlers/store-handlers';
 import { exportCsvHandler, exportFleetHandler, importCsvHandler, importFleetHandler } from './handlers/fleet-handlers';
 import { backupStoreHandler } from './handlers/backup-handlers';
 import { loadDemoHandler } from './handlers/demo-handlers';
+import { getClass, listClasses, saveClass } from './handlers/class-handlers';
 import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from './schemas/part-schemas';
 
 /**
@@ -40,6 +41,9 @@ export const handlers = {
   'vehicles.create': createHandler('vehicles', vehicleSchemas.create),
   'vehicles.update': updateHandler('vehicles', vehicleSchemas.patch),
   'vehicles.archive': archiveHandler('vehicles'),
+  'classes.list': listClasses,
+  'classes.get': getClass,
+  'classes.save': saveClass,
   'classRules.list': listHandler('classRules'),
   'classRules.get': getHandler('classRules'),
   'classRules.create': createHandler('classRules', classRuleSchemas.create),

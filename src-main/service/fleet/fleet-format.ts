@@ -1,7 +1,7 @@
 // The rigbook-fleet interchange file, version 1: the domain records as they are, grouped by
 // kind, so a file can be read by a person, written by a script and checked without a store.
 
-import type { Battery, Build, ClassRule, Controller, Motor, Propeller, Vehicle } from '../../core/domain';
+import type { Battery, Build, ClassRule, Controller, Motor, Propeller, Vehicle, VehicleClass } from '../../core/domain';
 
 export const FLEET_FORMAT = 'rigbook-fleet';
 export const FLEET_VERSION = 1;
@@ -12,7 +12,7 @@ export const FLEET_VERSION = 1;
 export const FLEET_SCHEMA_ID = 'urn:rigbook:schema:rigbook-fleet:1';
 
 /** Part kinds in the order a file lists them (and the order they are written: builds refer to them). */
-export const FLEET_PART_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classRules'] as const;
+export const FLEET_PART_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classes', 'classRules'] as const;
 export type FleetPartKind = (typeof FLEET_PART_KINDS)[number];
 export const FLEET_KINDS = [...FLEET_PART_KINDS, 'builds'] as const;
 export type FleetKind = (typeof FLEET_KINDS)[number];
@@ -23,11 +23,12 @@ export interface FleetRecords {
   controllers: Controller[];
   propellers: Propeller[];
   vehicles: Vehicle[];
+  classes: VehicleClass[];
   classRules: ClassRule[];
   builds: Build[];
 }
 
-/** A whole file. `classRules` is optional on reading; an export always writes it. */
+/** A whole file. `classes` and `classRules` are optional on reading; an export always writes them. */
 export interface FleetFile extends FleetRecords {
   /** Always written by an export; a file may leave it out. */
   $schema?: typeof FLEET_SCHEMA_ID;
@@ -42,6 +43,7 @@ export const KIND_WORDS: Readonly<Record<FleetKind, { one: string; many: string 
   controllers: { one: 'speed controller', many: 'speed controllers' },
   propellers: { one: 'propeller', many: 'propellers' },
   vehicles: { one: 'vehicle', many: 'vehicles' },
+  classes: { one: 'class', many: 'classes' },
   classRules: { one: 'class rule', many: 'class rules' },
   builds: { one: 'build', many: 'builds' },
 };
