@@ -9,6 +9,7 @@ import { exportCsvHandler, exportFleetHandler, importCsvHandler, importFleetHand
 import { backupStoreHandler } from './handlers/backup-handlers';
 import { loadDemoHandler } from './handlers/demo-handlers';
 import { getClass, listClasses, saveClass } from './handlers/class-handlers';
+import { inventoryUsage } from './handlers/inventory-handlers';
 import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from './schemas/part-schemas';
 
 /**
@@ -49,6 +50,7 @@ export const handlers = {
   'classRules.create': createHandler('classRules', classRuleSchemas.create),
   'classRules.update': updateHandler('classRules', classRuleSchemas.patch),
   'classRules.archive': archiveHandler('classRules'),
+  'inventory.usage': inventoryUsage,
   'builds.list': listBuilds,
   'builds.listColumns': listBuildColumns,
   'builds.get': getBuildSheet,
