@@ -7,4 +7,6 @@
 // 3: safe-side model: parallel shares by conductance, unloaded tip speed, run current, geared
 //    propellers, retired and repeated packs, incomplete above tight, plausibility bounds.
 // 4: pack, supply and cell-count voltages exact to the millivolt (3 × 4.2 V no longer passes 12.6 V).
-export const ENGINE_VERSION = 4;
+// 5: cells in series, motor Kv and pinion are figures a class limit can judge (a stored limit on
+//    one read incomplete before).
+export const ENGINE_VERSION = 5;
