@@ -141,5 +141,5 @@ export function generateFleet(options: GenerateOptions): FleetFile {
       tightThreshold: null,
     });
   }
-  return { format: FLEET_FORMAT, version: FLEET_VERSION, batteries, motors, controllers, propellers, vehicles, classRules: [], builds };
+  return { format: FLEET_FORMAT, version: FLEET_VERSION, batteries, motors, controllers, propellers, vehicles, classes: [], classRules: [], builds };
 }

@@ -25,6 +25,7 @@ export interface BuildInputs {
   kind: Known<VehicleKind>;
   motorCount: Known;
   kv: Known;
+  pinionTeeth: Known;
   motorResistanceOhm: Known;
   noLoadCurrentA: Known;
   motorMaxVoltageV: Known;
@@ -207,6 +208,7 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
     controllerContinuousA: controller ? positive(controller.continuousCurrentA, 'controller.continuousCurrentA') : noController,
     controllerBurstA: controller ? positive(controller.burstCurrentA, 'controller.burstCurrentA') : noController,
     finalDrive,
+    pinionTeeth: pinion,
     tireDiameterMm: positive(gearing?.tireDiameterMm, 'gearing.tireDiameterMm'),
     drivetrainEfficiency,
     massKg,

@@ -75,6 +75,15 @@ export type Gearing = RecordOf<typeof GEARING_FIELDS>;
 
 export interface Build extends RecordMeta, RecordOf<typeof BUILD_FIELDS> {}
 
+/**
+ * A racing class or a shop's policy: a name and notes. Vehicles of the class and the class's
+ * limits (ClassRule) name it by its name, so a file or a history entry written before classes
+ * were records still reads the same.
+ */
+export interface VehicleClass extends RecordMeta {
+  name: string;
+}
+
 /** A class or shop limit of the same shape as a built-in rule: a figure that must stay at or under a limit. */
 export interface ClassRule extends RecordMeta {
   className: string;

@@ -11,4 +11,6 @@
 //    estimated propeller coefficients (verdicts on them no better than tight until confirmed);
 //    run time, pack energy, hover, thrust-to-weight, motor heat, eRPM, lead wire and connector checks.
 //    and pack logs: the newest logged resistance measurement sets a pack's sag; the pack-health rule.
+//    and cells in series, motor Kv and pinion are figures a class limit can judge (a stored limit on
+//    one read incomplete before).
 export const ENGINE_VERSION = 5;

@@ -7,7 +7,8 @@ import { AUTO_BACKUP_AFTER_START_MS, AUTO_BACKUPS_KEPT, openServiceHost } from '
 import { demoFleet } from '../../demo-fixtures/demo-fleet';
 import { defaultDataDir } from '../store/data-location';
 import { handleAppProtocol, registerAppScheme } from './app-protocol';
-import { backUpInteractively } from './back-up';
+import { BACK_UP, backUpFromPage, backUpInteractively } from './back-up';
+import { exportFleetInteractively, showFleetImport } from './fleet-file-menu';
 import { createCallRelay } from './call-relay';
 import { CALL_CHANNEL, EVENT_CHANNEL } from './channels';
 import { redactUrl, withoutSecret } from '../store/store-location';
@@ -88,6 +89,12 @@ function run(dbPath: string): void {
             backUp: () => {
               backUpInteractively(opened, BrowserWindow.getFocusedWindow()).catch((error: unknown) => dialog.showErrorBox('Backup not written', error instanceof Error ? error.message : String(error)));
             },
+            importFleet: () => {
+              showFleetImport(BrowserWindow.getFocusedWindow() ?? BrowserWindow.getAllWindows()[0] ?? null).catch((error: unknown) => console.error('Opening the import failed:', error));
+            },
+            exportFleet: () => {
+              exportFleetInteractively(opened, BrowserWindow.getFocusedWindow()).catch((error: unknown) => dialog.showErrorBox('Fleet file not written', error instanceof Error ? error.message : String(error)));
+            },
             about: () => {
               void dialog.showMessageBox({
                 type: 'info',
@@ -113,7 +120,7 @@ function run(dbPath: string): void {
 }
 
 function wireIpc(host: ServiceHost): void {
-  const relay = createCallRelay<ShellCallContext>(host, { [PRINT_TO_PDF]: printToPdf }, (error) => console.error('Desktop call failed:', error));
+  const relay = createCallRelay<ShellCallContext>(host, { [PRINT_TO_PDF]: printToPdf, [BACK_UP]: backUpFromPage(host) }, (error) => console.error('Desktop call failed:', error));
   ipcMain.handle(CALL_CHANNEL, (event, name: unknown, args: unknown) => {
     if (!isTrustedSender(event.senderFrame)) throw new Error('Refused: the call did not come from the Rigbook page.');
     const refused = typeof name === 'string' ? pageCallRefusal('desktop', host.dbPath, name, args) : null;

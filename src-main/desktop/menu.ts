@@ -2,6 +2,8 @@ import type { MenuItemConstructorOptions } from 'electron';
 
 export interface MenuActions {
   backUp(): void;
+  importFleet(): void;
+  exportFleet(): void;
   about(): void;
 }
 
@@ -10,7 +12,14 @@ export function menuTemplate(actions: MenuActions, platform: NodeJS.Platform = p
   const template: MenuItemConstructorOptions[] = [
     {
       label: 'File',
-      submenu: [{ label: 'Back up…', accelerator: 'CmdOrCtrl+Shift+B', click: () => actions.backUp() }, { type: 'separator' }, { label: 'Quit', role: 'quit' }],
+      submenu: [
+        { label: 'Import fleet file…', click: () => actions.importFleet() },
+        { label: 'Export fleet file…', click: () => actions.exportFleet() },
+        { type: 'separator' },
+        { label: 'Back up…', accelerator: 'CmdOrCtrl+Shift+B', click: () => actions.backUp() },
+        { type: 'separator' },
+        { label: 'Quit', role: 'quit' },
+      ],
     },
     {
       label: 'View',

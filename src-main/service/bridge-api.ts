@@ -9,6 +9,8 @@ import type { CallResult, ServiceEvent } from './contract';
 export interface ShellCalls {
   /** Asks where to save, then writes the current page as a PDF; `saved` is false when the user cancelled. */
   'desktop.printToPdf': { input: { suggestedName?: string; landscape?: boolean }; output: { saved: boolean; path?: string } };
+  /** File › Back up… from the page: the shell's own save dialog chooses the file; `saved` is false when the user cancelled. */
+  'desktop.backUp': { input: Record<string, never>; output: { saved: boolean; path?: string } };
 }
 
 /** The property name on `window`. */

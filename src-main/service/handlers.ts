@@ -9,6 +9,8 @@ import { exportCsvHandler, exportFleetHandler, importCsvHandler, importFleetHand
 import { backupStoreHandler } from './handlers/backup-handlers';
 import { loadDemoHandler } from './handlers/demo-handlers';
 import { addPackEvent, getPackHealthSettings, getRunLogHandler, importRunLog, listPackLog, listRunLogsHandler, previewRunLog, removePackEvent, removeRunLog, updatePackHealthSettings, useRunLogFigures } from './handlers/log-handlers';
+import { getClass, listClasses, saveClass } from './handlers/class-handlers';
+import { inventoryUsage } from './handlers/inventory-handlers';
 import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from './schemas/part-schemas';
 
 /**
@@ -41,11 +43,15 @@ export const handlers = {
   'vehicles.create': createHandler('vehicles', vehicleSchemas.create),
   'vehicles.update': updateHandler('vehicles', vehicleSchemas.patch),
   'vehicles.archive': archiveHandler('vehicles'),
+  'classes.list': listClasses,
+  'classes.get': getClass,
+  'classes.save': saveClass,
   'classRules.list': listHandler('classRules'),
   'classRules.get': getHandler('classRules'),
   'classRules.create': createHandler('classRules', classRuleSchemas.create),
   'classRules.update': updateHandler('classRules', classRuleSchemas.patch),
   'classRules.archive': archiveHandler('classRules'),
+  'inventory.usage': inventoryUsage,
   'builds.list': listBuilds,
   'builds.listColumns': listBuildColumns,
   'builds.get': getBuildSheet,

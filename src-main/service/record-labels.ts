@@ -5,6 +5,7 @@ export const RECORD_LABELS = {
   controllers: 'speed controller',
   propellers: 'propeller',
   vehicles: 'vehicle',
+  classes: 'class',
   classRules: 'class rule',
   builds: 'build',
 } as const;
@@ -18,6 +19,7 @@ export const ID_PREFIXES: Record<RecordKind, string> = {
   controllers: 'esc',
   propellers: 'prop',
   vehicles: 'veh',
+  classes: 'cls',
   classRules: 'rule',
   builds: 'build',
 };

@@ -5,6 +5,7 @@ import * as verdictCurrentRule from '../../migrations/20261202-0004-verdict-curr
 import * as historySelectors from '../../migrations/20261202-0005-history-selectors';
 import * as fieldAndTypicalValues from '../../migrations/20261203-0006-field-and-typical-values';
 import * as packLogRunLogs from '../../migrations/20261203-0007-pack-log-run-logs';
+import * as classRecords from '../../migrations/20261203-0009-class-records';
 
 // Static imports rather than a folder read at run time: bundlers follow these, so the
 // packaged app carries every migration. Add each new migration here, in name order.
@@ -15,6 +16,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261202-0005-history-selectors': historySelectors,
   '20261203-0006-field-and-typical-values': fieldAndTypicalValues,
   '20261203-0007-pack-log-run-logs': packLogRunLogs,
+  '20261203-0009-class-records': classRecords,
 };
 
 export const staticMigrationProvider: MigrationProvider = {

@@ -6,7 +6,7 @@ import type { FieldCatalogue, FieldSpec, FieldValue } from '../core/catalogue/fi
 import type { MOTOR_FIELDS } from '../core/catalogue/motor-fields';
 import type { PROPELLER_FIELDS } from '../core/catalogue/propeller-fields';
 import type { VEHICLE_FIELDS } from '../core/catalogue/vehicle-fields';
-import type { ClassRule, RecordMeta } from '../core/domain';
+import type { ClassRule, RecordMeta, VehicleClass } from '../core/domain';
 
 // Column names are camelCase, the same as the rigbook-fleet fields, so rows map to records
 // without a renaming layer; Kysely quotes every identifier, which keeps this portable to
@@ -39,6 +39,8 @@ export interface ControllerTable extends Meta, ColumnsOf<typeof CONTROLLER_FIELD
 export interface PropellerTable extends Meta, ColumnsOf<typeof PROPELLER_FIELDS> {}
 
 export interface VehicleTable extends Meta, ColumnsOf<typeof VEHICLE_FIELDS> {}
+
+export interface ClassTable extends Meta, Omit<VehicleClass, keyof RecordMeta> {}
 
 export interface ClassRuleTable extends Omit<ClassRule, 'tightThreshold'>, Stamps {
   tightThreshold: number | null;
@@ -171,6 +173,7 @@ export interface Db {
   controllers: ControllerTable;
   propellers: PropellerTable;
   vehicles: VehicleTable;
+  classes: ClassTable;
   classRules: ClassRuleTable;
   builds: BuildTable;
   supplies: SupplyTable;
@@ -189,4 +192,4 @@ export type NewVerdictRow = Insertable<VerdictTable>;
 export type HistoryRow = Selectable<HistoryTable>;
 
 /** The part tables that share one shape of repository. */
-export type PartTableName = 'batteries' | 'motors' | 'controllers' | 'propellers' | 'vehicles' | 'classRules';
+export type PartTableName = 'batteries' | 'motors' | 'controllers' | 'propellers' | 'vehicles' | 'classes' | 'classRules';

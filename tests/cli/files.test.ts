@@ -112,9 +112,9 @@ describe('rigbook and fleet files from scripts and spreadsheets', () => {
     expect(out.code).toBe(0);
     expect(out.err).toMatch(/^Wrote 2 packs to /);
     const whole = await rigbook(['export', 'all.json', '--db', db], { cwd: t.dir });
-    expect(whole.err).toMatch(/^Wrote 2 builds, 2 packs, 1 motor, 1 speed controller, 0 propellers, 1 vehicle, 1 class rule to /);
+    expect(whole.err).toMatch(/^Wrote 2 builds, 2 packs, 1 motor, 1 speed controller, 0 propellers, 1 vehicle, 1 class, 1 class rule to /);
     const replaced = await rigbook(['import', 'all.json', '--mode', 'replace', '--db', db], { cwd: t.dir });
-    expect(replaced.out).toContain('Replaced what the store held: 2 packs, 1 motor, 1 speed controller, 1 vehicle, 1 class rule, 2 builds.');
+    expect(replaced.out).toContain('Replaced what the store held: 2 packs, 1 motor, 1 speed controller, 1 vehicle, 1 class, 1 class rule, 2 builds.');
     expect(replaced.out).not.toMatch(/classRules|batteries/);
   });
 

@@ -62,14 +62,14 @@ describe('contentTypeFor', () => {
 
 describe('menuTemplate', () => {
   const labels = (platform: NodeJS.Platform) =>
-    menuTemplate({ backUp: () => {}, about: () => {} }, platform).map((item) => ({
+    menuTemplate({ backUp: () => {}, importFleet: () => {}, exportFleet: () => {}, about: () => {} }, platform).map((item) => ({
       label: item.label ?? item.role,
       items: Array.isArray(item.submenu) ? item.submenu.map((sub) => sub.label ?? sub.type ?? sub.role) : [],
     }));
 
   it('is the plain File / View / Help menu', () => {
     expect(labels('linux')).toEqual([
-      { label: 'File', items: ['Back up…', 'separator', 'Quit'] },
+      { label: 'File', items: ['Import fleet file…', 'Export fleet file…', 'separator', 'Back up…', 'separator', 'Quit'] },
       { label: 'View', items: ['Reload', 'Toggle full screen'] },
       { label: 'Help', items: ['About Rigbook'] },
     ]);
@@ -79,13 +79,15 @@ describe('menuTemplate', () => {
     expect(labels('darwin').map((m) => m.label)).toEqual(['appMenu', 'File', 'editMenu', 'View', 'Help']);
   });
 
-  it('wires Back up… and About to the actions', () => {
+  it('wires the fleet files, Back up… and About to the actions', () => {
     const hits: string[] = [];
-    const template = menuTemplate({ backUp: () => hits.push('backUp'), about: () => hits.push('about') }, 'linux');
+    const template = menuTemplate({ backUp: () => hits.push('backUp'), importFleet: () => hits.push('importFleet'), exportFleet: () => hits.push('exportFleet'), about: () => hits.push('about') }, 'linux');
     const find = (label: string) => template.flatMap((m) => (Array.isArray(m.submenu) ? m.submenu : [])).find((i) => i.label === label);
     // click's real arguments are Electron objects that these handlers ignore.
+    (find('Import fleet file…')?.click as (() => void) | undefined)?.();
+    (find('Export fleet file…')?.click as (() => void) | undefined)?.();
     (find('Back up…')?.click as (() => void) | undefined)?.();
     (find('About Rigbook')?.click as (() => void) | undefined)?.();
-    expect(hits).toEqual(['backUp', 'about']);
+    expect(hits).toEqual(['importFleet', 'exportFleet', 'backUp', 'about']);
   });
 });

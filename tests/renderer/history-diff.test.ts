@@ -36,6 +36,12 @@ describe('history before → after', () => {
     expect(changedFieldsOf(before, after)).toEqual([]);
   });
 
+  it("reads a class's limits as the Classes screen lists them", () => {
+    const limit = (value: number) => ({ id: 'rule-1', figure: 'packVoltageFullV', limit: value, unit: 'V' });
+    expect(changedFieldsOf({ name: 'Club', limits: [limit(8.4)] }, { name: 'Club', limits: [limit(25.2)] })).toEqual([{ field: 'limits', before: 'Full-charge voltage ≤ 8.4 V', after: 'Full-charge voltage ≤ 25.2 V' }]);
+    expect(changedFieldsOf({ limits: [] }, { limits: [limit(8.4)] })[0]?.before).toBe('none');
+  });
+
   it('gives nothing for a creation (no before)', () => {
     expect(changedFieldsOf(null, { name: 'x' })).toEqual([]);
   });

@@ -12,6 +12,8 @@ describe('hash routes', () => {
     { name: 'parts', slug: 'controllers', id: 'esc-3' },
     { name: 'vehicles', id: null },
     { name: 'vehicles', id: 'veh-9' },
+    { name: 'classes', id: null },
+    { name: 'classes', id: 'cls-2' },
     { name: 'history', kind: null, id: null },
     { name: 'history', kind: 'batteries', id: 'pack-1' },
     { name: 'settings' },
@@ -29,6 +31,8 @@ describe('hash routes', () => {
     expect(formatRoute({ name: 'build', id: 'build-12' })).toBe('#/builds/build-12');
     expect(formatRoute({ name: 'parts', slug: 'packs', id: null })).toBe('#/parts/packs');
     expect(formatRoute({ name: 'compare', ids: ['b1', 'b2'] })).toBe('#/compare?ids=b1,b2');
+    expect(formatRoute({ name: 'classes', id: 'new' })).toBe('#/classes/new');
+    expect(tabOf({ name: 'classes', id: 'cls-2' })).toBe('classes');
     // A build named twice is compared once.
     expect(parseRoute('#/compare?ids=b1,b2,b1,')).toEqual({ name: 'compare', ids: ['b1', 'b2'] });
     expect(tabOf({ name: 'compare', ids: [] })).toBe('builds');

@@ -25,7 +25,7 @@ describe('migrations', () => {
     const t = fresh();
     const store = await openStore(t.file('a.sqlite'));
     expect(await tableNames(store.db)).toEqual(
-      ['batteries', 'builds', 'classRules', 'controllers', 'history', 'historyBuilds', 'historySelectors', 'motors', 'packEvents', 'propellers', 'runLogs', 'settings', 'supplies', 'supplyPacks', 'vehicles', 'verdicts'].sort(),
+      ['batteries', 'builds', 'classes', 'classRules', 'controllers', 'history', 'historyBuilds', 'historySelectors', 'motors', 'packEvents', 'propellers', 'runLogs', 'settings', 'supplies', 'supplyPacks', 'vehicles', 'verdicts'].sort(),
     );
     expect(store.raw.pragma('journal_mode', { simple: true })).toBe('wal');
     expect(store.raw.pragma('foreign_keys', { simple: true })).toBe(1);

@@ -40,7 +40,7 @@ follow from the records.
         return { text: out.text, summary: countOf(records, out.kind) };
       }
       const fleet = (await callOrFail(host, 'fleet.export', {})) as FleetFile;
-      const kinds = ['builds', 'batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classRules'] as const;
+      const kinds = ['builds', 'batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classes', 'classRules'] as const;
       return { text: fleetText(fleet), summary: kinds.map((k) => countOf(fleet[k].length, k)).join(', ') };
     });
     if (file === undefined || file === '-') {

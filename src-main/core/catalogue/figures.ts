@@ -10,7 +10,7 @@ export const FIGURE_STAGES = ['supply', 'controller', 'motor', 'drive', 'output'
 export type FigureStage = (typeof FIGURE_STAGES)[number];
 
 /** The physical quantity a figure measures. */
-export type FigureQuantity = 'voltage' | 'current' | 'power' | 'resistance' | 'charge' | 'rotation' | 'torque-constant' | 'ratio' | 'length' | 'speed' | 'force' | 'density' | 'time' | 'fraction' | 'energy' | 'mass';
+export type FigureQuantity = 'count' | 'motor-constant' | 'voltage' | 'current' | 'power' | 'resistance' | 'charge' | 'rotation' | 'torque-constant' | 'ratio' | 'length' | 'speed' | 'force' | 'density' | 'time' | 'fraction' | 'energy' | 'mass';
 
 /** The pack state a figure is worked out at; null where the pack voltage does not enter. */
 export type FigureCharge = 'nominal' | 'full' | 'cutoff' | null;
@@ -53,7 +53,7 @@ export interface FigureSpec {
   readonly origin: FigureOrigin;
   /** Listed on the sheet only where it has a value: it belongs to some builds only. */
   readonly optional?: true;
-  /** Not listed on the sheet (charted instead). */
+  /** Not listed on the sheet: charted instead, or an input the sheet already shows with its part. */
   readonly unlisted?: true;
   /** A second reading beside the figure: thrust as the mass it holds up. */
   readonly alt?: 'thrustMass';
@@ -108,6 +108,21 @@ const CATALOGUE = {
     charge: null,
     span: null,
     origin: 'records',
+  },
+  // Inputs repeated as figures so a class can limit them (a 2S class, a 21.5-turn motor's Kv, a
+  // spec pinion); the sheet shows them with their parts, so they are not listed again.
+  seriesCells: {
+    unit: 'S',
+    quantity: 'count',
+    decimals: 0,
+    name: 'Cells in series',
+    label: 'Cells in series',
+    stage: 'supply',
+    applies: 'all',
+    charge: null,
+    span: null,
+    origin: 'records',
+    unlisted: true,
   },
   packResistanceOhm: {
     unit: 'Ω',
@@ -291,6 +306,19 @@ const CATALOGUE = {
     span: null,
     origin: 'records',
   },
+  motorKv: {
+    unit: 'rpm/V',
+    quantity: 'motor-constant',
+    decimals: 0,
+    name: 'Motor Kv',
+    label: 'Motor Kv',
+    stage: 'motor',
+    applies: 'all',
+    charge: null,
+    span: null,
+    origin: 'records',
+    unlisted: true,
+  },
   motorPeakCurrentA: {
     unit: 'A',
     quantity: 'current',
@@ -340,6 +368,19 @@ const CATALOGUE = {
     charge: null,
     span: null,
     origin: 'records',
+  },
+  pinionTeeth: {
+    unit: 'teeth',
+    quantity: 'count',
+    decimals: 0,
+    name: 'Pinion',
+    label: 'Pinion',
+    stage: 'drive',
+    applies: 'all',
+    charge: null,
+    span: null,
+    origin: 'records',
+    unlisted: true,
   },
   rolloutMm: {
     unit: 'mm',

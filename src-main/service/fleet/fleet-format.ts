@@ -3,7 +3,7 @@
 // Version 2 adds the logs (`packEvents`, `runLogs`: service/fleet/fleet-logs.ts); a version 1
 // file, which has neither, still reads.
 
-import type { Battery, Build, ClassRule, Controller, Motor, Propeller, Vehicle } from '../../core/domain';
+import type { Battery, Build, ClassRule, Controller, Motor, Propeller, Vehicle, VehicleClass } from '../../core/domain';
 import type { PackEvent } from '../../core/pack-log';
 import type { RunLog } from '../../store/repositories/run-logs';
 
@@ -18,7 +18,7 @@ export const FLEET_VERSIONS_READ = [1, 2] as const;
 export const FLEET_SCHEMA_ID = 'urn:rigbook:schema:rigbook-fleet:2';
 
 /** Part kinds in the order a file lists them (and the order they are written: builds refer to them). */
-export const FLEET_PART_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classRules'] as const;
+export const FLEET_PART_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classes', 'classRules'] as const;
 export type FleetPartKind = (typeof FLEET_PART_KINDS)[number];
 export const FLEET_KINDS = [...FLEET_PART_KINDS, 'builds'] as const;
 export type FleetKind = (typeof FLEET_KINDS)[number];
@@ -29,11 +29,12 @@ export interface FleetRecords {
   controllers: Controller[];
   propellers: Propeller[];
   vehicles: Vehicle[];
+  classes: VehicleClass[];
   classRules: ClassRule[];
   builds: Build[];
 }
 
-/** A whole file. `classRules` is optional on reading; an export always writes it. */
+/** A whole file. `classes` and `classRules` are optional on reading; an export always writes them. */
 export interface FleetFile extends FleetRecords {
   /** Always written by an export; a file may leave it out. */
   $schema?: typeof FLEET_SCHEMA_ID;
@@ -52,6 +53,7 @@ export const KIND_WORDS: Readonly<Record<FleetKind, { one: string; many: string 
   controllers: { one: 'speed controller', many: 'speed controllers' },
   propellers: { one: 'propeller', many: 'propellers' },
   vehicles: { one: 'vehicle', many: 'vehicles' },
+  classes: { one: 'class', many: 'classes' },
   classRules: { one: 'class rule', many: 'class rules' },
   builds: { one: 'build', many: 'builds' },
 };

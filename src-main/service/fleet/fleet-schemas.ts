@@ -7,7 +7,7 @@ import * as v from 'valibot';
 import { GEARING_FIELDS } from '../../core/catalogue/build-fields';
 import { buildCreateSchema } from '../schemas/build-schemas';
 import { count, newId, nullable, record } from '../schemas/field-builders';
-import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from '../schemas/part-schemas';
+import { batterySchemas, classRuleSchemas, classSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from '../schemas/part-schemas';
 import { FLEET_FORMAT, FLEET_VERSIONS_READ, type FleetKind } from './fleet-format';
 import { packEventFileSchema, runLogFileSchema } from './fleet-logs';
 
@@ -30,6 +30,7 @@ export const fleetRecordSchemas = {
   controllers: fileRecord(controllerSchemas.create.entries),
   propellers: fileRecord(propellerSchemas.create.entries),
   vehicles: fileRecord(vehicleSchemas.create.entries),
+  classes: fileRecord(classSchemas.create.entries),
   classRules: fileRecord(classRuleSchemas.create.entries),
   builds: fileRecord(buildCreateSchema.entries),
 } as const;
@@ -41,6 +42,7 @@ export const FIELD_ORDER: Readonly<Record<FleetKind, readonly string[]>> = {
   controllers: Object.keys(fleetRecordSchemas.controllers.entries),
   propellers: Object.keys(fleetRecordSchemas.propellers.entries),
   vehicles: Object.keys(fleetRecordSchemas.vehicles.entries),
+  classes: Object.keys(fleetRecordSchemas.classes.entries),
   classRules: Object.keys(fleetRecordSchemas.classRules.entries),
   builds: Object.keys(fleetRecordSchemas.builds.entries),
 };
@@ -62,6 +64,7 @@ export const fleetFileSchema = v.strictObject({
   controllers: v.optional(v.array(fleetRecordSchemas.controllers)),
   propellers: v.optional(v.array(fleetRecordSchemas.propellers)),
   vehicles: v.optional(v.array(fleetRecordSchemas.vehicles)),
+  classes: v.optional(v.array(fleetRecordSchemas.classes)),
   classRules: v.optional(v.array(fleetRecordSchemas.classRules)),
   builds: v.optional(v.array(fleetRecordSchemas.builds)),
   packEvents: v.optional(v.array(packEventFileSchema)),

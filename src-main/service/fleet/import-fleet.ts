@@ -33,6 +33,26 @@ import { validateFleet } from './validate-fleet';
 import { readJsonText } from './read-fleet-text';
 import { lossyDecodingReason } from './decode-file-bytes';
 import { logReferenceProblems, writeLogs } from './fleet-logs';
+import { ensureClasses } from '../../store/repositories/classes';
+import { ID_PREFIXES } from '../record-labels';
+import { placeOf } from './fleet-problems';
+
+/** A class name is one class: refused where two ids in the file, or the file and the store, would share one. */
+async function classNameProblems(db: DbHandle, fleet: FleetRecords, mode: ImportMode): Promise<FleetProblem[]> {
+  const holder = new Map<string, string>();
+  if (mode === 'merge') {
+    const fileIds = new Set(fleet.classes.map((c) => c.id));
+    // Stored classes the file rewrites give up their names to the file's.
+    for (const c of await db.selectFrom('classes').select(['id', 'name']).execute()) if (!fileIds.has(c.id)) holder.set(c.name, `class "${c.id}" in the store`);
+  }
+  const problems: FleetProblem[] = [];
+  fleet.classes.forEach((c, i) => {
+    const other = holder.get(c.name);
+    if (other !== undefined) problems.push({ place: placeOf('classes', i, 'name'), message: `"${c.name}" is already the name of ${other}; a class name names one class` });
+    else holder.set(c.name, placeOf('classes', i));
+  });
+  return problems;
+}
 
 export const IMPORT_MODES = ['merge', 'replace'] as const;
 export type ImportMode = (typeof IMPORT_MODES)[number];
@@ -215,7 +235,7 @@ async function writeParts<K extends FleetPartKind>(
   return { changed, before };
 }
 
-async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, at: string, onProgress?: OnProgress): Promise<Written> {
+async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, at: string, newClassId: () => string, onProgress?: OnProgress): Promise<Written> {
   const merging = mode === 'merge';
   const written: Written = { counts: zeroCounts(), removed: null, recheck: [], changedIds: {}, changes: [] };
   if (!merging) written.removed = await clearFleetTables(trx);
@@ -234,12 +254,19 @@ async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, 
         const rule = record as PartRecords['classRules'];
         classNames.add(rule.className);
         classNames.add((before.get(rule.id) as PartRecords['classRules']).className);
+      } else if (kind === 'classes') {
+        // A class's name and notes change no verdict; its builds are re-checked all the same, as an edit in the window does.
+        classNames.add((record as PartRecords['classes']).name);
       } else {
         usedBy[kind].push(record.id);
       }
     }
     for (let i = 0; i < written.counts[kind].unchanged; i++) tick();
   }
+  // A file written before classes were records names them only on vehicles and limits: each gets its record.
+  const derived = await ensureClasses(trx, [...fleet.vehicles.map((x) => x.className), ...fleet.classRules.map((r) => r.className)], at, newClassId);
+  written.counts.classes.added += derived.length;
+  written.changedIds.classes = [...(written.changedIds.classes ?? []), ...derived.map((c) => c.id)];
 
   const storedBuilds = new Map(
     (merging && fleet.builds.length > 0
@@ -351,7 +378,9 @@ export async function importFleet(ctx: ServiceContext, input: unknown, options: 
         const logProblems = logReferenceProblems(validation.logs, { batteries: validation.fileIds.batteries, builds: validation.fileIds.builds, supplyOwners: fileSupplies }, storedIds);
         const problems = [...hintRewrittenIds(input, validation.problems, stored), ...referenceProblems(validation.fleet, validation.fileIds, stored, validation.buildPlaces), ...logProblems];
         if (problems.length > 0) throw new ImportRefused(sortProblems(problems, FLEET_KINDS));
-        written = await writeFleet(trx, validation.fleet, options.mode, at, options.onProgress);
+        const taken = await classNameProblems(trx, validation.fleet, options.mode);
+        if (taken.length > 0) throw new ImportRefused(taken);
+        written = await writeFleet(trx, validation.fleet, options.mode, at, () => ctx.newId(ID_PREFIXES.classes), options.onProgress);
         const logsWritten = await writeLogs(trx, validation.logs, at);
         // A pack's log sets its sag and health: builds using a pack whose log came in are re-checked.
         if (Array.isArray(written.recheck) && logsWritten.packIds.length > 0) {

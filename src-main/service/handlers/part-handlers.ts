@@ -5,6 +5,8 @@ import type { PartFields, PartRecords } from '../../store/repositories/part-reco
 import type { BuildSelector } from '../../store/build-selector';
 import type { DbHandle } from '../../store/db-handle';
 import { ServiceError } from '../contract';
+import { ensureClasses } from '../../store/repositories/classes';
+import type { ServiceContext } from '../service-context';
 import { defineHandler } from '../define-handler';
 import { runWrite } from '../run-write';
 import { describeChange } from '../record-diff';
@@ -20,9 +22,16 @@ const idInput = record({ id: id() });
 const listInput = v.optional(record({ includeArchived: v.optional(flag(), false) }), {});
 export const reasonField = () => v.optional(text(500), '');
 
-function affectedBuilds(table: PartTableName, record: { id: string; className?: string }): BuildSelector {
+function affectedBuilds(table: PartTableName, record: { id: string; className?: string; name?: string }): BuildSelector {
   if (table === 'classRules') return { by: 'class', className: String(record.className) };
+  if (table === 'classes') return { by: 'class', className: String(record.name) };
   return { by: 'part', kind: table, id: record.id };
+}
+
+/** A vehicle or a limit naming a class with no record yet makes the record, so the Classes screen lists it. */
+async function ensureClassOf(ctx: ServiceContext, db: DbHandle, record: object, at: string): Promise<void> {
+  const className = (record as { className?: unknown }).className;
+  if (typeof className === 'string' && className !== '') await ensureClasses(db, [className], at, () => ctx.newId(ID_PREFIXES.classes));
 }
 
 export async function requirePart<T extends PartTableName>(db: DbHandle, table: T, partId: string, field = 'id'): Promise<PartRecords[T]> {
@@ -50,6 +59,7 @@ export function createHandler<T extends PartTableName, S extends v.GenericSchema
     const outcome = await runWrite(ctx, async (trx, at) => {
       if (await getPart(trx, table, newId)) throw new ServiceError('conflict', `id: a ${RECORD_LABELS[table]} with id "${newId}" already exists`, 'id');
       const stored = await insertPart(trx, table, newId, fields as unknown as PartFields<T>, at);
+      await ensureClassOf(ctx, trx, stored, at);
       // A new pack or motor is used by no build yet; a new class rule applies to its class at once.
       const recheck: BuildSelector = table === 'classRules' ? affectedBuilds(table, stored) : { by: 'ids', ids: [] };
       return {
@@ -79,6 +89,7 @@ export async function writePartPatch<T extends PartTableName>(
       const written = await updatePartAtVersion(trx, table, input.id, input.expectedVersion, input.changes as Partial<PartFields<T>>, at);
       if (written === 0) throw conflict(table, before, input.expectedVersion);
       const after = await requirePart(trx, table, input.id);
+      await ensureClassOf(ctx, trx, after, at);
       const beforeRecord: { id: string; className?: string } = before;
       const afterRecord: { id: string; className?: string } = after;
       // A class rule moved to another class re-checks both classes' builds.

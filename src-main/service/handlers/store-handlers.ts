@@ -3,6 +3,7 @@ import { sql } from 'kysely';
 import { defineHandler } from '../define-handler';
 import { record } from '../schemas/field-builders';
 import { LATEST_MIGRATION } from '../../store/migration-provider';
+import { backupFolderFor } from '../../store/backup';
 
 const COUNTED = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'builds'] as const;
 
@@ -16,5 +17,7 @@ export const storeInfo = defineHandler(v.optional(record({}), {}), async (ctx) =
       .executeTakeFirstOrThrow();
     counts[table] = Number(row.n);
   }
-  return { schemaVersion: LATEST_MIGRATION, counts, empty: Object.values(counts).every((n) => n === 0) };
+  // Where a backup asked for from the browser goes (the only folder it may write to); null when the store is not a file.
+  const backupFolder = ctx.raw ? backupFolderFor(ctx.raw.name) : null;
+  return { schemaVersion: LATEST_MIGRATION, counts, empty: Object.values(counts).every((n) => n === 0), backupFolder };
 });

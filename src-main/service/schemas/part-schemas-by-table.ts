@@ -1,4 +1,4 @@
-import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from './part-schemas';
+import { batterySchemas, classRuleSchemas, classSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from './part-schemas';
 
 export const partSchemasByTable = {
   batteries: batterySchemas,
@@ -6,5 +6,6 @@ export const partSchemasByTable = {
   controllers: controllerSchemas,
   propellers: propellerSchemas,
   vehicles: vehicleSchemas,
+  classes: classSchemas,
   classRules: classRuleSchemas,
 } as const;

@@ -32,6 +32,9 @@ export const controllerSchemas = catalogueSchemas(CONTROLLER_FIELDS);
 export const propellerSchemas = catalogueSchemas(PROPELLER_FIELDS);
 export const vehicleSchemas = catalogueSchemas(VEHICLE_FIELDS);
 
+// A class is a name and notes; its limits are the class rules naming it.
+export const classSchemas = schemasFor({ name: name(), notes: notes() }, { notes: '' });
+
 // Class rules are a shop's own limits, not a part a user reads off a label; their fields are listed here.
 export const classRuleSchemas = schemasFor(
   {

@@ -1,4 +1,4 @@
-import type { Battery, ClassRule, Controller, Motor, Propeller, Vehicle } from '../../core/domain';
+import type { Battery, ClassRule, Controller, Motor, Propeller, Vehicle, VehicleClass } from '../../core/domain';
 import type { FieldSpec } from '../../core/catalogue/field-spec';
 import { FIELD_CATALOGUES } from '../../core/catalogue/record-kinds';
 import type { PartTableName } from '../schema';
@@ -10,6 +10,7 @@ export interface PartRecords {
   controllers: Controller;
   propellers: Propeller;
   vehicles: Vehicle;
+  classes: VehicleClass;
   classRules: ClassRule;
 }
 

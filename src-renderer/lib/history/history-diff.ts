@@ -1,4 +1,5 @@
 // Before → after of the fields a history entry changed, as short readable pairs.
+import { FIGURES, isFigureKey } from '$core/catalogue/figures';
 import { localDateTime } from '../format/date';
 
 export interface FieldChange {
@@ -40,6 +41,9 @@ export function changedFieldsOf(before: unknown, after: unknown, nameOf?: NameOf
     if (JSON.stringify(b) === JSON.stringify(a)) continue;
     if (isPlainObject(b) && isPlainObject(a)) {
       for (const inner of changedFieldsOf(b, a, nameOf)) out.push({ ...inner, field: `${key}.${inner.field}` });
+    } else if (key === 'limits' && Array.isArray(b) && Array.isArray(a)) {
+      // A class's limits, as the Classes screen lists them.
+      out.push({ field: key, before: limitsText(b), after: limitsText(a) });
     } else if (key === 'supplies' && Array.isArray(b) && Array.isArray(a)) {
       const bt = suppliesText(b, nameOf);
       const at = suppliesText(a, nameOf);
@@ -50,6 +54,18 @@ export function changedFieldsOf(before: unknown, after: unknown, nameOf?: NameOf
     }
   }
   return out;
+}
+
+function limitsText(list: unknown[]): string {
+  const text = list
+    .filter(isPlainObject)
+    .map((l) => {
+      const figure = String(l.figure);
+      const label = isFigureKey(figure) ? FIGURES[figure].label : figure;
+      return `${label} ≤ ${String(l.limit)} ${String(l.unit ?? '')}`.trim();
+    })
+    .join('; ');
+  return text === '' ? 'none' : text;
 }
 
 function suppliesText(list: unknown[], nameOf: NameOf = (id) => id): string {

@@ -51,7 +51,7 @@ export const SURFACE_LABELS: Readonly<Record<string, string>> = { '': 'not recor
 
 /** What the parts table shows of each kind, besides every field on the form. */
 const COLUMNS: Readonly<Record<PartTable, readonly string[]>> = {
-  batteries: ['name', 'chemistry', 'cellsSeries', 'capacityMah', 'cRatingContinuous', 'cRatingBurst', 'cycleCount'],
+  batteries: ['name', 'chemistry', 'cellsSeries', 'cellsParallel', 'capacityMah', 'cRatingContinuous', 'cRatingBurst', 'cycleCount'],
   motors: ['name', 'kv', 'resistanceOhm', 'noLoadCurrentA', 'maxCurrentA', 'maxPowerW'],
   controllers: ['name', 'maxVoltageV', 'maxCells', 'continuousCurrentA', 'burstCurrentA'],
   propellers: ['name', 'diameterMm', 'pitchMm', 'blades', 'thrustCoefficient', 'powerCoefficient'],

@@ -16,6 +16,7 @@ export type Route =
   | { name: 'compare'; ids: string[]; of?: CompareOf }
   | { name: 'parts'; slug: PartSlug; id: string | null }
   | { name: 'vehicles'; id: string | null }
+  | { name: 'classes'; id: string | null }
   | { name: 'history'; kind: HistoryKind | null; id: string | null }
   | { name: 'settings' };
 
@@ -25,7 +26,7 @@ export type Route =
  */
 export type CompareOf = { supplies: true } | { change: string; title: string };
 
-export type Tab = 'builds' | 'parts' | 'vehicles' | 'history' | 'settings';
+export type Tab = 'builds' | 'parts' | 'vehicles' | 'classes' | 'history' | 'settings';
 
 const isPartSlug = (s: string | undefined): s is PartSlug => (PART_SLUGS as readonly string[]).includes(s ?? '');
 const isHistoryKind = (s: string | undefined): s is HistoryKind => (HISTORY_KINDS as readonly string[]).includes(s ?? '');
@@ -80,6 +81,8 @@ export function parseRoute(hash: string): Route {
       return { name: 'parts', slug: isPartSlug(a) ? a : 'packs', id: isPartSlug(a) ? decode(b) : null };
     case 'vehicles':
       return { name: 'vehicles', id: decode(a) };
+    case 'classes':
+      return { name: 'classes', id: decode(a) };
     case 'history':
       return isHistoryKind(a) && decode(b) !== null ? { name: 'history', kind: a, id: decode(b) } : { name: 'history', kind: null, id: null };
     case 'settings':
@@ -117,6 +120,8 @@ export function formatRoute(route: Route): string {
       return route.id === null ? `#/parts/${route.slug}` : `#/parts/${route.slug}/${enc(route.id)}`;
     case 'vehicles':
       return route.id === null ? '#/vehicles' : `#/vehicles/${enc(route.id)}`;
+    case 'classes':
+      return route.id === null ? '#/classes' : `#/classes/${enc(route.id)}`;
     case 'history':
       return route.kind !== null && route.id !== null ? `#/history/${route.kind}/${enc(route.id)}` : '#/history';
     case 'settings':
