@@ -8,7 +8,8 @@ import { storeInfo } from './handlers/store-handlers';
 import { exportCsvHandler, exportFleetHandler, importCsvHandler, importFleetHandler } from './handlers/fleet-handlers';
 import { backupStoreHandler } from './handlers/backup-handlers';
 import { loadDemoHandler } from './handlers/demo-handlers';
-import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from './schemas/part-schemas';
+import { addWorkStep, getWorkOrderHandler, listWorkOrdersHandler, openWorkOrder, setWorkOrderStatus } from './handlers/work-order-handlers';
+import { batterySchemas, classRuleSchemas, controllerSchemas, customerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from './schemas/part-schemas';
 
 /**
  * The one contract between the UI (or the command line) and the data. Both shells relay
@@ -45,6 +46,11 @@ export const handlers = {
   'classRules.create': createHandler('classRules', classRuleSchemas.create),
   'classRules.update': updateHandler('classRules', classRuleSchemas.patch),
   'classRules.archive': archiveHandler('classRules'),
+  'customers.list': listHandler('customers'),
+  'customers.get': getHandler('customers'),
+  'customers.create': createHandler('customers', customerSchemas.create),
+  'customers.update': updateHandler('customers', customerSchemas.patch),
+  'customers.archive': archiveHandler('customers'),
   'builds.list': listBuilds,
   'builds.listColumns': listBuildColumns,
   'builds.get': getBuildSheet,
@@ -53,6 +59,11 @@ export const handlers = {
   'builds.archive': archiveBuild,
   'builds.duplicate': duplicateBuild,
   'builds.preview': previewChange,
+  'workOrders.open': openWorkOrder,
+  'workOrders.addStep': addWorkStep,
+  'workOrders.setStatus': setWorkOrderStatus,
+  'workOrders.list': listWorkOrdersHandler,
+  'workOrders.get': getWorkOrderHandler,
   'history.list': listHistoryEntries,
   'settings.get': getSettings,
   'settings.update': updateSettings,

@@ -7,6 +7,7 @@ export const RECORD_LABELS = {
   vehicles: 'vehicle',
   classRules: 'class rule',
   builds: 'build',
+  customers: 'customer',
 } as const;
 
 export type RecordKind = keyof typeof RECORD_LABELS;
@@ -20,4 +21,5 @@ export const ID_PREFIXES: Record<RecordKind, string> = {
   vehicles: 'veh',
   classRules: 'rule',
   builds: 'build',
+  customers: 'cust',
 };

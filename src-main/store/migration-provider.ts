@@ -3,6 +3,7 @@ import * as initial from '../../migrations/20261202-0001-initial';
 import * as safeSideInputs from '../../migrations/20261202-0002-safe-side-inputs';
 import * as verdictCurrentRule from '../../migrations/20261202-0004-verdict-current-rule';
 import * as historySelectors from '../../migrations/20261202-0005-history-selectors';
+import * as customersAndWorkOrders from '../../migrations/20261203-0008-customers-and-work-orders';
 
 // Static imports rather than a folder read at run time: bundlers follow these, so the
 // packaged app carries every migration. Add each new migration here, in name order.
@@ -11,6 +12,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261202-0002-safe-side-inputs': safeSideInputs,
   '20261202-0004-verdict-current-rule': verdictCurrentRule,
   '20261202-0005-history-selectors': historySelectors,
+  '20261203-0008-customers-and-work-orders': customersAndWorkOrders,
 };
 
 export const staticMigrationProvider: MigrationProvider = {

@@ -1,7 +1,7 @@
 // The rigbook-fleet interchange file, version 1: the domain records as they are, grouped by
 // kind, so a file can be read by a person, written by a script and checked without a store.
 
-import type { Battery, Build, ClassRule, Controller, Motor, Propeller, Vehicle } from '../../core/domain';
+import type { Battery, Build, ClassRule, Controller, Customer, Motor, Propeller, Vehicle } from '../../core/domain';
 
 export const FLEET_FORMAT = 'rigbook-fleet';
 export const FLEET_VERSION = 1;
@@ -11,8 +11,8 @@ export const FLEET_VERSION = 1;
  */
 export const FLEET_SCHEMA_ID = 'urn:rigbook:schema:rigbook-fleet:1';
 
-/** Part kinds in the order a file lists them (and the order they are written: builds refer to them). */
-export const FLEET_PART_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classRules'] as const;
+/** Part kinds in the order a file lists them (and the order they are written: vehicles refer to customers, builds to the rest). */
+export const FLEET_PART_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'customers', 'vehicles', 'classRules'] as const;
 export type FleetPartKind = (typeof FLEET_PART_KINDS)[number];
 export const FLEET_KINDS = [...FLEET_PART_KINDS, 'builds'] as const;
 export type FleetKind = (typeof FLEET_KINDS)[number];
@@ -22,6 +22,8 @@ export interface FleetRecords {
   motors: Motor[];
   controllers: Controller[];
   propellers: Propeller[];
+  /** Optional in a file: one written before customers were records has none (its vehicles may carry `owner` text). */
+  customers: Customer[];
   vehicles: Vehicle[];
   classRules: ClassRule[];
   builds: Build[];
@@ -41,6 +43,7 @@ export const KIND_WORDS: Readonly<Record<FleetKind, { one: string; many: string 
   motors: { one: 'motor', many: 'motors' },
   controllers: { one: 'speed controller', many: 'speed controllers' },
   propellers: { one: 'propeller', many: 'propellers' },
+  customers: { one: 'customer', many: 'customers' },
   vehicles: { one: 'vehicle', many: 'vehicles' },
   classRules: { one: 'class rule', many: 'class rules' },
   builds: { one: 'build', many: 'builds' },

@@ -6,8 +6,8 @@
 import * as v from 'valibot';
 import { GEARING_FIELDS } from '../../core/catalogue/build-fields';
 import { buildCreateSchema } from '../schemas/build-schemas';
-import { count, newId, nullable, record } from '../schemas/field-builders';
-import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from '../schemas/part-schemas';
+import { count, newId, nullable, record, text } from '../schemas/field-builders';
+import { batterySchemas, classRuleSchemas, controllerSchemas, customerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from '../schemas/part-schemas';
 import { FLEET_FORMAT, FLEET_VERSION, type FleetKind } from './fleet-format';
 
 const MAX_VERSION = 1_000_000_000;
@@ -28,7 +28,10 @@ export const fleetRecordSchemas = {
   motors: fileRecord(motorSchemas.create.entries),
   controllers: fileRecord(controllerSchemas.create.entries),
   propellers: fileRecord(propellerSchemas.create.entries),
-  vehicles: fileRecord(vehicleSchemas.create.entries),
+  customers: fileRecord(customerSchemas.create.entries),
+  // `owner` is the free text files carried before customers were records: validateFleet turns it
+  // into a customer (core/customer-id.ts) and no record keeps it.
+  vehicles: fileRecord({ ...vehicleSchemas.create.entries, owner: v.optional(text(120)) }),
   classRules: fileRecord(classRuleSchemas.create.entries),
   builds: fileRecord(buildCreateSchema.entries),
 } as const;
@@ -39,7 +42,8 @@ export const FIELD_ORDER: Readonly<Record<FleetKind, readonly string[]>> = {
   motors: Object.keys(fleetRecordSchemas.motors.entries),
   controllers: Object.keys(fleetRecordSchemas.controllers.entries),
   propellers: Object.keys(fleetRecordSchemas.propellers.entries),
-  vehicles: Object.keys(fleetRecordSchemas.vehicles.entries),
+  customers: Object.keys(fleetRecordSchemas.customers.entries),
+  vehicles: Object.keys(fleetRecordSchemas.vehicles.entries).filter((key) => key !== 'owner'),
   classRules: Object.keys(fleetRecordSchemas.classRules.entries),
   builds: Object.keys(fleetRecordSchemas.builds.entries),
 };
@@ -60,6 +64,7 @@ export const fleetFileSchema = v.strictObject({
   motors: v.optional(v.array(fleetRecordSchemas.motors)),
   controllers: v.optional(v.array(fleetRecordSchemas.controllers)),
   propellers: v.optional(v.array(fleetRecordSchemas.propellers)),
+  customers: v.optional(v.array(fleetRecordSchemas.customers)),
   vehicles: v.optional(v.array(fleetRecordSchemas.vehicles)),
   classRules: v.optional(v.array(fleetRecordSchemas.classRules)),
   builds: v.optional(v.array(fleetRecordSchemas.builds)),

@@ -229,6 +229,8 @@ async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, 
   for (const kind of FLEET_PART_KINDS) {
     const { changed, before } = await writeParts(trx, kind, fleet[kind] as PartRecords[typeof kind][], merging, at, written, tick);
     for (const record of changed) {
+      // A customer's name or contact changes no build's figures.
+      if (kind === 'customers') continue;
       if (kind === 'classRules') {
         const rule = record as PartRecords['classRules'];
         classNames.add(rule.className);
@@ -347,7 +349,9 @@ export async function importFleet(ctx: ServiceContext, input: unknown, options: 
         if (options.requireEmptyStore) await refuseUnlessEmpty(trx);
         const problems = [...hintRewrittenIds(input, validation.problems, stored), ...referenceProblems(validation.fleet, validation.fileIds, stored, validation.buildPlaces)];
         if (problems.length > 0) throw new ImportRefused(sortProblems(problems, FLEET_KINDS));
-        written = await writeFleet(trx, validation.fleet, options.mode, at, options.onProgress);
+        // A customer made from an old file's owner text leaves a stored one of that id as it is (its contact and notes were typed since).
+        const fleet = { ...validation.fleet, customers: validation.fleet.customers.filter((c) => !(validation.ownerCustomerIds.has(c.id) && stored.customers.has(c.id))) };
+        written = await writeFleet(trx, fleet, options.mode, at, options.onProgress);
         if (!options.acceptChanges) {
           const suspect = written.changes.flatMap((record) => record.fields.filter((f) => f.suspect !== null).map((f) => ({ place: '', message: suspectMessage(record, f) })));
           if (suspect.length > 0) throw new ImportRefused(suspect, written.changes);

@@ -1,6 +1,7 @@
 import * as v from 'valibot';
 import { BATTERY_FIELDS } from '../../core/catalogue/battery-fields';
 import { CONTROLLER_FIELDS } from '../../core/catalogue/controller-fields';
+import { CUSTOMER_FIELDS } from '../../core/catalogue/customer-fields';
 import type { FieldCatalogue } from '../../core/catalogue/field-spec';
 import { MOTOR_FIELDS } from '../../core/catalogue/motor-fields';
 import { PROPELLER_FIELDS } from '../../core/catalogue/propeller-fields';
@@ -31,6 +32,7 @@ export const motorSchemas = catalogueSchemas(MOTOR_FIELDS);
 export const controllerSchemas = catalogueSchemas(CONTROLLER_FIELDS);
 export const propellerSchemas = catalogueSchemas(PROPELLER_FIELDS);
 export const vehicleSchemas = catalogueSchemas(VEHICLE_FIELDS);
+export const customerSchemas = catalogueSchemas(CUSTOMER_FIELDS);
 
 // Class rules are a shop's own limits, not a part a user reads off a label; their fields are listed here.
 export const classRuleSchemas = schemasFor(
