@@ -43,7 +43,7 @@ export interface VerdictSnapshot {
   /** null: the build had not been checked. */
   status: Status | null;
   /** The checks that were not clear, in the sheet's words. */
-  findings: { rule: string; status: Status; message: string }[];
+  findings: { rule: string; status: Status; message: string; unit: string }[];
 }
 
 export interface WorkStep {

@@ -16,6 +16,11 @@ describe('hash routes', () => {
     { name: 'history', kind: 'batteries', id: 'pack-1' },
     { name: 'settings' },
     { name: 'compare', ids: ['build-1', 'a,b', 'build-3'] },
+    { name: 'customers', id: null },
+    { name: 'customers', id: 'cust-dana-1a2b3c4d' },
+    { name: 'work-order', id: 'job-4' },
+    { name: 'work-order-new', vehicleId: null },
+    { name: 'work-order-new', vehicleId: 'veh 9' },
   ];
 
   it('reads back every route it writes, so a reload opens the same screen', () => {
@@ -29,6 +34,10 @@ describe('hash routes', () => {
     // A build named twice is compared once.
     expect(parseRoute('#/compare?ids=b1,b2,b1,')).toEqual({ name: 'compare', ids: ['b1', 'b2'] });
     expect(tabOf({ name: 'compare', ids: [] })).toBe('builds');
+    expect(formatRoute({ name: 'work-order', id: 'job-4' })).toBe('#/jobs/job-4');
+    expect(formatRoute({ name: 'work-order-new', vehicleId: 'veh-9' })).toBe('#/jobs/new?vehicle=veh-9');
+    // A work order belongs with the customers it is done for.
+    expect(tabOf({ name: 'work-order', id: 'job-4' })).toBe('customers');
   });
 
   it('opens the builds list for an empty or unknown address, and packs for an unknown part kind', () => {

@@ -35,7 +35,7 @@ export async function vehicleSnapshot(db: DbHandle, vehicleId: string): Promise<
       for (const f of supply.findings) {
         if (f.status === 'clear' || seen.has(f.message)) continue;
         seen.add(f.message);
-        findings.push({ rule: f.rule, status: f.status, message: f.message });
+        findings.push({ rule: f.rule, status: f.status, message: f.message, unit: f.unit });
       }
     }
     return [{ buildId: build.id, buildName: build.name, status: verdict.status, findings }];

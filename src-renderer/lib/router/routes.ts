@@ -17,9 +17,12 @@ export type Route =
   | { name: 'parts'; slug: PartSlug; id: string | null }
   | { name: 'vehicles'; id: string | null }
   | { name: 'history'; kind: HistoryKind | null; id: string | null }
-  | { name: 'settings' };
+  | { name: 'settings' }
+  | { name: 'customers'; id: string | null }
+  | { name: 'work-order'; id: string }
+  | { name: 'work-order-new'; vehicleId: string | null };
 
-export type Tab = 'builds' | 'parts' | 'vehicles' | 'history' | 'settings';
+export type Tab = 'builds' | 'parts' | 'vehicles' | 'history' | 'settings' | 'customers';
 
 const isPartSlug = (s: string | undefined): s is PartSlug => (PART_SLUGS as readonly string[]).includes(s ?? '');
 const isHistoryKind = (s: string | undefined): s is HistoryKind => (HISTORY_KINDS as readonly string[]).includes(s ?? '');
@@ -78,6 +81,13 @@ export function parseRoute(hash: string): Route {
       return isHistoryKind(a) && decode(b) !== null ? { name: 'history', kind: a, id: decode(b) } : { name: 'history', kind: null, id: null };
     case 'settings':
       return { name: 'settings' };
+    case 'customers':
+      return { name: 'customers', id: decode(a) };
+    case 'jobs': {
+      if (a === 'new') return { name: 'work-order-new', vehicleId: new URLSearchParams(search).get('vehicle') };
+      const id = decode(a);
+      return id === null ? { name: 'customers', id: null } : { name: 'work-order', id };
+    }
     case 'compare':
       return { name: 'compare', ids: compareIds(search) };
     default:
@@ -109,6 +119,12 @@ export function formatRoute(route: Route): string {
       return route.kind !== null && route.id !== null ? `#/history/${route.kind}/${enc(route.id)}` : '#/history';
     case 'settings':
       return '#/settings';
+    case 'customers':
+      return route.id === null ? '#/customers' : `#/customers/${enc(route.id)}`;
+    case 'work-order':
+      return `#/jobs/${enc(route.id)}`;
+    case 'work-order-new':
+      return route.vehicleId ? `#/jobs/new?${new URLSearchParams({ vehicle: route.vehicleId }).toString()}` : '#/jobs/new';
     case 'compare':
       return `#/compare?ids=${route.ids.map(enc).join(',')}`;
   }
@@ -123,6 +139,9 @@ export function tabOf(route: Route): Tab {
     case 'build-swap':
     case 'compare':
       return 'builds';
+    case 'work-order':
+    case 'work-order-new':
+      return 'customers';
     default:
       return route.name;
   }
