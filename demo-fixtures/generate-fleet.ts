@@ -143,5 +143,5 @@ export function generateFleet(options: GenerateOptions): FleetFile {
       tightThreshold: null,
     });
   }
-  return { format: FLEET_FORMAT, version: FLEET_VERSION, batteries, motors, controllers, propellers, customers, vehicles, classRules: [], builds };
+  return { format: FLEET_FORMAT, version: FLEET_VERSION, batteries, motors, controllers, propellers, customers, vehicles, classRules: [], builds, workOrders: [] };
 }

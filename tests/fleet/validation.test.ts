@@ -121,7 +121,10 @@ describe('a fleet file is checked whole before anything is written', () => {
     const result = inspectFleet({ format: 'rigbook-fleet', version: 1, packs: [], motors: {} });
     expect(result.ok).toBe(false);
     if (result.ok) return;
-    expect(result.problems.map(problemLine)).toEqual(['packs: is not part of a rigbook-fleet file (it holds: batteries, motors, controllers, propellers, customers, vehicles, classRules, builds)', 'motors: must be a list of motors']);
+    expect(result.problems.map(problemLine)).toEqual([
+      'packs: is not part of a rigbook-fleet file (it holds: batteries, motors, controllers, propellers, customers, vehicles, classRules, builds, workOrders)',
+      'motors: must be a list of motors',
+    ]);
   });
 
   it('a field with an odd name is still named exactly', () => {

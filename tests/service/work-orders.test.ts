@@ -110,3 +110,46 @@ forEachEngine((engine) => {
     });
   });
 });
+
+forEachEngine((engine) => {
+  let g: ServiceFixture;
+  beforeEach(async () => {
+    f = await serviceFixture(engine);
+    g = await serviceFixture(engine);
+  });
+  afterEach(async () => {
+    await f.close();
+    await g.close();
+  });
+
+  describe('work orders in fleet files', () => {
+    it('export and import carry work orders with their steps and snapshots; links stay only where the entry is in the store', async () => {
+      const seed = await seedTwoBuggies(f);
+      const customer = await f.call('customers.create', { name: 'Ravi Lindqvist' });
+      await f.call('vehicles.update', { id: seed.vehicle.id, expectedVersion: seed.vehicle.version, changes: { customerId: customer.id } });
+      const order = await f.call('workOrders.open', { vehicleId: seed.vehicle.id, complaint: 'Stutters at launch' });
+      const [entry] = await f.call('history.list', { limit: 1 });
+      await f.call('workOrders.addStep', { id: order.id, kind: 'checked', text: 'Sensor lead loose', historyIds: [entry!.id] });
+      const file = await f.call('fleet.export', {});
+      expect(file.workOrders.map((o) => [o.id, o.status, o.steps.length])).toEqual([[order.id, 'open', 1]]);
+
+      // The same store reads its own export back unchanged.
+      const again = await f.call('fleet.import', { fleet: file, mode: 'merge' });
+      expect(again.counts.workOrders).toEqual({ added: 0, updated: 0, unchanged: 1 });
+      // Another store gets the work order whole; the link to an entry it does not hold is dropped.
+      const other = await g.call('fleet.import', { fleet: file, mode: 'merge' });
+      expect(other.problems).toEqual([]);
+      expect(other.counts.workOrders).toEqual({ added: 1, updated: 0, unchanged: 0 });
+      const copied = await g.call('workOrders.get', { id: order.id });
+      expect(copied.order).toMatchObject({ complaint: 'Stutters at launch', customerId: customer.id, verdictsAtOpening: order.verdictsAtOpening });
+      expect(copied.order.steps.map((s) => [s.text, s.historyIds])).toEqual([['Sensor lead loose', []]]);
+      expect((await f.call('workOrders.get', { id: order.id })).order.steps[0]!.historyIds).toEqual([entry!.id]);
+
+      // A work order naming a vehicle that is nowhere is refused with its place; nothing is written.
+      const broken = { ...file, workOrders: [{ ...file.workOrders[0]!, id: 'job-x', vehicleId: 'veh-nowhere' }] };
+      const refused = await g.call('fleet.import', { fleet: broken, mode: 'merge' });
+      expect(refused.ok).toBe(false);
+      expect(refused.problems).toContainEqual({ place: 'workOrders[0].vehicleId', message: 'no vehicle with id "veh-nowhere" in this file or the store' });
+    });
+  });
+});

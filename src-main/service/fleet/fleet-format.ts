@@ -2,6 +2,7 @@
 // kind, so a file can be read by a person, written by a script and checked without a store.
 
 import type { Battery, Build, ClassRule, Controller, Customer, Motor, Propeller, Vehicle } from '../../core/domain';
+import type { WorkOrder } from '../../core/work-order';
 
 export const FLEET_FORMAT = 'rigbook-fleet';
 export const FLEET_VERSION = 1;
@@ -14,7 +15,7 @@ export const FLEET_SCHEMA_ID = 'urn:rigbook:schema:rigbook-fleet:1';
 /** Part kinds in the order a file lists them (and the order they are written: vehicles refer to customers, builds to the rest). */
 export const FLEET_PART_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'customers', 'vehicles', 'classRules'] as const;
 export type FleetPartKind = (typeof FLEET_PART_KINDS)[number];
-export const FLEET_KINDS = [...FLEET_PART_KINDS, 'builds'] as const;
+export const FLEET_KINDS = [...FLEET_PART_KINDS, 'builds', 'workOrders'] as const;
 export type FleetKind = (typeof FLEET_KINDS)[number];
 
 export interface FleetRecords {
@@ -27,6 +28,8 @@ export interface FleetRecords {
   vehicles: Vehicle[];
   classRules: ClassRule[];
   builds: Build[];
+  /** Optional in a file. Steps keep the history entry numbers they link; those belong to the store they were made in. */
+  workOrders: WorkOrder[];
 }
 
 /** A whole file. `classRules` is optional on reading; an export always writes it. */
@@ -47,4 +50,5 @@ export const KIND_WORDS: Readonly<Record<FleetKind, { one: string; many: string 
   vehicles: { one: 'vehicle', many: 'vehicles' },
   classRules: { one: 'class rule', many: 'class rules' },
   builds: { one: 'build', many: 'builds' },
+  workOrders: { one: 'work order', many: 'work orders' },
 };

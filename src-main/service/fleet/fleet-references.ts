@@ -36,6 +36,14 @@ export function referenceProblems(fleet: FleetRecords, fileIds: Readonly<Record<
     problems.push({ place, message: `no ${KIND_WORDS[kind].one} with id "${id}" ${where}` });
   };
   fleet.vehicles.forEach((vehicle, i) => check(placeOf('vehicles', i, 'customerId'), 'customers', vehicle.customerId ?? null));
+  fleet.workOrders.forEach((order, i) => {
+    check(placeOf('workOrders', i, 'vehicleId'), 'vehicles', order.vehicleId);
+    check(placeOf('workOrders', i, 'customerId'), 'customers', order.customerId);
+    // A handed-over job carries when, and the verdicts it was handed over with.
+    if (order.status === 'handed-over' && (order.handedOverAt === null || order.verdictsAtHandOver === null)) {
+      problems.push({ place: placeOf('workOrders', i, 'handedOverAt'), message: 'a handed-over work order needs handedOverAt and verdictsAtHandOver' });
+    }
+  });
   const packNames = new Map(fleet.batteries.map((p) => [p.id, p.name]));
   fleet.builds.forEach((build, b) => {
     const at = placeOf('builds', buildPlaces[b] ?? 0);

@@ -29,11 +29,11 @@ function isPlainObject(x: unknown): x is Record<string, unknown> {
 }
 
 function emptyIds(): Record<FleetKind, Set<string>> {
-  return { batteries: new Set(), motors: new Set(), controllers: new Set(), propellers: new Set(), customers: new Set(), vehicles: new Set(), classRules: new Set(), builds: new Set() };
+  return { batteries: new Set(), motors: new Set(), controllers: new Set(), propellers: new Set(), customers: new Set(), vehicles: new Set(), classRules: new Set(), builds: new Set(), workOrders: new Set() };
 }
 
 function emptyRecords(): FleetRecords {
-  return { batteries: [], motors: [], controllers: [], propellers: [], customers: [], vehicles: [], classRules: [], builds: [] };
+  return { batteries: [], motors: [], controllers: [], propellers: [], customers: [], vehicles: [], classRules: [], builds: [], workOrders: [] };
 }
 
 /** The id a supply gets when a file leaves it out: stable, so reading the file twice gives the same ids. */

@@ -127,3 +127,46 @@ export async function existingHistoryIds(db: DbHandle, ids: readonly number[]): 
     .execute();
   return new Set(rows.map((r) => Number(r.id)));
 }
+
+/** Writes a whole work order as a file carries it (an import): its row at the given version, and its steps. */
+export async function writeWholeWorkOrder(db: DbHandle, order: WorkOrder, now: string): Promise<void> {
+  await db.deleteFrom('workOrderSteps').where('workOrderId', '=', order.id).execute();
+  await db.deleteFrom('workOrders').where('id', '=', order.id).execute();
+  await db
+    .insertInto('workOrders')
+    .values({
+      id: order.id,
+      version: order.version,
+      vehicleId: order.vehicleId,
+      customerId: order.customerId,
+      complaint: order.complaint,
+      status: order.status,
+      openedAt: order.openedAt,
+      handedOverAt: order.handedOverAt,
+      signedOffBy: order.signedOffBy,
+      verdictsAtOpening: JSON.stringify(order.verdictsAtOpening),
+      verdictsAtHandOver: order.verdictsAtHandOver === null ? null : JSON.stringify(order.verdictsAtHandOver),
+      createdAt: now,
+      updatedAt: now,
+    })
+    .execute();
+  for (const step of order.steps) {
+    await db
+      .insertInto('workOrderSteps')
+      .values({ workOrderId: order.id, position: step.position, kind: step.kind, text: step.text, reason: step.reason, at: step.at, actor: step.actor, historyIds: JSON.stringify(step.historyIds) })
+      .execute();
+  }
+}
+
+/** Every work order with its steps, opened first first: what an export writes. */
+export async function loadAllWorkOrders(db: DbHandle): Promise<WorkOrder[]> {
+  const rows = await db.selectFrom('workOrders').selectAll().orderBy('openedAt').orderBy('id').execute();
+  const steps = await db.selectFrom('workOrderSteps').selectAll().orderBy('workOrderId').orderBy('position').execute();
+  const byOrder = new Map<string, WorkStep[]>();
+  for (const s of steps) {
+    const list = byOrder.get(s.workOrderId) ?? [];
+    list.push(toStep(s));
+    byOrder.set(s.workOrderId, list);
+  }
+  return rows.map((row) => toOrder(row, byOrder.get(row.id) ?? []));
+}
