@@ -1,4 +1,4 @@
-import type { Kysely, Transaction } from 'kysely';
+import { sql, type Kysely, type Transaction } from 'kysely';
 import { columnTypes } from './support/column-types';
 
 // Customers become records: each distinct owner text of a vehicle becomes one customer (the
@@ -35,6 +35,23 @@ function customerIdForOwner(owner: string): string {
     .slice(0, 40)
     .replace(/-+$/, '');
   return `cust-${slug === '' ? '' : `${slug}-`}${textTag(owner)}`;
+}
+
+async function moveOwnerBack(t: AnyTrx): Promise<void> {
+  const definition = (await sql<{ sql: string }>`select sql from sqlite_master where type = 'table' and name = 'vehicles'`.execute(t)).rows[0]?.sql ?? '';
+  const owner = /,\s*("owner" [^,()]*(?:\([^)]*\)[^,()]*)*)\)\s*$/u.exec(definition);
+  if (!owner || !definition.includes('"className"')) throw new Error('the vehicles table is not as this migration left it');
+  const moved = definition
+    .slice(0, owner.index)
+    .concat(')')
+    .replace('"className"', `${owner[1]}, "className"`)
+    .replace(/^create table "vehicles"/iu, 'create table "vehiclesDown"');
+  const columns = (await sql<{ name: string }>`select name from pragma_table_info('vehicles')`.execute(t)).rows.map((c) => `"${c.name}"`).join(', ');
+  await sql.raw(moved).execute(t);
+  await sql.raw(`insert into "vehiclesDown" (${columns}) select ${columns} from "vehicles"`).execute(t);
+  await t.schema.dropTable('vehicles').execute();
+  await sql`alter table "vehiclesDown" rename to "vehicles"`.execute(t);
+  await t.schema.createIndex('vehiclesClassIdx').on('vehicles').column('className').execute();
 }
 
 export async function up(db: Kysely<unknown>): Promise<void> {
@@ -105,6 +122,20 @@ export async function up(db: Kysely<unknown>): Promise<void> {
 }
 
 export async function down(db: Kysely<unknown>): Promise<void> {
+  const { postgres } = columnTypes(db);
+  // SQLite rebuilds the vehicles table below (to put owner back where it was); a rebuild drops the
+  // table the builds point at, which foreign keys forbid. The pragma is set outside the
+  // transaction (inside one it does nothing) and put back as it was.
+  const keys = postgres ? 0 : Number((await sql<{ foreign_keys: number }>`pragma foreign_keys`.execute(db)).rows[0]?.foreign_keys ?? 0);
+  if (keys) await sql`pragma foreign_keys = off`.execute(db);
+  try {
+    await downSteps(db, postgres);
+  } finally {
+    if (keys) await sql`pragma foreign_keys = on`.execute(db);
+  }
+}
+
+async function downSteps(db: Kysely<unknown>, postgres: boolean): Promise<void> {
   await db.transaction().execute(async (trx) => {
     const { text } = columnTypes(trx);
     const t = trx as AnyTrx;
@@ -125,6 +156,10 @@ export async function down(db: Kysely<unknown>): Promise<void> {
     }
     await trx.schema.dropIndex('vehiclesCustomerIdx').execute();
     await trx.schema.alterTable('vehicles').dropColumn('customerId').execute();
+    // SQLite appends an added column; the layout before this step had owner before className.
+    // The table is made again from its own definition with owner moved back, so the store is
+    // exactly what the earlier migrations make (a restore compares the two).
+    if (!postgres) await moveOwnerBack(t);
     await trx.schema.dropTable('customers').execute();
   });
 }

@@ -67,6 +67,13 @@ describe('the customers and work orders migration', () => {
     ]);
     const tables = await sql<{ name: string }>`select name from sqlite_master where type = 'table' and name in ('customers', 'workOrders', 'workOrderSteps')`.execute(store.db);
     expect(tables.rows).toEqual([]);
+    // Down leaves the vehicles table exactly as the earlier migrations make it, and the links checked.
+    const fresh = await openStore(t.file('fresh.sqlite'));
+    expect((await new Migrator({ db: fresh.db, provider: staticMigrationProvider }).migrateTo(BEFORE)).error).toBeUndefined();
+    const definition = (db: Kysely<any>) => sql<{ sql: string }>`select sql from sqlite_master where name = 'vehicles'`.execute(db); // eslint-disable-line @typescript-eslint/no-explicit-any -- any database
+    expect((await definition(store.db)).rows).toEqual((await definition(fresh.db)).rows);
+    expect(store.raw.pragma('foreign_keys', { simple: true })).toBe(1);
+    await fresh.db.destroy();
     await store.db.destroy();
   });
 
