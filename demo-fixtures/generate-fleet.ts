@@ -2,7 +2,7 @@
 // the way a re-check finds hardest — one "hot" motor in every build and one "hot" pack in
 // half of them — so editing either touches thousands of builds.
 
-import type { Battery, Build, Controller, Motor, Propeller, Vehicle, VehicleKind } from '../src-main/core/domain';
+import type { Battery, Build, Controller, Customer, Motor, Propeller, Vehicle, VehicleKind } from '../src-main/core/domain';
 import { FLEET_FORMAT, FLEET_VERSION, type FleetFile } from '../src-main/service/fleet/fleet-format';
 import { seededRandom } from './seeded-random';
 
@@ -92,6 +92,7 @@ export function generateFleet(options: GenerateOptions): FleetFile {
     { ...meta, id: 'gen-prop-quad', name: 'Quad prop 4 inch', diameterMm: 102, pitchMm: 76, blades: 3, thrustCoefficient: 0.11, powerCoefficient: 0.065 },
     { ...meta, id: 'gen-prop-plane', name: 'Plane prop 10 inch', diameterMm: 254, pitchMm: 152, blades: 2, thrustCoefficient: 0.1, powerCoefficient: 0.042 },
   ];
+  const customers: Customer[] = Array.from({ length: 37 }, (_, i) => ({ ...meta, id: id('gen-cust', i), name: `Customer ${i}`, contact: '' }));
   const vehicleCount = Math.max(KINDS.length, Math.ceil(n / 20));
   const vehicles: Vehicle[] = [];
   for (let i = 0; i < vehicleCount; i++) {
@@ -106,7 +107,8 @@ export function generateFleet(options: GenerateOptions): FleetFile {
       dragAreaM2: ground ? between(0.02, 0.12, 0.005) : null,
       rollingCoefficient: ground ? between(0.015, 0.06, 0.005) : null,
       tractionCoefficient: ground ? between(0.8, 1.3, 0.05) : null,
-      owner: `Owner ${i % 37}`,
+      // Every 38th vehicle is the shop's own; the rest belong to 37 customers.
+      customerId: i % 38 === 37 ? null : id('gen-cust', i % 37),
       className: '',
     });
   }
@@ -141,5 +143,5 @@ export function generateFleet(options: GenerateOptions): FleetFile {
       tightThreshold: null,
     });
   }
-  return { format: FLEET_FORMAT, version: FLEET_VERSION, batteries, motors, controllers, propellers, vehicles, classes: [], classRules: [], builds };
+  return { format: FLEET_FORMAT, version: FLEET_VERSION, batteries, motors, controllers, propellers, customers, vehicles, classes: [], classRules: [], builds, workOrders: [] };
 }

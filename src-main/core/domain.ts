@@ -4,6 +4,7 @@
 // converts to SI on the way in.
 
 import type { BATTERY_FIELDS } from './catalogue/battery-fields';
+import type { CUSTOMER_FIELDS } from './catalogue/customer-fields';
 import type { BUILD_FIELDS, GEARING_FIELDS } from './catalogue/build-fields';
 import type { CONTROLLER_FIELDS } from './catalogue/controller-fields';
 import type { RecordOf } from './catalogue/field-spec';
@@ -63,6 +64,9 @@ export interface Controller extends RecordMeta, RecordOf<typeof CONTROLLER_FIELD
 export interface Propeller extends RecordMeta, RecordOf<typeof PROPELLER_FIELDS> {}
 
 export interface Vehicle extends RecordMeta, RecordOf<typeof VEHICLE_FIELDS> {}
+
+/** A customer of the shop (core/catalogue/customer-fields.ts). */
+export interface Customer extends RecordMeta, RecordOf<typeof CUSTOMER_FIELDS> {}
 
 export interface Supply {
   id: string;

@@ -11,7 +11,8 @@ import { loadDemoHandler } from './handlers/demo-handlers';
 import { addPackEvent, getPackHealthSettings, getRunLogHandler, importRunLog, listPackLog, listRunLogsHandler, previewRunLog, removePackEvent, removeRunLog, updatePackHealthSettings, useRunLogFigures } from './handlers/log-handlers';
 import { getClass, listClasses, saveClass } from './handlers/class-handlers';
 import { inventoryUsage } from './handlers/inventory-handlers';
-import { batterySchemas, classRuleSchemas, controllerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from './schemas/part-schemas';
+import { addWorkStep, getWorkOrderHandler, listWorkOrdersHandler, openWorkOrder, setWorkOrderStatus } from './handlers/work-order-handlers';
+import { batterySchemas, classRuleSchemas, controllerSchemas, customerSchemas, motorSchemas, propellerSchemas, vehicleSchemas } from './schemas/part-schemas';
 
 /**
  * The one contract between the UI (or the command line) and the data. Both shells relay
@@ -52,6 +53,11 @@ export const handlers = {
   'classRules.update': updateHandler('classRules', classRuleSchemas.patch),
   'classRules.archive': archiveHandler('classRules'),
   'inventory.usage': inventoryUsage,
+  'customers.list': listHandler('customers'),
+  'customers.get': getHandler('customers'),
+  'customers.create': createHandler('customers', customerSchemas.create),
+  'customers.update': updateHandler('customers', customerSchemas.patch),
+  'customers.archive': archiveHandler('customers'),
   'builds.list': listBuilds,
   'builds.listColumns': listBuildColumns,
   'builds.get': getBuildSheet,
@@ -60,6 +66,11 @@ export const handlers = {
   'builds.archive': archiveBuild,
   'builds.duplicate': duplicateBuild,
   'builds.preview': previewChange,
+  'workOrders.open': openWorkOrder,
+  'workOrders.addStep': addWorkStep,
+  'workOrders.setStatus': setWorkOrderStatus,
+  'workOrders.list': listWorkOrdersHandler,
+  'workOrders.get': getWorkOrderHandler,
   'history.list': listHistoryEntries,
   'settings.get': getSettings,
   'settings.update': updateSettings,

@@ -8,6 +8,7 @@ export const RECORD_LABELS = {
   classes: 'class',
   classRules: 'class rule',
   builds: 'build',
+  customers: 'customer',
 } as const;
 
 export type RecordKind = keyof typeof RECORD_LABELS;
@@ -22,4 +23,5 @@ export const ID_PREFIXES: Record<RecordKind, string> = {
   classes: 'cls',
   classRules: 'rule',
   builds: 'build',
+  customers: 'cust',
 };

@@ -19,6 +19,7 @@ export interface StoredFleetIds {
   motors: Set<string>;
   controllers: Set<string>;
   propellers: Set<string>;
+  customers: Set<string>;
   vehicles: Set<string>;
   classes: Set<string>;
   classRules: Set<string>;
@@ -44,6 +45,7 @@ export async function readFleetIds(db: DbHandle): Promise<StoredFleetIds> {
     motors: await ids('motors'),
     controllers: await ids('controllers'),
     propellers: await ids('propellers'),
+    customers: await ids('customers'),
     vehicles: await ids('vehicles'),
     classes: await ids('classes'),
     classRules: await ids('classRules'),
@@ -53,12 +55,12 @@ export async function readFleetIds(db: DbHandle): Promise<StoredFleetIds> {
 }
 
 /** Tables a replace empties, children first. History and settings stay: the history records the replace. */
-const FLEET_TABLES_CHILD_FIRST = ['runLogs', 'packEvents', 'verdicts', 'supplyPacks', 'supplies', 'builds', 'classRules', 'classes', 'vehicles', 'propellers', 'controllers', 'motors', 'batteries'] as const;
+const FLEET_TABLES_CHILD_FIRST = ['runLogs', 'packEvents', 'verdicts', 'supplyPacks', 'supplies', 'builds', 'classRules', 'classes', 'workOrderSteps', 'workOrders', 'vehicles', 'customers', 'propellers', 'controllers', 'motors', 'batteries'] as const;
 
-export type ClearedCounts = Record<PartTableName | 'builds', number>;
+export type ClearedCounts = Record<PartTableName | 'builds' | 'workOrders', number>;
 
 export async function clearFleetTables(db: DbHandle): Promise<ClearedCounts> {
-  const counts = { batteries: 0, motors: 0, controllers: 0, propellers: 0, vehicles: 0, classes: 0, classRules: 0, builds: 0 };
+  const counts = { batteries: 0, motors: 0, controllers: 0, propellers: 0, customers: 0, vehicles: 0, classes: 0, classRules: 0, builds: 0, workOrders: 0 };
   for (const table of FLEET_TABLES_CHILD_FIRST) {
     const result = await db.deleteFrom(table).executeTakeFirst();
     if (table in counts) counts[table as keyof typeof counts] = Number(result.numDeletedRows);

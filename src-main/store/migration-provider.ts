@@ -5,6 +5,7 @@ import * as verdictCurrentRule from '../../migrations/20261202-0004-verdict-curr
 import * as historySelectors from '../../migrations/20261202-0005-history-selectors';
 import * as fieldAndTypicalValues from '../../migrations/20261203-0006-field-and-typical-values';
 import * as packLogRunLogs from '../../migrations/20261203-0007-pack-log-run-logs';
+import * as customersAndWorkOrders from '../../migrations/20261203-0008-customers-and-work-orders';
 import * as classRecords from '../../migrations/20261203-0009-class-records';
 
 // Static imports rather than a folder read at run time: bundlers follow these, so the
@@ -16,6 +17,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261202-0005-history-selectors': historySelectors,
   '20261203-0006-field-and-typical-values': fieldAndTypicalValues,
   '20261203-0007-pack-log-run-logs': packLogRunLogs,
+  '20261203-0008-customers-and-work-orders': customersAndWorkOrders,
   '20261203-0009-class-records': classRecords,
 };
 

@@ -2,6 +2,7 @@ import type { Generated, Insertable, Selectable } from 'kysely';
 import type { BATTERY_FIELDS } from '../core/catalogue/battery-fields';
 import type { BUILD_FIELDS, GEARING_FIELDS } from '../core/catalogue/build-fields';
 import type { CONTROLLER_FIELDS } from '../core/catalogue/controller-fields';
+import type { CUSTOMER_FIELDS } from '../core/catalogue/customer-fields';
 import type { FieldCatalogue, FieldSpec, FieldValue } from '../core/catalogue/field-spec';
 import type { MOTOR_FIELDS } from '../core/catalogue/motor-fields';
 import type { PROPELLER_FIELDS } from '../core/catalogue/propeller-fields';
@@ -41,6 +42,7 @@ export interface PropellerTable extends Meta, ColumnsOf<typeof PROPELLER_FIELDS>
 export interface VehicleTable extends Meta, ColumnsOf<typeof VEHICLE_FIELDS> {}
 
 export interface ClassTable extends Meta, Omit<VehicleClass, keyof RecordMeta> {}
+export interface CustomerTable extends Meta, ColumnsOf<typeof CUSTOMER_FIELDS> {}
 
 export interface ClassRuleTable extends Omit<ClassRule, 'tightThreshold'>, Stamps {
   tightThreshold: number | null;
@@ -162,12 +164,42 @@ export interface RunLogTable {
   note: string;
 }
 
+/** A job on one vehicle (core/work-order.ts); the verdict snapshots are JSON of VerdictSnapshot[]. */
+export interface WorkOrderTable {
+  id: string;
+  version: number;
+  vehicleId: string;
+  customerId: string | null;
+  complaint: string;
+  status: 'open' | 'waiting-for-parts' | 'ready' | 'handed-over';
+  openedAt: string;
+  handedOverAt: string | null;
+  signedOffBy: string;
+  verdictsAtOpening: string;
+  verdictsAtHandOver: string | null;
+  createdAt: string;
+  updatedAt: string;
+}
+
+/** One step of a work order; historyIds is JSON of the history entry ids it caused (a handful, read with the step). */
+export interface WorkOrderStepTable {
+  workOrderId: string;
+  position: number;
+  kind: 'checked' | 'part-swapped' | 're-geared' | 'tested' | 'note';
+  text: string;
+  reason: string;
+  at: string;
+  actor: string;
+  historyIds: string;
+}
+
 export interface SettingTable {
   key: string;
   value: string;
 }
 
 export interface Db {
+  customers: CustomerTable;
   batteries: BatteryTable;
   motors: MotorTable;
   controllers: ControllerTable;
@@ -185,6 +217,8 @@ export interface Db {
   settings: SettingTable;
   packEvents: PackEventTable;
   runLogs: RunLogTable;
+  workOrders: WorkOrderTable;
+  workOrderSteps: WorkOrderStepTable;
 }
 
 export type BuildRow = Selectable<BuildTable>;
@@ -192,4 +226,4 @@ export type NewVerdictRow = Insertable<VerdictTable>;
 export type HistoryRow = Selectable<HistoryTable>;
 
 /** The part tables that share one shape of repository. */
-export type PartTableName = 'batteries' | 'motors' | 'controllers' | 'propellers' | 'vehicles' | 'classes' | 'classRules';
+export type PartTableName = 'batteries' | 'motors' | 'controllers' | 'propellers' | 'vehicles' | 'classes' | 'classRules' | 'customers';

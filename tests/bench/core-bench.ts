@@ -47,7 +47,7 @@ function sampleContext(): BuildContext {
       measuredAverageCurrentA: null,
       tightThreshold: null,
     },
-    vehicle: { ...meta, id: 'v', name: 'bench', kind: 'truck', massKg: 3.2, dragAreaM2: 0.03, rollingCoefficient: 0.03, tractionCoefficient: 0.9, owner: '', className: 'bench' },
+    vehicle: { ...meta, id: 'v', name: 'bench', kind: 'truck', massKg: 3.2, dragAreaM2: 0.03, rollingCoefficient: 0.03, tractionCoefficient: 0.9, customerId: null, className: 'bench' },
     motor: { ...meta, id: 'm', name: 'bench', kv: 2200, resistanceOhm: 0.011, noLoadCurrentA: 2.5, maxCurrentA: 120, maxPowerW: 1800, maxVoltageV: 18, maxRpm: 50000, poles: 4, massKg: 0.3 },
     controller: { ...meta, id: 'c', name: 'bench', maxVoltageV: null, maxCells: 6, continuousCurrentA: 120, burstCurrentA: 760, resistanceOhm: 0.001, massKg: 0.1 },
     propeller: null,

@@ -18,7 +18,7 @@ export interface ListQuery {
 export const LIST_QUERIES: readonly { name: string; args: Record<string, unknown>; handler?: string }[] = [
   { name: 'column form, no filter (what the window loads)', args: {}, handler: 'builds.listColumns' },
   { name: 'row objects, no filter', args: {} },
-  { name: 'text filter "owner 1"', args: { text: 'owner 1' } },
+  { name: 'text filter "customer 1"', args: { text: 'customer 1' } },
   { name: 'verdict filter over', args: { statuses: ['over'] } },
 ];
 

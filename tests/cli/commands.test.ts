@@ -57,7 +57,7 @@ describe('rigbook demo, export and import', () => {
     const before = await dumpOf(db);
     const refused = await rigbook(['demo', '--db', db]);
     expect(refused.code).toBe(4);
-    expect(refused.err).toMatch(/already holds records \(2 packs, 1 motor, 1 speed controller, 1 vehicle, 2 builds\)/);
+    expect(refused.err).toMatch(/already holds records \(2 packs, 1 motor, 1 speed controller, 1 customer, 1 vehicle, 2 builds\)/);
     expect(await dumpOf(db)).toEqual(before);
     expect((await rigbook(['demo', '--merge', '--db', db])).code).toBe(0);
     expect(rows(db, 'builds')).toBe(18);
@@ -137,8 +137,8 @@ describe('rigbook demo, export and import', () => {
     const run = await rigbook(['import', EXAMPLE, '--db', t.file('s.sqlite')], { tty: true });
     expect(run.code).toBe(0);
     // Small tasks too: on a terminal every step is drawn over the last, and each task ends its line.
-    expect(run.err).toMatch(/^\rChecking records: 0 of 7\u001b\[K/);
-    expect(run.err).toContain('\rWriting records: 7 of 7\u001b[K\n');
+    expect(run.err).toMatch(/^\rChecking records: 0 of 8\u001b\[K/);
+    expect(run.err).toContain('\rWriting records: 8 of 8\u001b[K\n');
     expect(run.err.split('\n').filter((l) => l !== '')).toHaveLength(2);
   });
 });

@@ -30,7 +30,7 @@ describe('rigbook and fleet files from scripts and spreadsheets', () => {
     expect(cut.err).toMatch(/^rigbook check: Cannot read standard input: |^Cannot read standard input: /);
     const imported = await rigbook(['import', '-', '--db', t.file('s.sqlite')], { stdin: text });
     expect(imported.code).toBe(0);
-    expect(imported.out).toMatch(/^Imported standard input \(merge\): added 2 packs, 1 motor, 1 speed controller, 1 vehicle, 2 builds\./);
+    expect(imported.out).toMatch(/^Imported standard input \(merge\): added 2 packs, 1 motor, 1 speed controller, 1 customer, 1 vehicle, 2 builds\./);
   });
 
   it('check refuses a field named twice with its path (exit 3), and a 20 000-deep broken file with its place (exit 2)', async () => {
@@ -86,7 +86,7 @@ describe('rigbook and fleet files from scripts and spreadsheets', () => {
     const t = temp();
     const db = t.file('s.sqlite');
     await rigbook(['import', EXAMPLE, '--db', db]);
-    const csv = (await rigbook(['export', '--csv', 'vehicles', '--db', db])).out.replace('Example owner', 'Jürgen Müller');
+    const csv = (await rigbook(['export', '--csv', 'vehicles', '--db', db])).out.replace('Short course truck', 'Jürgen Müller');
     // ü is 0xFC in Windows-1252 (the code page's published table).
     writeFileSync(t.file('vehicles.csv'), Buffer.from(csv, 'latin1'));
     const refused = await rigbook(['import', 'vehicles.csv', '--csv', 'vehicles', '--db', db], { cwd: t.dir });
@@ -114,7 +114,7 @@ describe('rigbook and fleet files from scripts and spreadsheets', () => {
     const whole = await rigbook(['export', 'all.json', '--db', db], { cwd: t.dir });
     expect(whole.err).toMatch(/^Wrote 2 builds, 2 packs, 1 motor, 1 speed controller, 0 propellers, 1 vehicle, 1 class, 1 class rule to /);
     const replaced = await rigbook(['import', 'all.json', '--mode', 'replace', '--db', db], { cwd: t.dir });
-    expect(replaced.out).toContain('Replaced what the store held: 2 packs, 1 motor, 1 speed controller, 1 vehicle, 1 class, 1 class rule, 2 builds.');
+    expect(replaced.out).toContain('Replaced what the store held: 2 packs, 1 motor, 1 speed controller, 1 customer, 1 vehicle, 1 class, 1 class rule, 2 builds.');
     expect(replaced.out).not.toMatch(/classRules|batteries/);
   });
 

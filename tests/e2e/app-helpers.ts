@@ -37,7 +37,15 @@ export async function seedOneBuild(shell: Shell, overrides: { cRatingContinuous?
     maxRpm: 60000,
   });
   const esc = await shell.api<StoredRecord>('controllers.create', { name: 'Test 150A', maxCells: 6, continuousCurrentA: 150, burstCurrentA: 900, resistanceOhm: 0.0008 });
-  const car = await shell.api<StoredRecord>('vehicles.create', { name: 'Test truck', kind: 'truck', massKg: 3.2, dragAreaM2: 0.045, rollingCoefficient: 0.04, tractionCoefficient: 0.9, owner: 'Test owner' });
+  const car = await shell.api<StoredRecord>('vehicles.create', {
+    name: 'Test truck',
+    kind: 'truck',
+    massKg: 3.2,
+    dragAreaM2: 0.045,
+    rollingCoefficient: 0.04,
+    tractionCoefficient: 0.9,
+    customerId: (await shell.api<StoredRecord>('customers.create', { name: 'Test customer' })).id,
+  });
   const build = await shell.api<{ record: StoredRecord }>('builds.create', {
     name: 'Test truck 4S',
     vehicleId: car.id,

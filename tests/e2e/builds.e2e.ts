@@ -65,7 +65,8 @@ test('a pack re-rated by a second client changes the badge in the list without a
 
 test('the list draws only a window of rows, filters as you type, and opens a build from the keyboard', async ({ page, shell }) => {
   const { pack, motor, esc, car } = await seedOneBuild(shell);
-  const boat = await shell.api<StoredRecord>('vehicles.create', { name: 'Pond boat', kind: 'boat', owner: 'Other owner' });
+  const other = await shell.api<StoredRecord>('customers.create', { name: 'Other customer' });
+  const boat = await shell.api<StoredRecord>('vehicles.create', { name: 'Pond boat', kind: 'boat', customerId: other.id });
   for (let i = 0; i < 140; i++) {
     await shell.api('builds.create', {
       name: `Fleet build ${String(i).padStart(3, '0')}`,
@@ -87,9 +88,9 @@ test('the list draws only a window of rows, filters as you type, and opens a bui
   await page.getByLabel('Search builds').fill('pond 01');
   await expect(page.getByTestId('build-count')).toHaveText('7 of 141 shown');
   await page.getByLabel('Search builds').fill('');
-  await page.getByLabel('Owner').selectOption('Other owner');
+  await page.getByLabel('Customer').selectOption('Other customer');
   await expect(page.getByTestId('build-count')).toHaveText('70 of 141 shown');
-  await page.getByLabel('Owner').selectOption('Test owner');
+  await page.getByLabel('Customer').selectOption('Test customer');
   await page.getByRole('button', { name: /Incomplete/ }).click();
   // The truck's builds without a controller: even multiples of 7 from 0 to 126 → 10 builds.
   await expect(page.getByTestId('build-count')).toHaveText('10 of 141 shown');

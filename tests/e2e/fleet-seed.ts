@@ -1,5 +1,5 @@
 // An invented club-and-shop fleet for the end-to-end tests and the screenshots: a few vehicles
-// of different kinds sharing packs, with every verdict present. Names, owners and parts are
+// of different kinds sharing packs, with every verdict present. Names, customers and parts are
 // made up; ratings are typical of their size class (common practice, from memory), not any
 // maker's data sheet.
 
@@ -49,16 +49,23 @@ const PROPS = {
 } as const;
 
 const VEHICLES = {
-  buggy: { name: 'Track buggy #7', kind: 'car', massKg: 1.75, dragAreaM2: 0.02, rollingCoefficient: 0.03, tractionCoefficient: 1.0, owner: 'Dana Okafor', className: 'Club 2WD' },
-  sct: { name: 'Short-course truck', kind: 'truck', massKg: 3.2, dragAreaM2: 0.045, rollingCoefficient: 0.04, tractionCoefficient: 0.9, owner: 'Dana Okafor', className: '' },
-  monster: { name: 'Shop monster truck', kind: 'truck', massKg: 4.8, dragAreaM2: 0.06, rollingCoefficient: 0.05, tractionCoefficient: 0.9, owner: 'Ravi Lindqvist', className: '' },
-  crawler: { name: 'Scale crawler', kind: 'truck', massKg: 2.4, dragAreaM2: 0.05, rollingCoefficient: 0.06, tractionCoefficient: 1.1, owner: 'Mika Tanaka', className: '' },
-  boat: { name: 'Deep-V racer', kind: 'boat', massKg: 2.9, water: 'fresh', owner: 'Ravi Lindqvist', className: 'Offshore' },
-  quad: { name: 'Five-inch quad', kind: 'multirotor', massKg: 0.65, owner: 'Mika Tanaka', className: '' },
-  glider: { name: 'Club glider', kind: 'plane', massKg: 1.8, owner: 'Dana Okafor', className: '' },
+  buggy: { name: 'Track buggy #7', kind: 'car', massKg: 1.75, dragAreaM2: 0.02, rollingCoefficient: 0.03, tractionCoefficient: 1.0, customer: 'dana', className: 'Club 2WD' },
+  sct: { name: 'Short-course truck', kind: 'truck', massKg: 3.2, dragAreaM2: 0.045, rollingCoefficient: 0.04, tractionCoefficient: 0.9, customer: 'dana', className: '' },
+  monster: { name: 'Shop monster truck', kind: 'truck', massKg: 4.8, dragAreaM2: 0.06, rollingCoefficient: 0.05, tractionCoefficient: 0.9, customer: 'ravi', className: '' },
+  crawler: { name: 'Scale crawler', kind: 'truck', massKg: 2.4, dragAreaM2: 0.05, rollingCoefficient: 0.06, tractionCoefficient: 1.1, customer: 'mika', className: '' },
+  boat: { name: 'Deep-V racer', kind: 'boat', massKg: 2.9, water: 'fresh', customer: 'ravi', className: 'Offshore' },
+  quad: { name: 'Five-inch quad', kind: 'multirotor', massKg: 0.65, customer: 'mika', className: '' },
+  glider: { name: 'Club glider', kind: 'plane', massKg: 1.8, customer: 'dana', className: '' },
 } as const;
 
+const CUSTOMERS = {
+  dana: { name: 'Dana Okafor', contact: 'dana.okafor@example.org' },
+  ravi: { name: 'Ravi Lindqvist', contact: 'phone 555-0188' },
+  mika: { name: 'Mika Tanaka', contact: '' },
+};
+
 export interface SeededFleet {
+  customers: Record<keyof typeof CUSTOMERS, string>;
   packs: Record<keyof typeof PACKS, string>;
   motors: Record<keyof typeof MOTORS, string>;
   controllers: Record<keyof typeof CONTROLLERS, string>;
@@ -78,7 +85,15 @@ export async function seedFleet(api: Api): Promise<SeededFleet> {
   const motors = await createAll(api, 'motors.create', MOTORS);
   const controllers = await createAll(api, 'controllers.create', CONTROLLERS);
   const propellers = await createAll(api, 'propellers.create', PROPS);
-  const vehicles = await createAll(api, 'vehicles.create', VEHICLES);
+  const customers = await createAll(api, 'customers.create', CUSTOMERS);
+  // A vehicle names its customer by the seed's key; the rest are the shop's own.
+  const vehicleRows = Object.fromEntries(
+    Object.entries(VEHICLES).map(([key, row]) => {
+      const { customer, ...rest } = row as { customer?: keyof typeof CUSTOMERS };
+      return [key, customer ? { ...rest, customerId: customers[customer] } : rest];
+    }),
+  ) as Record<keyof typeof VEHICLES, object>;
+  const vehicles = await createAll(api, 'vehicles.create', vehicleRows);
   const one = (id: string) => [{ arrangement: 'series', batteryIds: [id] }];
   const builds: Record<string, object> = {
     buggyRace: {
@@ -151,5 +166,5 @@ export async function seedFleet(api: Api): Promise<SeededFleet> {
   };
   const buildIds: Record<string, string> = {};
   for (const [key, row] of Object.entries(builds)) buildIds[key] = (await api<{ record: Stored }>('builds.create', row)).record.id;
-  return { packs, motors, controllers, propellers, vehicles, builds: buildIds };
+  return { packs, motors, controllers, propellers, customers, vehicles, builds: buildIds };
 }

@@ -133,7 +133,7 @@ test('the printable build sheet: no navigation, black on white, cautions and the
   await expect(page.getByTestId('path-stage')).toHaveCount(5);
   await expect(page.getByTestId('supply').getByTestId('finding').first()).toBeVisible();
   await expect(page.locator('canvas').first()).toBeHidden();
-  await expect(page.getByText(/owner Ravi Lindqvist/)).toBeVisible();
+  await expect(page.getByText(/customer Ravi Lindqvist/)).toBeVisible();
   const background = await page.evaluate(() => getComputedStyle(document.body).backgroundColor);
   expect(background).toBe('rgb(255, 255, 255)');
   const ink = await page.evaluate(() => getComputedStyle(document.querySelector('h1')!).color);

@@ -114,11 +114,11 @@ describe('CSV export and import per part kind', () => {
   });
 
   it('formula-like text survives a round trip exactly', async () => {
-    await f.call('vehicles.create', { id: 'v1', name: '@home basher', kind: 'truck', owner: '+1 555 0100', className: '=B2' });
+    await f.call('vehicles.create', { id: 'v1', name: '@home basher', kind: 'truck', notes: '+1 555 0100', className: '=B2' });
     const { text } = await f.call('fleet.exportCsv', { kind: 'vehicles' });
     await f.call('fleet.importCsv', { kind: 'vehicles', text: text.replace("'@home basher", 'Home basher') });
     const v = await f.call('vehicles.get', { id: 'v1' });
-    expect(v).toMatchObject({ name: 'Home basher', owner: '+1 555 0100', className: '=B2' });
+    expect(v).toMatchObject({ name: 'Home basher', notes: '+1 555 0100', className: '=B2' });
   });
 
   it.each([
@@ -162,5 +162,25 @@ describe('CSV files written before the safe-side fields', () => {
     const read = readCsvRecords('vehicles', text);
     expect(read.ok ? [] : read.problems).toEqual([]);
     expect(read.ok && read.records[0]).toMatchObject({ id: 'v1', driveLayout: null, drivenWeightShare: null, water: null });
+  });
+
+  it('a vehicles file with the older owner column imports, each owner text becoming a customer', async () => {
+    const text =
+      'id,name,kind,massKg,dragAreaM2,rollingCoefficient,tractionCoefficient,owner,className,notes,version,archivedAt\r\nv1,Old buggy,car,1.6,0.03,0.03,1,Dana Ó Briain,,,1,\r\nv2,Old truck,truck,3,0.05,0.04,1,Dana Ó Briain,,,1,\r\nv3,Shop truck,truck,3,0.05,0.04,1,,,,1,\r\n';
+    const report = await f.call('fleet.importCsv', { kind: 'vehicles', text });
+    expect(report.problems).toEqual([]);
+    expect(report.counts.customers.added).toBe(1);
+    const [customer] = await f.call('customers.list', {});
+    expect(customer).toMatchObject({ name: 'Dana Ó Briain', contact: '' });
+    const vehicles = await f.call('vehicles.list', {});
+    expect(vehicles.map((v) => [v.id, v.customerId])).toEqual([
+      ['v1', customer!.id],
+      ['v2', customer!.id],
+      ['v3', null],
+    ]);
+    // Exports write the customer's id, not the older column.
+    const { text: exported } = await f.call('fleet.exportCsv', { kind: 'vehicles' });
+    expect(exported.split('\r\n')[0]).toContain('customerId');
+    expect(exported.split('\r\n')[0]).not.toContain('owner');
   });
 });

@@ -51,7 +51,7 @@ forEachEngine((engine) => {
     it('writes the documented envelope, every kind as a list, records with units in their names', async () => {
       await seedTwoBuggies(f);
       const fleet = await f.call('fleet.export', {});
-      expect(Object.keys(fleet)).toEqual(['$schema', 'format', 'version', 'batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classes', 'classRules', 'builds', 'packEvents', 'runLogs']);
+      expect(Object.keys(fleet)).toEqual(['$schema', 'format', 'version', 'batteries', 'motors', 'controllers', 'propellers', 'customers', 'vehicles', 'classes', 'classRules', 'builds', 'packEvents', 'runLogs', 'workOrders']);
       expect(fleet).toMatchObject({ format: 'rigbook-fleet', version: 2 });
       expect(Object.keys(fleet.batteries[0]!)).toEqual(expect.arrayContaining(['id', 'capacityMah', 'cellResistanceOhm', 'massKg', 'version', 'archivedAt']));
       expect(Object.keys(fleet.builds[0]!.gearing)).toEqual(['pinionTeeth', 'spurTeeth', 'internalRatio', 'tireDiameterMm', 'drivetrainEfficiency']);

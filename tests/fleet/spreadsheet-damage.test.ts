@@ -252,10 +252,10 @@ describe('text encodings', () => {
     await seedTwoBuggies(f);
     const { text } = await f.call('fleet.exportCsv', { kind: 'vehicles' });
     const before = await dumpStore(f.db);
-    const csv = await f.call('fleet.importCsv', { kind: 'vehicles', text: text.replace('Bench', 'J\uFFFDrgen') });
+    const csv = await f.call('fleet.importCsv', { kind: 'vehicles', text: text.replace('Test buggy', 'J\uFFFDrgen') });
     expect(csv).toMatchObject({ ok: false, unreadable: true });
     expect(csv.problems[0]!.message).toMatch(/replacement character \(U\+FFFD\) on line 2/);
-    const json = await f.call('fleet.import', { text: fleetText(await f.call('fleet.export', {})).replace('Bench', 'M\uFFFDller') });
+    const json = await f.call('fleet.import', { text: fleetText(await f.call('fleet.export', {})).replace('Test buggy', 'M\uFFFDller') });
     expect(json).toMatchObject({ ok: false, unreadable: true });
     expect(await dumpStore(f.db)).toEqual(before);
   });

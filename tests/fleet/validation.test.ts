@@ -121,7 +121,10 @@ describe('a fleet file is checked whole before anything is written', () => {
     const result = inspectFleet({ format: 'rigbook-fleet', version: 1, packs: [], motors: {} });
     expect(result.ok).toBe(false);
     if (result.ok) return;
-    expect(result.problems.map(problemLine)).toEqual(['packs: is not part of a rigbook-fleet file (it holds: batteries, motors, controllers, propellers, vehicles, classes, classRules, builds)', 'motors: must be a list of motors']);
+    expect(result.problems.map(problemLine)).toEqual([
+      'packs: is not part of a rigbook-fleet file (it holds: batteries, motors, controllers, propellers, customers, vehicles, classes, classRules, builds, workOrders)',
+      'motors: must be a list of motors',
+    ]);
   });
 
   it('a field with an odd name is still named exactly', () => {
@@ -150,5 +153,53 @@ describe('a fleet file is checked whole before anything is written', () => {
     expect((await f.refuse('fleet.import', { mode: 'merge' })).field).toBe('text');
     expect((await f.refuse('fleet.import', { text: '{}', fleet: {}, mode: 'merge' })).field).toBe('text');
     expect((await f.refuse('fleet.import', { fleet: {}, mode: 'overwrite' })).field).toBe('mode');
+  });
+});
+
+describe('customers in a fleet file', () => {
+  /** A file as written before customers were records: vehicles name their owner as text. */
+  function olderFile() {
+    return {
+      format: 'rigbook-fleet',
+      version: 1,
+      vehicles: [
+        { id: 'v1', name: 'Yellow buggy', kind: 'car', owner: 'Dana Ó Briain' },
+        { id: 'v2', name: 'Red truck', kind: 'truck', owner: ' Dana Ó Briain ' },
+        { id: 'v3', name: 'Shop crawler', kind: 'truck', owner: '' },
+      ],
+    };
+  }
+
+  it('an older file with owner text imports, one customer per distinct owner, and exports without owner', async () => {
+    const report = await f.call('fleet.import', { fleet: olderFile(), mode: 'merge' });
+    expect(report.problems).toEqual([]);
+    expect(report.counts.customers).toEqual({ added: 1, updated: 0, unchanged: 0 });
+    const [dana] = await f.call('customers.list', {});
+    expect(dana).toMatchObject({ name: 'Dana Ó Briain', contact: '' });
+    expect((await f.call('vehicles.list', {})).map((v) => [v.id, v.customerId])).toEqual([
+      ['v2', dana!.id],
+      ['v3', null],
+      ['v1', dana!.id],
+    ]);
+    const exported = await f.call('fleet.export', {});
+    expect(exported.customers.map((c) => c.name)).toEqual(['Dana Ó Briain']);
+    expect(exported.vehicles.every((v) => !('owner' in v))).toBe(true);
+  });
+
+  it('importing the older file again leaves a customer edited since as it is', async () => {
+    await f.call('fleet.import', { fleet: olderFile(), mode: 'merge' });
+    const [dana] = await f.call('customers.list', {});
+    await f.call('customers.update', { id: dana!.id, expectedVersion: dana!.version, changes: { contact: 'dana@example.org' } });
+    const again = await f.call('fleet.import', { fleet: olderFile(), mode: 'merge' });
+    expect(again.ok).toBe(true);
+    expect(again.counts.customers).toEqual({ added: 0, updated: 0, unchanged: 0 });
+    expect((await f.call('customers.get', { id: dana!.id })).contact).toBe('dana@example.org');
+  });
+
+  it('a vehicle naming a customer that is neither in the file nor the store is refused with its place', async () => {
+    const fleet = { format: 'rigbook-fleet', version: 1, customers: [{ id: 'cust-a', name: 'A' }], vehicles: [{ id: 'v1', name: 'Buggy', kind: 'car', customerId: 'cust-b' }] };
+    expect(await refused({ fleet, mode: 'merge' })).toEqual(['vehicles[0].customerId: no customer with id "cust-b" in this file or the store']);
+    const blank = { format: 'rigbook-fleet', version: 1, customers: [{ id: 'cust-a', name: ' ' }] };
+    expect(await refused({ fleet: blank, mode: 'merge' })).toEqual(['customers[0].name: is required']);
   });
 });

@@ -44,7 +44,7 @@ export type ServiceFixture = Awaited<ReturnType<typeof serviceFixture>>;
 
 /** A small bench-top scenario: one 1/10 buggy on a 2S pack and one on a 4S pack, sharing a motor. */
 export async function seedTwoBuggies(f: ServiceFixture) {
-  const vehicle = await f.call('vehicles.create', { name: 'Test buggy', kind: 'car', massKg: 1.6, dragAreaM2: 0.03, rollingCoefficient: 0.03, tractionCoefficient: 1.0, owner: 'Bench' });
+  const vehicle = await f.call('vehicles.create', { name: 'Test buggy', kind: 'car', massKg: 1.6, dragAreaM2: 0.03, rollingCoefficient: 0.03, tractionCoefficient: 1.0 });
   const motor = await f.call('motors.create', { name: 'Test 3300', kv: 3300, resistanceOhm: 0.012, noLoadCurrentA: 2.5, maxCurrentA: 120, maxPowerW: 1800, maxVoltageV: 17.4, maxRpm: 60000 });
   const esc = await f.call('controllers.create', { name: 'Test 120A', maxVoltageV: 25.2, continuousCurrentA: 120, burstCurrentA: 760, resistanceOhm: 0.001 });
   const pack2s = await f.call('batteries.create', { name: 'Test 2S', chemistry: 'lipo', cellsSeries: 2, capacityMah: 5000, cRatingContinuous: 50, cRatingBurst: 100, cellResistanceOhm: 0.003 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { EMPTY_FILTER, countByStatus, filterSummaries, haystackOf, ownersOf, peakShare, sortSummaries } from '../../src-renderer/lib/builds/build-filter';
+import { EMPTY_FILTER, countByStatus, filterSummaries, haystackOf, customersOf, peakShare, SHOP_OWN, sortSummaries } from '../../src-renderer/lib/builds/build-filter';
 import type { BuildSummary } from '../../src-renderer/lib/builds/build-summary';
 
 function summary(over: Partial<BuildSummary> & { id: string; name: string }): BuildSummary {
@@ -9,7 +9,8 @@ function summary(over: Partial<BuildSummary> & { id: string; name: string }): Bu
     vehicleId: 'veh-1',
     vehicleName: 'Buggy',
     kind: 'car',
-    owner: '',
+    customerId: null,
+    customerName: '',
     className: '',
     motorId: null,
     motorName: null,
@@ -31,10 +32,10 @@ function summary(over: Partial<BuildSummary> & { id: string; name: string }): Bu
 }
 
 const rows = [
-  summary({ id: 'a', name: 'Amber 4S', owner: 'Dana', status: 'over', batteryIds: ['pack-1'], supplyLabels: ['Shop 4S #1'], supplyVoltageFullV: 16.8, peakCurrentA: 96, peakCurrentLimitA: 120 }),
-  summary({ id: 'b', name: 'blue 2S', owner: 'Ravi', status: 'clear', kind: 'truck', motorId: 'mot-1', motorName: 'Wendleby 2200', supplyVoltageFullV: 8.4, peakCurrentA: 30, peakCurrentLimitA: 120 }),
-  summary({ id: 'c', name: 'Coral boat', owner: 'Dana', status: 'tight', kind: 'boat', propellerId: 'prop-1' }),
-  summary({ id: 'd', name: 'Dove-grey buggy', owner: '', status: null }),
+  summary({ id: 'a', name: 'Amber 4S', customerId: 'cust-dana', customerName: 'Dana', status: 'over', batteryIds: ['pack-1'], supplyLabels: ['Shop 4S #1'], supplyVoltageFullV: 16.8, peakCurrentA: 96, peakCurrentLimitA: 120 }),
+  summary({ id: 'b', name: 'blue 2S', customerId: 'cust-ravi', customerName: 'Ravi', status: 'clear', kind: 'truck', motorId: 'mot-1', motorName: 'Wendleby 2200', supplyVoltageFullV: 8.4, peakCurrentA: 30, peakCurrentLimitA: 120 }),
+  summary({ id: 'c', name: 'Coral boat', customerId: 'cust-dana', customerName: 'Dana', status: 'tight', kind: 'boat', propellerId: 'prop-1' }),
+  summary({ id: 'd', name: 'Dove-grey buggy', status: null }),
 ];
 const hay = new Map(rows.map((r) => [r.id, haystackOf(r)]));
 const ids = (list: BuildSummary[]) => list.map((r) => r.id);
@@ -51,9 +52,10 @@ describe('builds list filter', () => {
     expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, text: 'nothing-like-this' }, hay))).toEqual([]);
   });
 
-  it('filters by verdict, kind, owner and part together', () => {
+  it('filters by verdict, kind, customer and part together', () => {
     expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, statuses: ['over', 'tight'] }, hay))).toEqual(['a', 'c']);
-    expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, kinds: ['truck', 'boat'], owner: 'Dana' }, hay))).toEqual(['c']);
+    expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, kinds: ['truck', 'boat'], customer: 'cust-dana' }, hay))).toEqual(['c']);
+    expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, customer: SHOP_OWN }, hay))).toEqual(['d']);
     expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, partId: 'pack-1' }, hay))).toEqual(['a']);
     expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, partId: 'mot-1' }, hay))).toEqual(['b']);
     expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, partId: 'prop-1' }, hay))).toEqual(['c']);
@@ -88,8 +90,11 @@ describe('builds list sort', () => {
 });
 
 describe('builds list helpers', () => {
-  it('lists owners once, sorted, without the empty one', () => {
-    expect(ownersOf(rows)).toEqual(['Dana', 'Ravi']);
+  it("lists customers once, by name, without the shop's own", () => {
+    expect(customersOf(rows)).toEqual([
+      { id: 'cust-dana', name: 'Dana' },
+      { id: 'cust-ravi', name: 'Ravi' },
+    ]);
   });
 
   it('counts builds by verdict', () => {

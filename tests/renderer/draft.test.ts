@@ -50,10 +50,10 @@ describe('form drafts', () => {
 
   it('sends only the fields the user changed, so untouched values are never rewritten by rounding', () => {
     const fields = PART_FIELDS.vehicles;
-    const record = { name: 'Truck', kind: 'truck', massKg: 3.2, dragAreaM2: 0.045, rollingCoefficient: 0.04, tractionCoefficient: 0.9, owner: '', className: '', notes: '' };
+    const record = { name: 'Truck', kind: 'truck', massKg: 3.2, dragAreaM2: 0.045, rollingCoefficient: 0.04, tractionCoefficient: 0.9, customerId: null, className: '', notes: '' };
     const base = toDraft(fields, record, 'imperial');
-    const draft = { ...base, owner: 'Dana' };
-    expect(draftChanges(fields, draft, base, 'imperial')).toEqual({ owner: 'Dana' });
+    const draft = { ...base, className: 'Stock 2WD' };
+    expect(draftChanges(fields, draft, base, 'imperial')).toEqual({ className: 'Stock 2WD' });
     const all = draftToRecord(fields, base, 'imperial');
     // The rounded imperial text (7.05 lb) only goes back when the user changes it.
     expect(all.massKg).toBeCloseTo(3.2, 2);

@@ -61,16 +61,16 @@ describe('form lifecycle', () => {
     const seed = await seedTwoBuggies(f);
     const form = new PartFormState(client, 'vehicles', seed.vehicle.id, 'metric');
     await form.load();
-    form.draft.owner = 'Track team';
+    form.draft.className = 'Track team';
     await f.call('vehicles.update', { id: seed.vehicle.id, expectedVersion: seed.vehicle.version, changes: { massKg: 1.75 }, reason: 'weighed' });
     expect(await form.save()).toBeNull();
     expect(form.formError?.kind).toBe('conflict');
     await form.rebase();
     expect(form.draft.massKg).toBe('1.75');
-    expect(Object.keys(form.draft).filter((k) => form.draft[k] !== form.base[k])).toEqual(['owner']);
+    expect(Object.keys(form.draft).filter((k) => form.draft[k] !== form.base[k])).toEqual(['className']);
     expect(await form.save()).not.toBeNull();
     const stored = await f.call('vehicles.get', { id: seed.vehicle.id });
-    expect([stored.owner, stored.massKg]).toEqual(['Track team', 1.75]);
+    expect([stored.className, stored.massKg]).toEqual(['Track team', 1.75]);
   });
 
   it('a save the service refuses writes nothing and keeps every typed value, the refusal beside its field', async () => {

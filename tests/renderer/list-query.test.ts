@@ -7,7 +7,7 @@ describe('the builds list in the address', () => {
     text: 'shop 4s & co',
     statuses: ['over', 'incomplete'],
     kinds: ['truck', 'boat'],
-    owner: 'Dana Ó Briain',
+    customer: 'cust-dana',
     partId: 'pack-1',
     sortKey: 'peak',
     sortDir: -1,

@@ -21,6 +21,11 @@ describe('hash routes', () => {
     { name: 'compare', ids: ['build-1'], of: { supplies: true } },
     // A change carries its preview request as JSON, with characters an address must escape.
     { name: 'compare', ids: ['build-1'], of: { change: JSON.stringify({ draft: { kind: 'motors', part: { name: 'A & B? #2 100%' }, buildId: 'build-1' } }), title: 'the draft motor "A & B"' } },
+    { name: 'customers', id: null },
+    { name: 'customers', id: 'cust-dana-1a2b3c4d' },
+    { name: 'work-order', id: 'job-4' },
+    { name: 'work-order-new', vehicleId: null },
+    { name: 'work-order-new', vehicleId: 'veh 9' },
   ];
 
   it('reads back every route it writes, so a reload opens the same screen', () => {
@@ -39,6 +44,10 @@ describe('hash routes', () => {
     expect(formatRoute({ name: 'compare', ids: ['b1'], of: { supplies: true } })).toBe('#/compare?ids=b1&supplies=1');
     // One build only, where its supplies are compared.
     expect(parseRoute('#/compare?ids=b1,b2&supplies=1')).toEqual({ name: 'compare', ids: ['b1'], of: { supplies: true } });
+    expect(formatRoute({ name: 'work-order', id: 'job-4' })).toBe('#/jobs/job-4');
+    expect(formatRoute({ name: 'work-order-new', vehicleId: 'veh-9' })).toBe('#/jobs/new?vehicle=veh-9');
+    // A work order belongs with the customers it is done for.
+    expect(tabOf({ name: 'work-order', id: 'job-4' })).toBe('customers');
   });
 
   it('opens the builds list for an empty or unknown address, and packs for an unknown part kind', () => {

@@ -51,7 +51,7 @@ describe('text order keys', () => {
   });
 });
 
-function summary(i: number, name: string, owner: string): BuildSummary {
+function summary(i: number, name: string, customer: string): BuildSummary {
   return {
     id: `b${i}`,
     name,
@@ -60,7 +60,8 @@ function summary(i: number, name: string, owner: string): BuildSummary {
     vehicleId: 'v',
     vehicleName: `car ${i % 7}`,
     kind: 'car',
-    owner,
+    customerId: `c-${customer}`,
+    customerName: customer,
     className: '',
     motorId: null,
     motorName: null,
@@ -102,7 +103,7 @@ describe('narrowing a filter as the user types', () => {
   it('does not count a deletion or another chip as narrowing', () => {
     expect(narrows({ ...EMPTY_FILTER, text: 'build 1' }, { ...EMPTY_FILTER, text: 'build ' })).toBe(false);
     expect(narrows({ ...EMPTY_FILTER, text: 'b' }, { ...EMPTY_FILTER, text: 'bu', statuses: ['over'] })).toBe(false);
-    expect(narrows({ ...EMPTY_FILTER, owner: 'Owner 1' }, { ...EMPTY_FILTER, owner: 'Owner 2' })).toBe(false);
+    expect(narrows({ ...EMPTY_FILTER, customer: 'cust-1' }, { ...EMPTY_FILTER, customer: 'cust-2' })).toBe(false);
   });
 
   it('sorts 10 000 names in the same order as the collator', () => {

@@ -26,7 +26,7 @@ function expected(...catalogues: FieldCatalogue[]): Record<string, string> {
 describe('field catalogues and the migrated store', () => {
   it('every catalogue field is a column of its table, nullable exactly where the catalogue says', async () => {
     const shape = await referenceShape(Object.keys(MIGRATIONS));
-    const kinds = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'builds'] as const satisfies readonly (keyof typeof FIELD_CATALOGUES)[];
+    const kinds = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'builds', 'customers'] as const satisfies readonly (keyof typeof FIELD_CATALOGUES)[];
     expect(Object.keys(FIELD_CATALOGUES)).toEqual(kinds);
     for (const kind of kinds) {
       const catalogues: FieldCatalogue[] = kind === 'builds' ? [FIELD_CATALOGUES.builds, GEARING_FIELDS] : [FIELD_CATALOGUES[kind]];

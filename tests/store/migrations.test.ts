@@ -25,7 +25,28 @@ describe('migrations', () => {
     const t = fresh();
     const store = await openStore(t.file('a.sqlite'));
     expect(await tableNames(store.db)).toEqual(
-      ['batteries', 'builds', 'classes', 'classRules', 'controllers', 'history', 'historyBuilds', 'historySelectors', 'motors', 'packEvents', 'propellers', 'runLogs', 'settings', 'supplies', 'supplyPacks', 'vehicles', 'verdicts'].sort(),
+      [
+        'batteries',
+        'builds',
+        'classes',
+        'classRules',
+        'controllers',
+        'customers',
+        'history',
+        'historyBuilds',
+        'historySelectors',
+        'motors',
+        'packEvents',
+        'propellers',
+        'runLogs',
+        'settings',
+        'supplies',
+        'supplyPacks',
+        'vehicles',
+        'verdicts',
+        'workOrderSteps',
+        'workOrders',
+      ].sort(),
     );
     expect(store.raw.pragma('journal_mode', { simple: true })).toBe('wal');
     expect(store.raw.pragma('foreign_keys', { simple: true })).toBe(1);

@@ -1,6 +1,7 @@
 import { BATTERY_FIELDS } from './battery-fields';
 import { BUILD_FIELDS, GEARING_FIELDS } from './build-fields';
 import { CONTROLLER_FIELDS } from './controller-fields';
+import { CUSTOMER_FIELDS } from './customer-fields';
 import type { FieldCatalogue, FieldSpec } from './field-spec';
 import { MOTOR_FIELDS } from './motor-fields';
 import { PROPELLER_FIELDS } from './propeller-fields';
@@ -16,6 +17,7 @@ export const FIELD_CATALOGUES = {
   propellers: PROPELLER_FIELDS,
   vehicles: VEHICLE_FIELDS,
   builds: BUILD_FIELDS,
+  customers: CUSTOMER_FIELDS,
 } as const satisfies Record<string, FieldCatalogue>;
 
 export type CatalogueKind = keyof typeof FIELD_CATALOGUES;
@@ -28,6 +30,7 @@ export const FIELD_PREFIXES = {
   propellers: 'propeller',
   vehicles: 'vehicle',
   builds: 'build',
+  customers: 'customer',
 } as const satisfies Record<CatalogueKind, string>;
 
 /** Every catalogue by the prefix its paths take, nested ones included. */
@@ -39,6 +42,7 @@ const BY_PREFIX = {
   vehicle: VEHICLE_FIELDS,
   build: BUILD_FIELDS,
   gearing: GEARING_FIELDS,
+  customer: CUSTOMER_FIELDS,
 } as const satisfies Record<string, FieldCatalogue>;
 
 function collect(): Map<string, FieldSpec> {

@@ -78,7 +78,9 @@ export const VEHICLE_FIELDS = {
     fallback: false,
     optional: true,
   },
-  owner: { type: 'text', label: 'Owner', maxLength: 120, fallback: '' },
+  // The customer whose vehicle this is; null is the shop's own. Replaced the free-text owner: files
+  // written before it carry `owner` text, which an import maps to customers.
+  customerId: { type: 'ref', label: 'Customer', hint: "empty: the shop's own", nullable: true, fallback: null, optional: true },
   className: { type: 'text', label: 'Class', maxLength: 80, fallback: '' },
   notes: NOTES,
 } as const satisfies FieldCatalogue;

@@ -1,6 +1,7 @@
 import type { DbHandle } from '../../store/db-handle';
 import { loadBuilds } from '../../store/repositories/builds';
 import { listParts } from '../../store/repositories/parts';
+import { loadAllWorkOrders } from '../../store/repositories/work-orders';
 import { canonicalRecord } from './canonical-record';
 import { FLEET_FORMAT, FLEET_PART_KINDS, FLEET_SCHEMA_ID, FLEET_VERSION, type FleetFile, type FleetRecords } from './fleet-format';
 import { progressCounter, type OnProgress } from './progress';
@@ -36,6 +37,7 @@ export async function exportFleet(db: DbHandle, onProgress?: OnProgress): Promis
     }),
     packEvents: logs.packEvents,
     runLogs: logs.runLogs,
+    workOrders: (await loadAllWorkOrders(db)).map((o) => canonicalRecord('workOrders', o) as unknown as FleetFile['workOrders'][number]),
   };
   return out;
 }

@@ -34,7 +34,7 @@ export const SUSPECT_FACTOR = 100;
 export const LIKELY_CAUSE = 'a spreadsheet set to a locale that uses the comma as the decimal mark reads 0.008 as 8 and 1.5 as 15 (the point groups thousands there), or a unit slip (mΩ for Ω, g for kg)';
 
 /** The engine's name for one record of each kind: the prefix of its field paths. */
-const SINGULAR: Readonly<Record<FleetKind, string>> = { ...FIELD_PREFIXES, classes: 'class', classRules: 'classRule' };
+const SINGULAR: Readonly<Record<FleetKind, string>> = { ...FIELD_PREFIXES, classes: 'class', classRules: 'classRule', workOrders: 'workOrder' };
 
 /** The field's path as the catalogues and the engine name it: `motor.kv`, `gearing.pinionTeeth`. */
 function pathOf(kind: FleetKind, field: string): string {

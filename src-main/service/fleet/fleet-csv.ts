@@ -4,7 +4,7 @@ import { listParts } from '../../store/repositories/parts';
 import type { ServiceContext } from '../service-context';
 import { canonicalRecord } from './canonical-record';
 import { csvText, parseCsv } from './csv';
-import { csvColumns, fromCell, toCell, type CsvKind } from './csv-columns';
+import { csvColumns, fromCell, toCell, type CsvColumn, type CsvKind } from './csv-columns';
 import { numericTwin } from './numeric-twin';
 import { lossyDecodingReason } from './decode-file-bytes';
 
@@ -53,7 +53,11 @@ const LATER_COLUMNS: ReadonlySet<string> = new Set([
   'minVoltageV',
   'wireGaugeAwg',
   'connectorRatingA',
+  'customerId',
 ]);
+
+/** Columns older files carried and exports no longer write: read, and turned into what replaced them (a vehicle's owner text into a customer). */
+const OLDER_COLUMNS: Readonly<Partial<Record<CsvKind, readonly CsvColumn[]>>> = { vehicles: [{ name: 'owner', kind: 'text', nullable: false }] };
 
 /** A row of nothing but separators (and spaces): spreadsheets write them for formatted empty rows. */
 function isBlankRow(cells: readonly string[]): boolean {
@@ -86,7 +90,7 @@ export function readCsvRecords(kind: CsvKind, text: string, onProgress?: OnProgr
   if (!header) return { ok: false, unreadable: true, problems: [{ place: '', message: 'The file is empty: it needs a header row naming the columns.' }] };
   const body = parsed.rows.slice(firstRow + 1);
   const columns = csvColumns(kind);
-  const byName = new Map(columns.map((c) => [c.name, c]));
+  const byName = new Map([...columns, ...(OLDER_COLUMNS[kind] ?? [])].map((c) => [c.name, c]));
   const separator = otherSeparator(header, new Set(byName.keys()));
   if (separator !== null) {
     return {

@@ -10,6 +10,7 @@ export interface StoredIds {
   motors: ReadonlySet<string>;
   controllers: ReadonlySet<string>;
   propellers: ReadonlySet<string>;
+  customers: ReadonlySet<string>;
   vehicles: ReadonlySet<string>;
   /** Supply id → the build that holds it. */
   supplyOwners: ReadonlyMap<string, string>;
@@ -20,11 +21,12 @@ export const NO_STORED_IDS: StoredIds = {
   motors: new Set(),
   controllers: new Set(),
   propellers: new Set(),
+  customers: new Set(),
   vehicles: new Set(),
   supplyOwners: new Map(),
 };
 
-type ReferencedKind = 'batteries' | 'motors' | 'controllers' | 'propellers' | 'vehicles';
+type ReferencedKind = 'batteries' | 'motors' | 'controllers' | 'propellers' | 'customers' | 'vehicles';
 
 export function referenceProblems(fleet: FleetRecords, fileIds: Readonly<Record<FleetKind, ReadonlySet<string>>>, stored: StoredIds, buildPlaces: readonly number[]): FleetProblem[] {
   const problems: FleetProblem[] = [];
@@ -33,6 +35,15 @@ export function referenceProblems(fleet: FleetRecords, fileIds: Readonly<Record<
     if (id === null || fileIds[kind].has(id) || stored[kind].has(id)) return;
     problems.push({ place, message: `no ${KIND_WORDS[kind].one} with id "${id}" ${where}` });
   };
+  fleet.vehicles.forEach((vehicle, i) => check(placeOf('vehicles', i, 'customerId'), 'customers', vehicle.customerId ?? null));
+  fleet.workOrders.forEach((order, i) => {
+    check(placeOf('workOrders', i, 'vehicleId'), 'vehicles', order.vehicleId);
+    check(placeOf('workOrders', i, 'customerId'), 'customers', order.customerId);
+    // A handed-over job carries when, and the verdicts it was handed over with.
+    if (order.status === 'handed-over' && (order.handedOverAt === null || order.verdictsAtHandOver === null)) {
+      problems.push({ place: placeOf('workOrders', i, 'handedOverAt'), message: 'a handed-over work order needs handedOverAt and verdictsAtHandOver' });
+    }
+  });
   const packNames = new Map(fleet.batteries.map((p) => [p.id, p.name]));
   fleet.builds.forEach((build, b) => {
     const at = placeOf('builds', buildPlaces[b] ?? 0);

@@ -18,6 +18,7 @@ import { buildIdsUsingAny, clearFleetTables, deleteSuppliesOf, insertBuildRows, 
 import { getBuilds, updateBuildAtVersion } from '../../store/repositories/builds';
 import type { VerdictChange } from '../../store/repositories/history';
 import { getParts, updatePartAtVersion } from '../../store/repositories/parts';
+import { existingHistoryIds, getWorkOrder, writeWholeWorkOrder } from '../../store/repositories/work-orders';
 import type { PartRecords } from '../../store/repositories/part-records';
 import { ServiceError } from '../contract';
 import { runWrite } from '../run-write';
@@ -250,6 +251,8 @@ async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, 
   for (const kind of FLEET_PART_KINDS) {
     const { changed, before } = await writeParts(trx, kind, fleet[kind] as PartRecords[typeof kind][], merging, at, written, tick);
     for (const record of changed) {
+      // A customer's name or contact changes no build's figures.
+      if (kind === 'customers') continue;
       if (kind === 'classRules') {
         const rule = record as PartRecords['classRules'];
         classNames.add(rule.className);
@@ -302,6 +305,9 @@ async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, 
   done += addedBuilds.length + written.counts.builds.unchanged;
   progress(done);
 
+  await writeWorkOrders(trx, fleet.workOrders, merging, at, written);
+  for (let i = 0; i < fleet.workOrders.length; i++) tick();
+
   if (!merging) {
     written.recheck = { by: 'all' };
   } else {
@@ -310,6 +316,43 @@ async function writeFleet(trx: DbHandle, fleet: FleetRecords, mode: ImportMode, 
     written.recheck = ids.size > RECHECK_ALL_ABOVE ? { by: 'all' } : [...ids];
   }
   return written;
+}
+
+/**
+ * Work orders change no verdict: each is written whole (row and steps), a stored one of the same
+ * id rewritten only where the file's differs, at the stored version + 1. A step's links to
+ * history entries belong to the store they were made in: one is kept only where this store has
+ * an entry of that number written no later than the step, so a file from another store does
+ * not link a step to an unrelated entry.
+ */
+async function writeWorkOrders(trx: DbHandle, orders: FleetRecords['workOrders'], merging: boolean, at: string, written: Written): Promise<void> {
+  const counts = written.counts.workOrders;
+  const ids: string[] = [];
+  for (const order of orders) {
+    const stored = merging ? await getWorkOrder(trx, order.id) : undefined;
+    if (stored && sameFields('workOrders', order, stored)) {
+      counts.unchanged++;
+      continue;
+    }
+    const linked = await existingHistoryIds(trx, [...new Set(order.steps.flatMap((s) => s.historyIds))]);
+    const entryTimes = new Map(
+      linked.size === 0
+        ? []
+        : (
+            await trx
+              .selectFrom('history')
+              .select(['id', 'at'])
+              .where('id', 'in', [...linked])
+              .execute()
+          ).map((r) => [Number(r.id), r.at] as const),
+    );
+    const steps = order.steps.map((s) => ({ ...s, historyIds: s.historyIds.filter((h) => (entryTimes.get(h) ?? '\uffff') <= s.at) }));
+    await writeWholeWorkOrder(trx, { ...order, steps, version: stored ? stored.version + 1 : order.version }, at);
+    if (stored) counts.updated++;
+    else counts.added++;
+    ids.push(order.id);
+  }
+  written.changedIds.workOrders = ids;
 }
 
 /** Counts of what the store holds, archived records included, as "3 builds, 12 packs". */
@@ -380,7 +423,9 @@ export async function importFleet(ctx: ServiceContext, input: unknown, options: 
         if (problems.length > 0) throw new ImportRefused(sortProblems(problems, FLEET_KINDS));
         const taken = await classNameProblems(trx, validation.fleet, options.mode);
         if (taken.length > 0) throw new ImportRefused(taken);
-        written = await writeFleet(trx, validation.fleet, options.mode, at, () => ctx.newId(ID_PREFIXES.classes), options.onProgress);
+        // A customer made from an old file's owner text leaves a stored one of that id as it is (its contact and notes were typed since).
+        const fleet = { ...validation.fleet, customers: validation.fleet.customers.filter((c) => !(validation.ownerCustomerIds.has(c.id) && stored.customers.has(c.id))) };
+        written = await writeFleet(trx, fleet, options.mode, at, () => ctx.newId(ID_PREFIXES.classes), options.onProgress);
         const logsWritten = await writeLogs(trx, validation.logs, at);
         // A pack's log sets its sag and health: builds using a pack whose log came in are re-checked.
         if (Array.isArray(written.recheck) && logsWritten.packIds.length > 0) {

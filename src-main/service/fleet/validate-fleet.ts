@@ -7,6 +7,7 @@ import { fleetFileSchema, fleetRecordSchemas } from './fleet-schemas';
 import { placeOf, schemaProblems, type FleetProblem } from './fleet-problems';
 import { progressCounter, type OnProgress } from './progress';
 import { validateLogs, type FleetLogs } from './fleet-logs';
+import { customerIdForOwner } from '../../core/customer-id';
 
 const MAX_ID = 64;
 
@@ -18,6 +19,8 @@ export interface FleetValidation {
   /** For each build in `fleet.builds`, its position in the file's list, for naming places. */
   buildPlaces: number[];
   problems: FleetProblem[];
+  /** Customers made from vehicles' `owner` text (a file written before customers were records): a stored one of the same id is kept as it is. */
+  ownerCustomerIds: Set<string>;
   /** False when the value is not a fleet file at all (no records were looked at). */
   envelopeOk: boolean;
   /** The log sections (version 2), entries that passed. */
@@ -29,11 +32,11 @@ function isPlainObject(x: unknown): x is Record<string, unknown> {
 }
 
 function emptyIds(): Record<FleetKind, Set<string>> {
-  return { batteries: new Set(), motors: new Set(), controllers: new Set(), propellers: new Set(), vehicles: new Set(), classes: new Set(), classRules: new Set(), builds: new Set() };
+  return { batteries: new Set(), motors: new Set(), controllers: new Set(), propellers: new Set(), customers: new Set(), vehicles: new Set(), classes: new Set(), classRules: new Set(), builds: new Set(), workOrders: new Set() };
 }
 
 function emptyRecords(): FleetRecords {
-  return { batteries: [], motors: [], controllers: [], propellers: [], vehicles: [], classes: [], classRules: [], builds: [] };
+  return { batteries: [], motors: [], controllers: [], propellers: [], customers: [], vehicles: [], classes: [], classRules: [], builds: [], workOrders: [] };
 }
 
 /** The id a supply gets when a file leaves it out: stable, so reading the file twice gives the same ids. */
@@ -64,7 +67,7 @@ export function validateFleet(input: unknown, onProgress?: OnProgress): FleetVal
   const fleet = emptyRecords();
   const fileIds = emptyIds();
   const early = envelopeProblems(input);
-  if (early) return { fleet, fileIds, buildPlaces: [], problems: early, envelopeOk: false, logs: { packEvents: [], runLogs: [] } };
+  if (early) return { fleet, fileIds, buildPlaces: [], problems: early, ownerCustomerIds: new Set(), envelopeOk: false, logs: { packEvents: [], runLogs: [] } };
   const file = input as Record<string, unknown>;
   const problems: FleetProblem[] = [];
   const known = new Set<string>(Object.keys(fleetFileSchema.entries));
@@ -122,7 +125,29 @@ export function validateFleet(input: unknown, onProgress?: OnProgress): FleetVal
   fillSupplyIds(fleet, buildPlaces, duplicateBuilds, problems);
   const logs = validateLogs(file);
   problems.push(...logs.problems);
-  return { fleet, fileIds, buildPlaces, problems, envelopeOk: true, logs: logs.logs };
+  const ownerCustomerIds = customersFromOwners(fleet, fileIds);
+  return { fleet, fileIds, buildPlaces, problems, ownerCustomerIds, envelopeOk: true, logs: logs.logs };
+}
+
+/**
+ * A vehicle of an older file names its owner as text: it becomes a customer of that name (one
+ * per distinct text, the id the store's upgrade gave the same text), unless the vehicle already
+ * names a customer. Returns the ids of the customers made here.
+ */
+function customersFromOwners(fleet: FleetRecords, fileIds: Record<FleetKind, Set<string>>): Set<string> {
+  const made = new Set<string>();
+  for (const vehicle of fleet.vehicles as (FleetRecords['vehicles'][number] & { owner?: string })[]) {
+    const owner = (vehicle.owner ?? '').trim();
+    delete vehicle.owner;
+    if (owner === '' || (vehicle.customerId !== undefined && vehicle.customerId !== null)) continue;
+    const customerId = customerIdForOwner(owner);
+    vehicle.customerId = customerId;
+    if (fileIds.customers.has(customerId)) continue;
+    fileIds.customers.add(customerId);
+    made.add(customerId);
+    fleet.customers.push({ id: customerId, version: 1, archivedAt: null, name: owner, contact: '', notes: '' });
+  }
+  return made;
 }
 
 /** Gives every supply an id and reports a supply id used twice anywhere in the file. */

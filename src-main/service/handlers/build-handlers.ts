@@ -82,7 +82,7 @@ const listInput = v.optional(
     text: v.optional(text(200)),
     statuses: v.optional(v.array(oneOf(STATUSES), 'must be a list of verdicts')),
     kinds: v.optional(v.array(oneOf(VEHICLE_KINDS), 'must be a list of vehicle kinds')),
-    owner: v.optional(text(120)),
+    customer: v.optional(v.pipe(text(64), v.regex(/^(-|[A-Za-z0-9][A-Za-z0-9._-]*)$/, "must be a customer's id, or - for the shop's own vehicles"))),
     partId: v.optional(id()),
     includeArchived: v.optional(flag()),
     limit: v.optional(v.pipe(v.number('must be a number'), v.integer('must be a whole number'), v.minValue(1, 'must be 1 or more'), v.maxValue(100_000, 'must be 100000 or less'))),

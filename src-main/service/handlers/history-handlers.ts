@@ -3,7 +3,7 @@ import { buildNamesFor, listHistory, NAMED_BUILDS_PER_ENTRY } from '../../store/
 import { defineHandler } from '../define-handler';
 import { count, id, oneOf, record } from '../schemas/field-builders';
 
-const ENTITY_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classes', 'classRules', 'builds', 'settings', 'fleet'] as const;
+const ENTITY_KINDS = ['batteries', 'motors', 'controllers', 'propellers', 'vehicles', 'classes', 'classRules', 'builds', 'settings', 'fleet', 'customers', 'workOrders'] as const;
 
 export const listHistoryEntries = defineHandler(
   v.optional(

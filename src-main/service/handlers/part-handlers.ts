@@ -25,6 +25,8 @@ export const reasonField = () => v.optional(text(500), '');
 function affectedBuilds(table: PartTableName, record: { id: string; className?: string; name?: string }): BuildSelector {
   if (table === 'classRules') return { by: 'class', className: String(record.className) };
   if (table === 'classes') return { by: 'class', className: String(record.name) };
+  // A customer's name and contact change no figure of any build.
+  if (table === 'customers') return { by: 'ids', ids: [] };
   return { by: 'part', kind: table, id: record.id };
 }
 
@@ -38,6 +40,11 @@ export async function requirePart<T extends PartTableName>(db: DbHandle, table: 
   const found = await getPart(db, table, partId);
   if (!found) throw new ServiceError('not-found', `${field}: no ${RECORD_LABELS[table]} with id "${partId}"`, field);
   return found;
+}
+
+/** A vehicle's customer must be stored (archived customers too: their vehicles keep them). */
+async function requireReferences(db: DbHandle, table: PartTableName, fields: Record<string, unknown>): Promise<void> {
+  if (table === 'vehicles' && typeof fields.customerId === 'string') await requirePart(db, 'customers', fields.customerId, 'customerId');
 }
 
 export function conflict(kind: keyof typeof RECORD_LABELS, stored: { version: number }, expected: number): ServiceError {
@@ -58,6 +65,7 @@ export function createHandler<T extends PartTableName, S extends v.GenericSchema
     const newId = given ?? ctx.newId(ID_PREFIXES[table]);
     const outcome = await runWrite(ctx, async (trx, at) => {
       if (await getPart(trx, table, newId)) throw new ServiceError('conflict', `id: a ${RECORD_LABELS[table]} with id "${newId}" already exists`, 'id');
+      await requireReferences(trx, table, fields);
       const stored = await insertPart(trx, table, newId, fields as unknown as PartFields<T>, at);
       await ensureClassOf(ctx, trx, stored, at);
       // A new pack or motor is used by no build yet; a new class rule applies to its class at once.
@@ -86,6 +94,7 @@ export async function writePartPatch<T extends PartTableName>(
     async (trx, at) => {
       const before = await requirePart(trx, table, input.id);
       if (before.version !== input.expectedVersion) throw conflict(table, before, input.expectedVersion);
+      await requireReferences(trx, table, input.changes);
       const written = await updatePartAtVersion(trx, table, input.id, input.expectedVersion, input.changes as Partial<PartFields<T>>, at);
       if (written === 0) throw conflict(table, before, input.expectedVersion);
       const after = await requirePart(trx, table, input.id);

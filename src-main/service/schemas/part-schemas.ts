@@ -1,6 +1,7 @@
 import * as v from 'valibot';
 import { BATTERY_FIELDS } from '../../core/catalogue/battery-fields';
 import { CONTROLLER_FIELDS } from '../../core/catalogue/controller-fields';
+import { CUSTOMER_FIELDS } from '../../core/catalogue/customer-fields';
 import type { FieldCatalogue } from '../../core/catalogue/field-spec';
 import { MOTOR_FIELDS } from '../../core/catalogue/motor-fields';
 import { PROPELLER_FIELDS } from '../../core/catalogue/propeller-fields';
@@ -31,6 +32,7 @@ export const motorSchemas = catalogueSchemas(MOTOR_FIELDS);
 export const controllerSchemas = catalogueSchemas(CONTROLLER_FIELDS);
 export const propellerSchemas = catalogueSchemas(PROPELLER_FIELDS);
 export const vehicleSchemas = catalogueSchemas(VEHICLE_FIELDS);
+export const customerSchemas = catalogueSchemas(CUSTOMER_FIELDS);
 
 // A class is a name and notes; its limits are the class rules naming it.
 export const classSchemas = schemasFor({ name: name(), notes: notes() }, { notes: '' });

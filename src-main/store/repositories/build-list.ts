@@ -11,7 +11,10 @@ export interface BuildSummary {
   vehicleId: string;
   vehicleName: string;
   kind: VehicleKind;
-  owner: string;
+  /** The customer whose vehicle it is; null for the shop's own. */
+  customerId: string | null;
+  /** '' for the shop's own. */
+  customerName: string;
   className: string;
   motorId: string | null;
   motorName: string | null;
@@ -41,7 +44,8 @@ export const BUILD_SUMMARY_KEYS = [
   'vehicleId',
   'vehicleName',
   'kind',
-  'owner',
+  'customerId',
+  'customerName',
   'className',
   'motorId',
   'motorName',
@@ -60,9 +64,9 @@ export const BUILD_SUMMARY_KEYS = [
   'updatedAt',
 ] as const satisfies readonly (keyof BuildSummary)[];
 
-/** Columns that follow one another (a vehicle and its kind, owner and class; a part and its name): sent as one dictionary. */
+/** Columns that follow one another (a vehicle and its kind, customer and class; a part and its name): sent as one dictionary. */
 export const BUILD_SUMMARY_GROUPS = [
-  ['vehicleId', 'vehicleName', 'kind', 'owner', 'className'],
+  ['vehicleId', 'vehicleName', 'kind', 'customerId', 'customerName', 'className'],
   ['motorId', 'motorName'],
   ['controllerId', 'controllerName'],
   ['supplyLabels', 'batteryIds'],
@@ -71,11 +75,15 @@ export const BUILD_SUMMARY_GROUPS = [
 /** Columns that hardly ever repeat: sent as they are. */
 export const BUILD_SUMMARY_PLAIN = ['id', 'name', 'theoreticalSpeedKmh', 'peakCurrentA'] as const satisfies readonly (keyof BuildSummary)[];
 
+/** The customer filter's word for the shop's own vehicles (no customer). */
+export const CUSTOMER_SHOP = '-';
+
 export interface BuildListFilter {
   text?: string;
   statuses?: Status[];
   kinds?: VehicleKind[];
-  owner?: string;
+  /** A customer's id, or CUSTOMER_SHOP ('-') for the shop's own vehicles; '' or absent for every one. */
+  customer?: string;
   /** Builds that use this part (pack, motor, controller, propeller or vehicle id). */
   partId?: string;
   includeArchived?: boolean;
@@ -86,6 +94,7 @@ export async function listBuildSummaries(db: DbHandle, filter: BuildListFilter =
   let query = db
     .selectFrom('builds')
     .innerJoin('vehicles', 'vehicles.id', 'builds.vehicleId')
+    .leftJoin('customers', 'customers.id', 'vehicles.customerId')
     .leftJoin('motors', 'motors.id', 'builds.motorId')
     .leftJoin('controllers', 'controllers.id', 'builds.controllerId')
     .leftJoin('verdicts', 'verdicts.buildId', 'builds.id')
@@ -97,7 +106,8 @@ export async function listBuildSummaries(db: DbHandle, filter: BuildListFilter =
       'builds.vehicleId',
       'vehicles.name as vehicleName',
       'vehicles.kind',
-      'vehicles.owner',
+      'vehicles.customerId',
+      'customers.name as customerName',
       'vehicles.className',
       'builds.motorId',
       'motors.name as motorName',
@@ -118,7 +128,8 @@ export async function listBuildSummaries(db: DbHandle, filter: BuildListFilter =
   if (!filter.includeArchived) query = query.where('builds.archivedAt', 'is', null);
   if (filter.statuses && filter.statuses.length > 0) query = query.where('verdicts.status', 'in', filter.statuses);
   if (filter.kinds && filter.kinds.length > 0) query = query.where('vehicles.kind', 'in', filter.kinds);
-  if (filter.owner !== undefined && filter.owner !== '') query = query.where('vehicles.owner', '=', filter.owner);
+  if (filter.customer === CUSTOMER_SHOP) query = query.where('vehicles.customerId', 'is', null);
+  else if (filter.customer !== undefined && filter.customer !== '') query = query.where('vehicles.customerId', '=', filter.customer);
   if (filter.partId !== undefined && filter.partId !== '') {
     const partId = filter.partId;
     query = query.where((eb) =>
@@ -137,7 +148,7 @@ export async function listBuildSummaries(db: DbHandle, filter: BuildListFilter =
       .trim()
       .toLowerCase()
       .replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    query = query.where((eb) => eb.or((['builds.name', 'vehicles.name', 'vehicles.owner', 'motors.name', 'controllers.name'] as const).map((column) => sql<boolean>`lower(${eb.ref(column)}) like ${pattern} escape '\\'`)));
+    query = query.where((eb) => eb.or((['builds.name', 'vehicles.name', 'customers.name', 'motors.name', 'controllers.name'] as const).map((column) => sql<boolean>`lower(${eb.ref(column)}) like ${pattern} escape '\\'`)));
   }
   if (filter.limit !== undefined) query = query.limit(filter.limit);
   const rows = await query.execute();
@@ -145,6 +156,7 @@ export async function listBuildSummaries(db: DbHandle, filter: BuildListFilter =
   return rows.map((r) => ({
     ...r,
     kind: r.kind as VehicleKind,
+    customerName: r.customerName ?? '',
     status: r.status as Status | null,
     currentSource: r.currentSource === 'model' || r.currentSource === 'measured' ? r.currentSource : null,
     supplyLabels: labels.get(r.id)?.labels ?? [],

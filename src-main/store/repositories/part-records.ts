@@ -1,4 +1,4 @@
-import type { Battery, ClassRule, Controller, Motor, Propeller, Vehicle, VehicleClass } from '../../core/domain';
+import type { Battery, ClassRule, Controller, Customer, Motor, Propeller, Vehicle, VehicleClass } from '../../core/domain';
 import type { FieldSpec } from '../../core/catalogue/field-spec';
 import { FIELD_CATALOGUES } from '../../core/catalogue/record-kinds';
 import type { PartTableName } from '../schema';
@@ -12,6 +12,7 @@ export interface PartRecords {
   vehicles: Vehicle;
   classes: VehicleClass;
   classRules: ClassRule;
+  customers: Customer;
 }
 
 /** Fields a caller may set: everything but the bookkeeping. */

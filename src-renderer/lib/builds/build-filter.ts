@@ -7,21 +7,24 @@ export interface BuildFilter {
   text: string;
   statuses: readonly Status[];
   kinds: readonly VehicleKind[];
-  /** '' for every owner. */
-  owner: string;
+  /** '' for every customer; SHOP_OWN ('-') for the shop's own vehicles; else a customer id. */
+  customer: string;
   /** '' for every part; else a pack, motor, controller, propeller or vehicle id. */
   partId: string;
 }
 
-export const EMPTY_FILTER: BuildFilter = { text: '', statuses: [], kinds: [], owner: '', partId: '' };
+/** The customer filter's value for the shop's own vehicles, as the address writes it (`customer=-`). */
+export const SHOP_OWN = '-';
 
-export const SORT_KEYS = ['status', 'name', 'vehicle', 'owner', 'supply', 'voltage', 'speed', 'peak'] as const;
+export const EMPTY_FILTER: BuildFilter = { text: '', statuses: [], kinds: [], customer: '', partId: '' };
+
+export const SORT_KEYS = ['status', 'name', 'vehicle', 'customer', 'supply', 'voltage', 'speed', 'peak'] as const;
 export type SortKey = (typeof SORT_KEYS)[number];
 export type SortDir = 1 | -1;
 
 /** Everything the text search looks in, lower-cased once per load rather than per keystroke. */
 export function haystackOf(s: BuildSummary): string {
-  return [s.name, s.vehicleName, s.owner, s.className, s.motorName ?? '', s.controllerName ?? '', ...s.supplyLabels, s.kind].join('\u0001').toLowerCase();
+  return [s.name, s.vehicleName, s.customerName, s.className, s.motorName ?? '', s.controllerName ?? '', ...s.supplyLabels, s.kind].join('\u0001').toLowerCase();
 }
 
 export function usesPart(s: BuildSummary, partId: string): boolean {
@@ -30,7 +33,7 @@ export function usesPart(s: BuildSummary, partId: string): boolean {
 
 /** True when the filter lets every row through. */
 export function isEmptyFilter(filter: BuildFilter): boolean {
-  return filter.text.trim() === '' && filter.statuses.length === 0 && filter.kinds.length === 0 && filter.owner === '' && filter.partId === '';
+  return filter.text.trim() === '' && filter.statuses.length === 0 && filter.kinds.length === 0 && filter.customer === '' && filter.partId === '';
 }
 
 /**
@@ -53,7 +56,7 @@ export function matchingPositions(rows: readonly BuildSummary[], filter: BuildFi
     const s = rows[i]!;
     if (statuses && !statuses.has(s.status)) continue;
     if (kinds && !kinds.has(s.kind)) continue;
-    if (filter.owner !== '' && s.owner !== filter.owner) continue;
+    if (filter.customer !== '' && !ofCustomer(s, filter.customer)) continue;
     if (filter.partId !== '' && !usesPart(s, filter.partId)) continue;
     if (words.length > 0) {
       const hay = haystackAt(i);
@@ -85,7 +88,7 @@ const sameList = <T>(a: readonly T[], b: readonly T[]) => a.length === b.length 
  * does not.
  */
 export function narrows(previous: BuildFilter, next: BuildFilter): boolean {
-  return previous.owner === next.owner && previous.partId === next.partId && sameList(previous.statuses, next.statuses) && sameList(previous.kinds, next.kinds) && next.text.toLowerCase().startsWith(previous.text.toLowerCase());
+  return previous.customer === next.customer && previous.partId === next.partId && sameList(previous.statuses, next.statuses) && sameList(previous.kinds, next.kinds) && next.text.toLowerCase().startsWith(previous.text.toLowerCase());
 }
 
 function numberOrNull(a: number | null, b: number | null): number {
@@ -104,7 +107,7 @@ export function peakShare(s: BuildSummary): number | null {
 const TEXT_COLUMN: Partial<Record<SortKey, (s: BuildSummary) => string>> = {
   name: (s) => s.name,
   vehicle: (s) => s.vehicleName,
-  owner: (s) => s.owner,
+  customer: (s) => s.customerName,
   supply: (s) => s.supplyLabels.join(', '),
 };
 
@@ -131,7 +134,7 @@ export function sortSummaries(rows: readonly BuildSummary[], key: SortKey, dir: 
     status: (a, b) => dir * (statusRank(a.s.status) - statusRank(b.s.status)),
     name: text,
     vehicle: text,
-    owner: text,
+    customer: text,
     supply: text,
     voltage: num((s) => s.supplyVoltageFullV),
     speed: num((s) => s.theoreticalSpeedKmh),
@@ -143,11 +146,16 @@ export function sortSummaries(rows: readonly BuildSummary[], key: SortKey, dir: 
   return keyed.map((k) => k.s);
 }
 
-/** Owners present in the list, for the owner filter. */
-export function ownersOf(rows: readonly BuildSummary[]): string[] {
-  const set = new Set<string>();
-  for (const s of rows) if (s.owner !== '') set.add(s.owner);
-  return [...set].sort(collator.compare);
+/** Whether a row belongs to the filter's customer (SHOP_OWN: to no customer). */
+export function ofCustomer(s: BuildSummary, customer: string): boolean {
+  return customer === SHOP_OWN ? s.customerId === null : s.customerId === customer;
+}
+
+/** Customers present in the list, by name, for the customer filter. */
+export function customersOf(rows: readonly BuildSummary[]): { id: string; name: string }[] {
+  const byId = new Map<string, string>();
+  for (const s of rows) if (s.customerId !== null) byId.set(s.customerId, s.customerName);
+  return [...byId].map(([id, name]) => ({ id, name })).sort((a, b) => collator.compare(a.name, b.name) || (a.id < b.id ? -1 : 1));
 }
 
 export function countByStatus(rows: readonly BuildSummary[]): Record<Status, number> {

@@ -7,7 +7,8 @@ export interface ListQuery {
   text: string;
   statuses: Status[];
   kinds: VehicleKind[];
-  owner: string;
+  /** '' every customer, '-' the shop's own, else a customer id. */
+  customer: string;
   partId: string;
   sortKey: SortKey;
   sortDir: SortDir;
@@ -19,7 +20,7 @@ export const DEFAULT_LIST_QUERY: ListQuery = {
   text: '',
   statuses: [],
   kinds: [],
-  owner: '',
+  customer: '',
   partId: '',
   sortKey: 'status',
   sortDir: 1,
@@ -41,7 +42,7 @@ export function parseListQuery(search: string): ListQuery {
     text: p.get('q') ?? '',
     statuses: listOf(p.get('v'), STATUSES),
     kinds: listOf(p.get('kind'), VEHICLE_KINDS),
-    owner: p.get('owner') ?? '',
+    customer: p.get('customer') ?? '',
     partId: p.get('part') ?? '',
     sortKey: (SORT_KEYS as readonly string[]).includes(sort ?? '') ? (sort as SortKey) : DEFAULT_LIST_QUERY.sortKey,
     sortDir: p.get('dir') === 'desc' ? -1 : 1,
@@ -55,7 +56,7 @@ export function formatListQuery(q: ListQuery): string {
   if (q.text !== '') p.set('q', q.text);
   if (q.statuses.length > 0) p.set('v', q.statuses.join(','));
   if (q.kinds.length > 0) p.set('kind', q.kinds.join(','));
-  if (q.owner !== '') p.set('owner', q.owner);
+  if (q.customer !== '') p.set('customer', q.customer);
   if (q.partId !== '') p.set('part', q.partId);
   if (q.sortKey !== DEFAULT_LIST_QUERY.sortKey) p.set('sort', q.sortKey);
   if (q.sortDir === -1) p.set('dir', 'desc');

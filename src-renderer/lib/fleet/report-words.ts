@@ -10,10 +10,12 @@ const WORDS: Readonly<Record<Kind, readonly [string, string]>> = {
   motors: ['motor', 'motors'],
   controllers: ['speed controller', 'speed controllers'],
   propellers: ['propeller', 'propellers'],
+  customers: ['customer', 'customers'],
   vehicles: ['vehicle', 'vehicles'],
   classes: ['class', 'classes'],
   classRules: ['class limit', 'class limits'],
   builds: ['build', 'builds'],
+  workOrders: ['work order', 'work orders'],
 };
 
 export function countOf(n: number, kind: Kind): string {

@@ -55,7 +55,7 @@ const COLUMNS: Readonly<Record<PartTable, readonly string[]>> = {
   motors: ['name', 'kv', 'resistanceOhm', 'noLoadCurrentA', 'maxCurrentA', 'maxPowerW'],
   controllers: ['name', 'maxVoltageV', 'maxCells', 'continuousCurrentA', 'burstCurrentA'],
   propellers: ['name', 'diameterMm', 'pitchMm', 'blades', 'thrustCoefficient', 'powerCoefficient'],
-  vehicles: ['name', 'kind', 'owner', 'className', 'massKg'],
+  vehicles: ['name', 'kind', 'customerId', 'className', 'massKg'],
 };
 
 const OPTION_LABELS: Readonly<Record<string, Readonly<Record<string, string>>>> = {
@@ -73,7 +73,7 @@ const OPTION_LABELS: Readonly<Record<string, Readonly<Record<string, string>>>> 
 const VEHICLE_FORM_PLACES = {
   name: 1,
   kind: 2,
-  owner: 3,
+  customerId: 3,
   className: 4,
   massKg: 5,
   surface: 6,

@@ -18,7 +18,10 @@ export type Route =
   | { name: 'vehicles'; id: string | null }
   | { name: 'classes'; id: string | null }
   | { name: 'history'; kind: HistoryKind | null; id: string | null }
-  | { name: 'settings' };
+  | { name: 'settings' }
+  | { name: 'customers'; id: string | null }
+  | { name: 'work-order'; id: string }
+  | { name: 'work-order-new'; vehicleId: string | null };
 
 /**
  * What a comparison of one build sets side by side: its supplies, or the build as it is and with
@@ -26,7 +29,7 @@ export type Route =
  */
 export type CompareOf = { supplies: true } | { change: string; title: string };
 
-export type Tab = 'builds' | 'parts' | 'vehicles' | 'classes' | 'history' | 'settings';
+export type Tab = 'builds' | 'parts' | 'vehicles' | 'classes' | 'history' | 'settings' | 'customers';
 
 const isPartSlug = (s: string | undefined): s is PartSlug => (PART_SLUGS as readonly string[]).includes(s ?? '');
 const isHistoryKind = (s: string | undefined): s is HistoryKind => (HISTORY_KINDS as readonly string[]).includes(s ?? '');
@@ -87,6 +90,13 @@ export function parseRoute(hash: string): Route {
       return isHistoryKind(a) && decode(b) !== null ? { name: 'history', kind: a, id: decode(b) } : { name: 'history', kind: null, id: null };
     case 'settings':
       return { name: 'settings' };
+    case 'customers':
+      return { name: 'customers', id: decode(a) };
+    case 'jobs': {
+      if (a === 'new') return { name: 'work-order-new', vehicleId: new URLSearchParams(search).get('vehicle') };
+      const id = decode(a);
+      return id === null ? { name: 'customers', id: null } : { name: 'work-order', id };
+    }
     case 'compare': {
       const ids = compareIds(search);
       const params = new URLSearchParams(search);
@@ -126,6 +136,12 @@ export function formatRoute(route: Route): string {
       return route.kind !== null && route.id !== null ? `#/history/${route.kind}/${enc(route.id)}` : '#/history';
     case 'settings':
       return '#/settings';
+    case 'customers':
+      return route.id === null ? '#/customers' : `#/customers/${enc(route.id)}`;
+    case 'work-order':
+      return `#/jobs/${enc(route.id)}`;
+    case 'work-order-new':
+      return route.vehicleId ? `#/jobs/new?${new URLSearchParams({ vehicle: route.vehicleId }).toString()}` : '#/jobs/new';
     case 'compare': {
       const base = `#/compare?ids=${route.ids.map(enc).join(',')}`;
       if (!route.of) return base;
@@ -143,6 +159,9 @@ export function tabOf(route: Route): Tab {
     case 'build-swap':
     case 'compare':
       return 'builds';
+    case 'work-order':
+    case 'work-order-new':
+      return 'customers';
     default:
       return route.name;
   }

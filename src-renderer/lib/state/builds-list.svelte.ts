@@ -6,7 +6,7 @@ import { Loader } from './loader.svelte';
 import { MAX_COMPARED } from '../compare/compare-limit';
 import type { BuildSummary } from '../builds/build-summary';
 import { DEFAULT_LIST_QUERY, type ListQuery } from '../builds/list-query';
-import { countByStatus, haystackOf, isEmptyFilter, matchingPositions, narrows, ownersOf, sortSummaries, type BuildFilter, type SortDir, type SortKey } from '../builds/build-filter';
+import { countByStatus, haystackOf, isEmptyFilter, matchingPositions, narrows, customersOf, sortSummaries, type BuildFilter, type SortDir, type SortKey } from '../builds/build-filter';
 
 const NONE: BuildSummary[] = [];
 
@@ -43,7 +43,8 @@ export class BuildsListState {
   text = $state('');
   statuses = $state<Status[]>([]);
   kinds = $state<VehicleKind[]>([]);
-  owner = $state('');
+  /** '' every customer, '-' the shop's own, else a customer id. */
+  customer = $state('');
   partId = $state('');
   /** Lists the archived builds instead of the active ones. */
   archived = $state(false);
@@ -70,22 +71,22 @@ export class BuildsListState {
   /** The builds of the list shown: the active ones, or the archived ones. */
   scoped = $derived(this.archived ? this.all.filter((s) => s.archivedAt !== null) : this.all);
   sorted = $derived(sortSummaries(this.scoped, this.sortKey, this.sortDir));
-  visible = $derived(this.#filter(this.sorted, { text: this.text, statuses: this.statuses, kinds: this.kinds, owner: this.owner, partId: this.partId }));
-  owners = $derived(ownersOf(this.all));
+  visible = $derived(this.#filter(this.sorted, { text: this.text, statuses: this.statuses, kinds: this.kinds, customer: this.customer, partId: this.partId }));
+  customers = $derived(customersOf(this.all));
   counts = $derived(countByStatus(this.scoped));
   /** Everything the address keeps of the list (see list-query.ts). */
   query = $derived<ListQuery>({
     text: this.text,
     statuses: this.statuses,
     kinds: this.kinds,
-    owner: this.owner,
+    customer: this.customer,
     partId: this.partId,
     sortKey: this.sortKey,
     sortDir: this.sortDir,
     archived: this.archived,
   });
   selectedIndex = $derived(this.selectedId === null ? -1 : this.visible.findIndex((s) => s.id === this.selectedId));
-  filtering = $derived(this.text.trim() !== '' || this.statuses.length > 0 || this.kinds.length > 0 || this.owner !== '' || this.partId !== '');
+  filtering = $derived(this.text.trim() !== '' || this.statuses.length > 0 || this.kinds.length > 0 || this.customer !== '' || this.partId !== '');
 
   #pendingChanged = new Set<string>();
   #marking = new Set<string>();
@@ -187,7 +188,7 @@ export class BuildsListState {
     this.text = '';
     this.statuses = [];
     this.kinds = [];
-    this.owner = '';
+    this.customer = '';
     this.partId = '';
   }
 
@@ -196,7 +197,7 @@ export class BuildsListState {
     this.text = q.text;
     this.statuses = [...q.statuses];
     this.kinds = [...q.kinds];
-    this.owner = q.owner;
+    this.customer = q.customer;
     this.partId = q.partId;
     this.sortKey = q.sortKey;
     this.sortDir = q.sortDir;

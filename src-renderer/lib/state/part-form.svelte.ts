@@ -13,7 +13,7 @@ const NEW_DEFAULTS: Readonly<Record<PartTable, Record<string, unknown>>> = {
   motors: { notes: '' },
   controllers: { notes: '' },
   propellers: { blades: 2, notes: '' },
-  vehicles: { kind: 'car', owner: '', className: '', notes: '' },
+  vehicles: { kind: 'car', customerId: null, className: '', notes: '' },
 };
 
 /** One part's or vehicle's form (see form.svelte.ts for what every form does). */

@@ -68,7 +68,7 @@ export function vehicle(over: Partial<Vehicle> = {}): Vehicle {
     dragAreaM2: 0.03,
     rollingCoefficient: 0.03,
     tractionCoefficient: 0.9,
-    owner: '',
+    customerId: null,
     className: '',
     ...over,
   };
