@@ -55,7 +55,24 @@ export async function readFleetIds(db: DbHandle): Promise<StoredFleetIds> {
 }
 
 /** Tables a replace empties, children first. History and settings stay: the history records the replace. */
-const FLEET_TABLES_CHILD_FIRST = ['runLogs', 'packEvents', 'verdicts', 'supplyPacks', 'supplies', 'builds', 'classRules', 'classes', 'workOrderSteps', 'workOrders', 'vehicles', 'customers', 'propellers', 'controllers', 'motors', 'batteries'] as const;
+const FLEET_TABLES_CHILD_FIRST = [
+  'runLogs',
+  'packEvents',
+  'verdicts',
+  'supplyPacks',
+  'supplies',
+  'builds',
+  'classRules',
+  'classes',
+  'workOrderSteps',
+  'workOrders',
+  'vehicles',
+  'customers',
+  'propellers',
+  'controllers',
+  'motors',
+  'batteries',
+] as const;
 
 export type ClearedCounts = Record<PartTableName | 'builds' | 'workOrders', number>;
 

@@ -10,7 +10,8 @@ export const FIGURE_STAGES = ['supply', 'controller', 'motor', 'drive', 'output'
 export type FigureStage = (typeof FIGURE_STAGES)[number];
 
 /** The physical quantity a figure measures. */
-export type FigureQuantity = 'count' | 'motor-constant' | 'voltage' | 'current' | 'power' | 'resistance' | 'charge' | 'rotation' | 'torque-constant' | 'ratio' | 'length' | 'speed' | 'force' | 'density' | 'time' | 'fraction' | 'energy' | 'mass';
+export type FigureQuantity =
+  'count' | 'motor-constant' | 'voltage' | 'current' | 'power' | 'resistance' | 'charge' | 'rotation' | 'torque-constant' | 'ratio' | 'length' | 'speed' | 'force' | 'density' | 'time' | 'fraction' | 'energy' | 'mass';
 
 /** The pack state a figure is worked out at; null where the pack voltage does not enter. */
 export type FigureCharge = 'nominal' | 'full' | 'cutoff' | null;
