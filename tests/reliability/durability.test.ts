@@ -118,10 +118,17 @@ describe('durability', () => {
     async () => {
       const random = seededRandom(SEED + 1);
       for (const level of ['OFF', 'NORMAL']) {
-        const cut = await powerCut(`${level.toLowerCase()}`, random, level);
-        expect(cut.pragmas.synchronous).toBe(level === 'OFF' ? 0 : 1);
-        // Acknowledged packs that only ever sat in the page cache are gone after the cut.
-        expect(cut.missing.length, `synchronous = ${level}: ${cut.acknowledged.length} acknowledged`).toBeGreaterThan(0);
+        // Acknowledged packs that only ever sat in the page cache are gone after the cut. A cut
+        // that falls just after a checkpoint (which syncs even here) can lose nothing, so up to
+        // three cuts are tried and one of them must lose a write.
+        const seen: string[] = [];
+        for (let attempt = 0; attempt < 3; attempt++) {
+          const cut = await powerCut(`${level.toLowerCase()}-${attempt}`, random, level);
+          expect(cut.pragmas.synchronous).toBe(level === 'OFF' ? 0 : 1);
+          seen.push(`${cut.missing.length} of ${cut.acknowledged.length} lost`);
+          if (cut.missing.length > 0) break;
+        }
+        expect(seen.at(-1), `synchronous = ${level}: ${seen.join('; ')}`).not.toMatch(/^0 of/);
       }
     },
     120_000,

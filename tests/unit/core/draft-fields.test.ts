@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { DRAFT_CATALOGUES, DRAFT_KINDS, draftFieldKeys, isDraftKind, type DraftKind } from '../../../src-main/core/catalogue/draft-fields';
 import type { FieldSpec } from '../../../src-main/core/catalogue/field-spec';
-import type { BuildContext } from '../../../src-main/core/domain';
+import type { Battery, BuildContext } from '../../../src-main/core/domain';
 import { evaluateBuild } from '../../../src-main/core/evaluate';
-import { controller, propeller, quadContext, truckContext } from './fixtures';
+import { controller, motor, propeller, quadContext, truckContext } from './fixtures';
 
 // The draft fields are checked against the evaluation itself: every field a draft leaves out
 // changes no figure or verdict when it takes its fallback, and every field a draft asks for
@@ -12,13 +12,22 @@ import { controller, propeller, quadContext, truckContext } from './fixtures';
 
 /** The contexts a part of each kind is tried in; the second ones reach the fields read only as a fallback. */
 const CONTEXTS: Record<DraftKind, BuildContext[]> = {
-  batteries: [truckContext()],
-  motors: [truckContext(), quadContext()],
+  // A pack with its lead gauge and connector rating entered, so the lead and connector checks judge it.
+  // A pack with a past (cycles before its log), which a draft leaves out; one in a multirotor, whose all-up mass counts the pack.
+  batteries: [packContext({ cycleCount: 150 }), packContext({ cycleCount: 150 }, quadContext()), packContext({ cycleCount: 150, wireGaugeAwg: 12, connectorRatingA: 60 })],
+  // A motor with a rated heat loss, so the heat check judges it.
+  motors: [truckContext(), quadContext(), truckContext({ motor: motor({ maxLossW: 120 }) })],
   // A controller rated only in cells: its cell count stands in for its voltage (4.2 V a cell, common practice).
-  controllers: [truckContext(), truckContext({ controller: controller({ maxVoltageV: null, maxCells: 6 }) })],
+  // Another with an eRPM limit and a minimum input voltage, so those checks judge it.
+  controllers: [truckContext(), truckContext({ controller: controller({ maxVoltageV: null, maxCells: 6 }) }), truckContext({ controller: controller({ maxErpm: 210_000, minVoltageV: 6 }) })],
   // A maker's rpm limit stricter than the tip-speed limit of a 127 mm propeller.
   propellers: [quadContext(), quadContext({ propeller: propeller({ maxRpm: 20_000 }) })],
 };
+
+function packContext(over: Partial<Battery>, ctx: BuildContext = truckContext()): BuildContext {
+  const pack = { ...[...ctx.batteries.values()][0]!, ...over };
+  return { ...ctx, batteries: new Map([[pack.id, pack]]) };
+}
 
 type Part = Record<string, unknown> & { id: string };
 
@@ -51,9 +60,10 @@ const verdictOf = (ctx: BuildContext) => JSON.stringify(evaluateBuild(ctx));
 describe('the fields of a draft part', () => {
   it('are the name and the fields the checks read, in catalogue order', () => {
     // The lists as the catalogues stood when written (December 2026).
-    expect(draftFieldKeys('motors')).toEqual(['name', 'kv', 'resistanceOhm', 'noLoadCurrentA', 'maxCurrentA', 'maxPowerW', 'maxVoltageV', 'maxRpm']);
-    expect(draftFieldKeys('batteries')).toEqual(['name', 'chemistry', 'cellsSeries', 'cellsParallel', 'capacityMah', 'cRatingContinuous', 'cRatingBurst', 'cellResistanceOhm']);
-    expect(draftFieldKeys('controllers')).toEqual(['name', 'maxVoltageV', 'maxCells', 'continuousCurrentA', 'burstCurrentA', 'resistanceOhm']);
+    // The wider checks (heat loss, eRPM with the pole count, minimum voltage, leads and connectors) came later the same month.
+    expect(draftFieldKeys('motors')).toEqual(['name', 'kv', 'resistanceOhm', 'noLoadCurrentA', 'maxCurrentA', 'maxPowerW', 'maxVoltageV', 'maxRpm', 'maxLossW', 'poles']);
+    expect(draftFieldKeys('batteries')).toEqual(['name', 'chemistry', 'cellsSeries', 'cellsParallel', 'capacityMah', 'cRatingContinuous', 'cRatingBurst', 'cellResistanceOhm', 'massKg', 'wireGaugeAwg', 'connectorRatingA']);
+    expect(draftFieldKeys('controllers')).toEqual(['name', 'maxVoltageV', 'maxCells', 'continuousCurrentA', 'burstCurrentA', 'maxErpm', 'minVoltageV', 'resistanceOhm']);
     expect(draftFieldKeys('propellers')).toEqual(['name', 'diameterMm', 'pitchMm', 'thrustCoefficient', 'powerCoefficient', 'maxRpm']);
   });
 
