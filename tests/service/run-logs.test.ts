@@ -71,7 +71,9 @@ forEachEngine((engine) => {
       const log = await f.call('runLogs.import', { buildId: onTwo.id, text: runCsv() });
       const used = await f.call('runLogs.useFigures', { id: log.id, expectedVersion: onTwo.version });
       expect(used.record).toMatchObject({ measuredPeakCurrentA: 140, measuredSupplyId: onTwo.supplies[0]!.id });
-      expect(used.record.measuredAverageCurrentA).toBeCloseTo(log.averageCurrentA!, 9);
+      // The continuous ratings judge the log's RMS current, never below its average (the safe side for heating).
+      expect(used.record.measuredAverageCurrentA).toBeCloseTo(log.rmsCurrentA!, 9);
+      expect(log.rmsCurrentA!).toBeGreaterThan(log.averageCurrentA!);
       const sheet = await f.call('builds.get', { id: onTwo.id });
       expect(sheet.verdict.supplies[0]!.figures.peakCurrentSource).toBe('measured');
       const history = await f.call('history.list', { entityKind: 'builds', entityId: onTwo.id });

@@ -210,9 +210,11 @@ export const getRunLogHandler = defineHandler(record({ id: id() }), async (ctx, 
 });
 
 /**
- * Puts the log's peak and average currents in the build's measured figures for the log's
- * supply, through the ordinary build update: re-checked and recorded in history, with the log
- * named as the reason.
+ * Puts the log's peak current, and its RMS current as the figure the continuous ratings judge,
+ * in the build's measured figures for the log's supply, through the ordinary build update:
+ * re-checked and recorded in history, with the log named as the reason. RMS, not the average:
+ * heating goes with the square of the current, and the RMS is never below the average, so a
+ * log with bursts is judged on the safe side.
  */
 export const useRunLogFigures = defineHandler(record({ id: id(), expectedVersion: v.pipe(v.number('must be a number'), v.integer('must be a whole number'), v.minValue(1, 'must be 1 or more')) }), async (ctx, input) => {
   const log = await getRunLog(ctx.db, input.id);
@@ -220,13 +222,14 @@ export const useRunLogFigures = defineHandler(record({ id: id(), expectedVersion
   if (log.peakCurrentA === null || !(log.peakCurrentA > 0) || log.averageCurrentA === null || !(log.averageCurrentA > 0)) {
     throw new ServiceError('invalid', `id: run log "${log.name}" has no usable current (a current column with a positive peak and average is needed)`, 'id');
   }
+  const continuousA = Math.max(log.rmsCurrentA ?? 0, log.averageCurrentA);
   const outcome = await writeBuildPatch(
     ctx,
     {
       id: log.buildId,
       expectedVersion: input.expectedVersion,
-      changes: { measuredPeakCurrentA: log.peakCurrentA, measuredAverageCurrentA: log.averageCurrentA, measuredSupplyId: log.supplyId },
-      reason: `Measured figures from run log "${log.name}"${log.recordedAt ? ` of ${log.recordedAt}` : ''}: peak ${log.peakCurrentA.toFixed(1)} A, average ${log.averageCurrentA.toFixed(1)} A over ${(log.durationS ?? 0).toFixed(1)} s`,
+      changes: { measuredPeakCurrentA: log.peakCurrentA, measuredAverageCurrentA: continuousA, measuredSupplyId: log.supplyId },
+      reason: `Measured figures from run log "${log.name}"${log.recordedAt ? ` of ${log.recordedAt}` : ''}: peak ${log.peakCurrentA.toFixed(1)} A, RMS ${continuousA.toFixed(1)} A (average ${log.averageCurrentA.toFixed(1)} A) over ${(log.durationS ?? 0).toFixed(1)} s`,
     },
     'update',
   );

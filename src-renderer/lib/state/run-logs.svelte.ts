@@ -120,7 +120,7 @@ export class RunLogsState {
     }
   }
 
-  /** Puts the shown log's peak and average currents in the build's measured figures for its supply. */
+  /** Puts the shown log's peak and RMS currents in the build's measured figures for its supply. */
   async useFigures(expectedVersion: number): Promise<boolean> {
     const log = this.shown;
     if (!log) return false;
