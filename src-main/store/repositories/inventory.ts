@@ -6,9 +6,17 @@ export type InventoryTable = 'batteries' | 'motors' | 'controllers' | 'propeller
 export interface PartUsage {
   /** Builds in use (not archived) that use the part. */
   buildCount: number;
-  /** When a logged current was last recorded on one of those builds (from the history); null when never. */
+  /**
+   * The newest log touching the part; null when none: a measured current entered on one of those
+   * builds (from the history), a run log imported onto one of them, or, for a pack, its own
+   * newest pack log entry.
+   */
   lastLogAt: string | null;
+  /** Charges in a pack's log (each a cycle on top of the hand-set count); 0 for other parts. */
+  loggedCharges: number;
 }
+
+const later = (a: string | null, b: string | null | undefined): string | null => (b == null ? a : a === null || b > a ? b : a);
 
 const COLUMN = { motors: 'motorId', controllers: 'controllerId', propellers: 'propellerId', vehicles: 'vehicleId' } as const;
 
@@ -60,10 +68,11 @@ async function lastLogByBuild(db: DbHandle): Promise<Map<string, string>> {
   return out;
 }
 
-/** How many builds use each part of the table, and when one of them last had a logged current. */
+/** How many builds use each part of the table, and when one of them (or a pack itself) was last logged. */
 export async function partUsage(db: DbHandle, table: InventoryTable): Promise<Record<string, PartUsage>> {
   const links = await partsByBuild(db, table);
   const logs = await lastLogByBuild(db);
+  for (const r of await db.selectFrom('runLogs').select(['buildId', 'importedAt']).execute()) logs.set(r.buildId, later(logs.get(r.buildId) ?? null, r.importedAt)!);
   const builds = new Map<string, Set<string>>();
   const out: Record<string, PartUsage> = {};
   for (const { buildId, partId } of links) {
@@ -73,11 +82,15 @@ export async function partUsage(db: DbHandle, table: InventoryTable): Promise<Re
   }
   for (const [partId, set] of builds) {
     let last: string | null = null;
-    for (const id of set) {
-      const at = logs.get(id);
-      if (at !== undefined && (last === null || at > last)) last = at;
+    for (const id of set) last = later(last, logs.get(id));
+    out[partId] = { buildCount: set.size, lastLogAt: last, loggedCharges: 0 };
+  }
+  if (table === 'batteries') {
+    for (const e of await db.selectFrom('packEvents').select(['batteryId', 'kind', 'at']).execute()) {
+      const usage = (out[e.batteryId] ??= { buildCount: 0, lastLogAt: null, loggedCharges: 0 });
+      usage.lastLogAt = later(usage.lastLogAt, e.at);
+      if (e.kind === 'charge') usage.loggedCharges++;
     }
-    out[partId] = { buildCount: set.size, lastLogAt: last };
   }
   return out;
 }
