@@ -110,6 +110,8 @@ test('filters, sort and search live in the address: a reload and Back keep them'
     .click();
   await expect(page.getByTestId('build-row')).toHaveCount(2);
   await expect(page.getByTestId('build-row').first()).toContainText('Green truck on spare');
+  // The address follows a moment after the last change (not on every keystroke).
+  await expect.poll(() => page.evaluate(() => /q=spare/u.test(window.location.hash) && /dir=desc/u.test(window.location.hash))).toBe(true);
   const hash = await page.evaluate(() => window.location.hash);
   const query = new URLSearchParams(hash.split('?')[1]);
   expect(query.get('v')).toBe('over');
@@ -155,7 +157,7 @@ test('archive, list the archived, restore, duplicate, and start a build from a v
   await expect(page.getByTestId('build-count')).toHaveText('1 archived builds');
   await expect(page.getByTestId('build-row')).toHaveCount(1);
   await expect(page.getByTestId('build-row').first()).toContainText('Test truck 4S');
-  expect(await page.evaluate(() => window.location.hash)).toContain('archived=1');
+  await expect.poll(() => page.evaluate(() => window.location.hash)).toContain('archived=1');
   await shot(page, 'builds-list-archived');
 
   // History names the archived build (not its id) and dates it in the reader's own calendar.

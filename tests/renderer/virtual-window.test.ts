@@ -13,11 +13,21 @@ describe('virtual window', () => {
   });
 
   it('clamps at both ends of the list', () => {
-    expect(visibleWindow(0, 600, 32, 10, 6)).toEqual({ start: 0, end: 10, offset: 0, total: 320 });
+    // 600 px of 32 px rows: 19 rows seen (18.75 rounded up) + 1 partly scrolled in + 6 either side.
+    expect(visibleWindow(0, 600, 32, 10, 6)).toEqual({ start: 0, end: 10, offset: 0, total: 320, slots: 32 });
     const bottom = visibleWindow(1e9, 600, 32, 1000, 6);
     expect(bottom.end).toBe(1000);
     expect(bottom.start).toBeGreaterThan(900);
-    expect(visibleWindow(0, 600, 32, 0)).toEqual({ start: 0, end: 0, offset: 0, total: 0 });
+    expect(visibleWindow(0, 600, 32, 0)).toEqual({ start: 0, end: 0, offset: 0, total: 0, slots: 32 });
+  });
+
+  it('keeps as many row elements for an empty or short list as for a long one', () => {
+    // The elements outlive a filter that matches nothing, so bringing the rows back only rewrites them.
+    const long = visibleWindow(3200, 600, 32, 10_000, 6);
+    expect(long.end - long.start).toBeLessThanOrEqual(long.slots);
+    expect(visibleWindow(0, 600, 32, 3, 6).slots).toBe(long.slots);
+    expect(visibleWindow(0, 600, 32, 0, 6).slots).toBe(long.slots);
+    expect(visibleWindow(0, 900, 32, 0, 6).slots).toBeGreaterThan(long.slots);
   });
 
   it('scrolls only as far as needed to show a row', () => {

@@ -10,17 +10,24 @@ export interface WindowSlice {
   offset: number;
   /** Height of the whole list, for the scroll bar. */
   total: number;
+  /**
+   * Row elements to keep in the page: enough for a full window whatever the count, so a filter
+   * that empties the list and brings it back reuses the same elements instead of making them anew.
+   */
+  slots: number;
 }
 
 export function visibleWindow(scrollTop: number, viewportHeight: number, rowHeight: number, count: number, overscan = 6): WindowSlice {
   const total = count * rowHeight;
-  if (count === 0 || rowHeight <= 0) return { start: 0, end: 0, offset: 0, total };
+  if (rowHeight <= 0) return { start: 0, end: 0, offset: 0, total, slots: 0 };
+  const shown = Math.ceil(Math.max(viewportHeight, rowHeight) / rowHeight) + 1;
+  const slots = shown + 2 * overscan;
+  if (count === 0) return { start: 0, end: 0, offset: 0, total, slots };
   const top = Math.max(0, Math.min(scrollTop, Math.max(0, total - viewportHeight)));
   const first = Math.floor(top / rowHeight);
-  const shown = Math.ceil(Math.max(viewportHeight, rowHeight) / rowHeight) + 1;
   const start = Math.max(0, first - overscan);
   const end = Math.min(count, first + shown + overscan);
-  return { start, end, offset: start * rowHeight, total };
+  return { start, end, offset: start * rowHeight, total, slots };
 }
 
 /** The scroll position that brings a row fully into view, moving as little as possible. */
