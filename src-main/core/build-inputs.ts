@@ -5,11 +5,12 @@
 import { fieldAir, type FieldAir } from './atmosphere';
 import { millivoltExact } from './chemistry';
 import { AIR_DENSITY, CONTROLLER_VOLTS_PER_RATED_CELL, DEFAULT_2WD_DRIVEN_SHARE, DEFAULT_RUN_LENGTH_S, FRESH_WATER_DENSITY, SEA_WATER_DENSITY } from './constants';
-import { SURFACES, VEHICLE_KINDS, type BuildContext, type Surface, type VehicleKind } from './domain';
+import { SURFACES, VEHICLE_KINDS, type BuildContext, type PropellerEstimateMethod, type Surface, type VehicleKind } from './domain';
 import { finalDriveRatio } from './drivetrain';
 import { count, known, lacking, nonNegative, positive, type Known } from './known';
 import { isPlausible, type PlausibleField } from './plausibility';
 import { estimateStaticCoefficients } from './propeller-estimate';
+import { estimateWaterCoefficients } from './water-propeller-estimate';
 import { typicalDragArea, typicalRollingCoefficient, typicalTractionCoefficient } from './typical-values';
 
 /** A positive value inside the field's plausible range, else lacking the field. */
@@ -75,6 +76,8 @@ export interface BuildInputs {
   typicalFields: string[];
   /** Propeller coefficients left empty and estimated from the geometry (field paths). */
   estimatedFields: string[];
+  /** How they were estimated; null where none was. */
+  estimateMethod: PropellerEstimateMethod | null;
   /** The user confirmed the typical and estimated values: verdicts resting on them may read clear. */
   typicalConfirmed: boolean;
   surface: Surface | null;
@@ -169,14 +172,17 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
     }
   }
 
-  // An air propeller without coefficients gets them estimated from its geometry; water
-  // propellers are not estimated (their blade area differs too much from an air propeller's).
+  // A propeller without coefficients gets them estimated from its geometry: an air propeller's
+  // by blade-element momentum theory, a boat's from the B-series at the bollard point. An
+  // entered coefficient always wins.
   const estimatedFields: string[] = [];
   let thrustCoefficient: Known = propeller ? positive(propeller.thrustCoefficient, 'propeller.thrustCoefficient') : noProp;
   let powerCoefficient: Known = propeller ? positive(propeller.powerCoefficient, 'propeller.powerCoefficient') : noProp;
   const airProp = kindValue === 'multirotor' || kindValue === 'plane';
-  if (propeller && airProp && (propeller.thrustCoefficient == null || propeller.powerCoefficient == null) && diameterMm.value !== null && pitchMm.value !== null) {
-    const est = estimateStaticCoefficients(diameterMm.value / 1000, pitchMm.value / 1000, propeller.blades);
+  const propEstimate: PropellerEstimateMethod | null = airProp ? 'air-blade-element' : boat ? 'water-b-series' : null;
+  if (propeller && propEstimate !== null && (propeller.thrustCoefficient == null || propeller.powerCoefficient == null) && diameterMm.value !== null && pitchMm.value !== null) {
+    const estimate = propEstimate === 'water-b-series' ? estimateWaterCoefficients : estimateStaticCoefficients;
+    const est = estimate(diameterMm.value / 1000, pitchMm.value / 1000, propeller.blades);
     if (propeller.thrustCoefficient == null) {
       thrustCoefficient = known(est.thrustCoefficient);
       estimatedFields.push('propeller.thrustCoefficient');
@@ -235,6 +241,7 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
     fieldAltitudeM: altitude,
     typicalFields,
     estimatedFields,
+    estimateMethod: estimatedFields.length > 0 ? propEstimate : null,
     typicalConfirmed: vehicle?.typicalValuesConfirmed === true,
     surface,
     depthOfDischarge: dodGiven ? dod : DEFAULT_DEPTH_OF_DISCHARGE,

@@ -144,7 +144,12 @@ export interface ValueUsed {
   field: string;
   value: number;
   basis: 'typical' | 'estimated';
+  /** For an estimated value, how it was estimated. */
+  method?: PropellerEstimateMethod;
 }
+
+/** How a propeller's empty coefficients are estimated: an air propeller's, or a boat's at the bollard point. */
+export type PropellerEstimateMethod = 'air-blade-element' | 'water-b-series';
 
 /** One pack's part of a supply's current, as judged. */
 export interface PackShare {

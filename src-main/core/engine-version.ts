@@ -13,4 +13,6 @@
 //    and pack logs: the newest logged resistance measurement sets a pack's sag; the pack-health rule.
 //    and cells in series, motor Kv and pinion are figures a class limit can judge (a stored limit on
 //    one read incomplete before).
-export const ENGINE_VERSION = 5;
+// 6: a boat's propeller without coefficients gets them from the Wageningen B-series at the bollard
+//    point (a boat known by diameter × pitch read incomplete before; now no better than tight).
+export const ENGINE_VERSION = 6;

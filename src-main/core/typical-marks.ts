@@ -8,6 +8,7 @@ import { FIGURE_KEYS, FIGURES, type FigureKey } from './catalogue/figures';
 import type { Figures, Finding, ValueUsed, VehicleKind } from './domain';
 import { messageNumber } from './message-number';
 import { ESTIMATE } from './propeller-estimate';
+import { WATER_ESTIMATE } from './water-propeller-estimate';
 
 export interface TypicalMarks {
   valuesUsed: ValueUsed[];
@@ -51,7 +52,7 @@ export function markTypical(inp: BuildInputs, findings: Finding[], figures: Figu
   }
   for (const field of inp.estimatedFields) {
     const v = valueOf(inp, field);
-    if (v !== null) valuesUsed.push({ field, value: v, basis: 'estimated' });
+    if (v !== null) valuesUsed.push(inp.estimateMethod === null ? { field, value: v, basis: 'estimated' } : { field, value: v, basis: 'estimated', method: inp.estimateMethod });
   }
   if (valuesUsed.length === 0) return { valuesUsed, markedFigures: [] };
   const markedFigures: FigureKey[] = [];
@@ -102,10 +103,17 @@ export function typicalSentences(inp: BuildInputs, kind: VehicleKind | null, mar
   }
   const estimated = marks.valuesUsed.filter((u) => u.basis === 'estimated');
   if (estimated.length > 0) {
-    out.push(
-      `Estimated from the propeller's diameter, pitch and blade count (blade-element momentum theory, about \u00b1${Math.round(ESTIMATE.accuracy * 100)} %): ${estimated.map((u) => `${FIELD_WORDS[u.field] ?? u.field} ${fmt(u.value)}`).join(', ')}. ` +
-        (inp.typicalConfirmed ? 'Confirmed on the vehicle.' : 'Until confirmed, a check resting on them reads no better than tight; measured coefficients replace them.'),
-    );
+    const values = estimated.map((u) => `${FIELD_WORDS[u.field] ?? u.field} ${fmt(u.value)}`).join(', ');
+    const until = inp.typicalConfirmed ? 'Confirmed on the vehicle.' : 'Until confirmed, a check resting on them reads no better than tight; measured coefficients replace them.';
+    if (inp.estimateMethod === 'water-b-series') {
+      out.push(
+        `Estimated from the propeller's diameter, pitch and blade count (water propeller, B-series at bollard, about \u00b1${Math.round(WATER_ESTIMATE.accuracy * 100)} %): ${values}. ` +
+          `Taken fully submerged and held still at full throttle, with a blade-area ratio of ${fmt(WATER_ESTIMATE.assumedAreaRatio)} to ${fmt(WATER_ESTIMATE.areaRatio.max)} (not recorded; the more torque), the most current the propeller can ask for; a surface-piercing propeller under way draws less. ` +
+          until,
+      );
+    } else {
+      out.push(`Estimated from the propeller's diameter, pitch and blade count (blade-element momentum theory, about \u00b1${Math.round(ESTIMATE.accuracy * 100)} %): ${values}. ` + until);
+    }
   }
   out.push(`Run time: ${Math.round(inp.depthOfDischarge * 100)} % of the capacity (${inp.depthOfDischargeDefault ? 'the default depth of discharge; set one on the build' : 'as set on the build'}).`);
   if (kind === 'multirotor') out.push('Hover and thrust-to-weight: all-up mass is the vehicle mass plus the packs of this supply; hover at nominal voltage, the pack drop taken at the whole motor current.');

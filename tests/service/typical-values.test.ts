@@ -79,6 +79,37 @@ forEachEngine((engine) => {
       expect(supply.figures.fluidDensityKgM3 as number).toBeCloseTo(1.0581, 3);
     });
 
+    it('a boat with its propeller known by diameter × pitch reaches a verdict on every current check, estimated as a water propeller, tight until confirmed', async () => {
+      const { motor, esc, pack } = await parts();
+      const boat = await f.call('vehicles.create', { name: 'Teal mono hull', kind: 'boat', massKg: 2, water: 'fresh' });
+      const prop = await f.call('propellers.create', { name: '40 × 56 two-blade', diameterMm: 40, pitchMm: 56, blades: 2 });
+      const build = await f.call('builds.create', {
+        name: 'Teal mono on 4S',
+        vehicleId: boat.id,
+        motorId: motor.id,
+        controllerId: esc.id,
+        propellerId: prop.id,
+        gearing: { internalRatio: 1 },
+        supplies: [{ batteryIds: [pack.id] }],
+      });
+      const supply = (await f.call('builds.get', { id: build.record.id })).verdict!.supplies[0]!;
+      for (const rule of CURRENT_RULES) {
+        const finding = supply.findings.find((x) => x.rule === rule)!;
+        expect(finding.status, rule).not.toBe('incomplete');
+        expect(finding.status, rule).not.toBe('clear');
+      }
+      expect(supply.valuesUsed?.map((u) => [u.field, u.basis, u.method])).toEqual([
+        ['propeller.thrustCoefficient', 'estimated', 'water-b-series'],
+        ['propeller.powerCoefficient', 'estimated', 'water-b-series'],
+      ]);
+      expect(supply.assumptions.join(' ')).toMatch(/water propeller, B-series at bollard/);
+      // Fresh water, rounded from 999.97 kg/m³ at 4 °C (common practice).
+      expect(supply.figures.fluidDensityKgM3).toBe(1000);
+      await f.call('vehicles.update', { id: boat.id, expectedVersion: boat.version, changes: { typicalValuesConfirmed: true }, reason: 'checked on the bench' });
+      const after = (await f.call('builds.get', { id: build.record.id })).verdict!.supplies[0]!;
+      for (const rule of CURRENT_RULES) expect(after.findings.find((x) => x.rule === rule)!.typical, rule).toBeUndefined();
+    });
+
     it('refuses an implausible field altitude, naming the field, and writes nothing', async () => {
       const { motor } = await parts();
       const car = await f.call('vehicles.create', { name: 'Red touring car', kind: 'car', massKg: 1.5 });

@@ -1,4 +1,6 @@
 import type { ValueUsed } from '$core/domain';
+import { ESTIMATE } from '$core/propeller-estimate';
+import { WATER_ESTIMATE } from '$core/water-propeller-estimate';
 import { smart } from '../format/number';
 
 // A typical or estimated input as the sheet lists it: what it is, its value, and where it came from.
@@ -13,6 +15,11 @@ const WORDS: Readonly<Record<string, { label: string; unit: string }>> = {
 
 export function valueUsedText(u: ValueUsed): string {
   const w = WORDS[u.field] ?? { label: u.field, unit: '' };
-  const basis = u.basis === 'estimated' ? 'estimated from diameter, pitch and blades (about ±20 %)' : 'typical value for the kind and surface';
+  const basis =
+    u.basis !== 'estimated'
+      ? 'typical value for the kind and surface'
+      : u.method === 'water-b-series'
+        ? `estimated (water propeller, B-series at bollard, about ±${Math.round(WATER_ESTIMATE.accuracy * 100)} %)`
+        : `estimated from diameter, pitch and blades (about ±${Math.round(ESTIMATE.accuracy * 100)} %)`;
   return `${w.label}: ${smart(u.value)}${w.unit}, ${basis}`;
 }

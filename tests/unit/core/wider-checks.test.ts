@@ -140,16 +140,16 @@ describe('propeller coefficients from diameter, pitch and blades', () => {
     }
     const est = estimateStaticCoefficients(0.127, 0.114, 3);
     expect(s.valuesUsed).toEqual([
-      { field: 'propeller.thrustCoefficient', value: est.thrustCoefficient, basis: 'estimated' },
-      { field: 'propeller.powerCoefficient', value: est.powerCoefficient, basis: 'estimated' },
+      { field: 'propeller.thrustCoefficient', value: est.thrustCoefficient, basis: 'estimated', method: 'air-blade-element' },
+      { field: 'propeller.powerCoefficient', value: est.powerCoefficient, basis: 'estimated', method: 'air-blade-element' },
     ]);
     expect(s.markedFigures).toContain('thrustN');
     expect(s.markedFigures).not.toContain('tipSpeedMps');
     const half = supplyOf(quadContext({ propeller: propeller({ thrustCoefficient: 0.11, powerCoefficient: null }) }));
     expect(half.valuesUsed?.map((u) => u.field)).toEqual(['propeller.powerCoefficient']);
-    // Boats are not estimated: a water propeller's blades differ too much.
+    // A boat's propeller is estimated by the water method, not this one.
     const boat = supplyOf(plainQuad({ vehicle: vehicle({ kind: 'boat', massKg: 2 }) }));
-    expect(finding(boat, 'motor-current').missing).toEqual(['propeller.powerCoefficient']);
+    expect(boat.valuesUsed?.map((u) => u.method)).toEqual(['water-b-series', 'water-b-series']);
   });
 });
 
