@@ -13,4 +13,6 @@
 //    and pack logs: the newest logged resistance measurement sets a pack's sag; the pack-health rule.
 //    and cells in series, motor Kv and pinion are figures a class limit can judge (a stored limit on
 //    one read incomplete before).
-export const ENGINE_VERSION = 5;
+// 6: stored verdicts list the checks that are not clear, rule by rule, for the list's check filter
+//    (rows written before hold none until re-checked).
+export const ENGINE_VERSION = 6;

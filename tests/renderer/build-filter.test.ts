@@ -26,6 +26,7 @@ function summary(over: Partial<BuildSummary> & { id: string; name: string }): Bu
     peakCurrentLimitA: null,
     currentRule: null,
     currentSource: null,
+    ruleStatuses: '',
     updatedAt: '2026-01-01T00:00:00Z',
     ...over,
   };
