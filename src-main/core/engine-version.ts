@@ -15,4 +15,6 @@
 //    one read incomplete before).
 // 6: a boat's propeller without coefficients gets them from the Wageningen B-series at the bollard
 //    point (a boat known by diameter × pitch read incomplete before; now no better than tight).
+//    and stored verdicts list the checks that are not clear, rule by rule, for the list's check filter
+//    (rows written before hold none until re-checked).
 export const ENGINE_VERSION = 6;

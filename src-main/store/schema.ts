@@ -82,6 +82,12 @@ export interface VerdictTable {
   currentSource: string | null;
   /** `supplyId=status` pairs joined by commas: cheap to compare on a re-check without parsing JSON. */
   supplyStatuses: string;
+  /**
+   * The checks that are not clear, `rule=status` pairs sorted by rule id and joined by commas
+   * (`battery-continuous=over,motor-heat=tight`; '' when every check is clear). A rule judged in
+   * several supplies reads its worst status. The builds list filters by check on it.
+   */
+  ruleStatuses: string;
   /** When this row last changed: a re-check that finds the same verdict and figures writes nothing. */
   evaluatedAt: string;
 }

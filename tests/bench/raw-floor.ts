@@ -64,14 +64,14 @@ const SQL = {
   controllers: 'select * from controllers where id in (select value from json_each(?))',
   propellers: 'select * from propellers where id in (select value from json_each(?))',
   classRules: 'select * from classRules where archivedAt is null and className in (select value from json_each(?))',
-  stored: `select v.buildId, v.status, v.supplyStatuses, v.supplyVoltageFullV, v.theoreticalSpeedKmh, v.peakCurrentA, v.peakCurrentLimitA, v.currentRule, v.currentSource
+  stored: `select v.buildId, v.status, v.supplyStatuses, v.ruleStatuses, v.supplyVoltageFullV, v.theoreticalSpeedKmh, v.peakCurrentA, v.peakCurrentLimitA, v.currentRule, v.currentSource
     from builds b join verdicts v on v.buildId = b.id where b.motorId = ?`,
-  upsertVerdict: `insert into verdicts (buildId, status, supplyVoltageFullV, theoreticalSpeedKmh, peakCurrentA, peakCurrentLimitA, currentRule, currentSource, supplyStatuses, evaluatedAt)
-    values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)
+  upsertVerdict: `insert into verdicts (buildId, status, supplyVoltageFullV, theoreticalSpeedKmh, peakCurrentA, peakCurrentLimitA, currentRule, currentSource, supplyStatuses, ruleStatuses, evaluatedAt)
+    values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)
     on conflict (buildId) do update set status = excluded.status, supplyVoltageFullV = excluded.supplyVoltageFullV,
       theoreticalSpeedKmh = excluded.theoreticalSpeedKmh, peakCurrentA = excluded.peakCurrentA, peakCurrentLimitA = excluded.peakCurrentLimitA,
       currentRule = excluded.currentRule, currentSource = excluded.currentSource,
-      supplyStatuses = excluded.supplyStatuses, evaluatedAt = excluded.evaluatedAt`,
+      supplyStatuses = excluded.supplyStatuses, ruleStatuses = excluded.ruleStatuses, evaluatedAt = excluded.evaluatedAt`,
   history: `insert into history (at, actor, action, entityKind, entityId, summary, reason, before, after, verdictChanges)
     values (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
   historySelector: "insert into historySelectors (historyId, selects, partKind, target) values (?, 'part', 'motors', ?)",
@@ -90,8 +90,11 @@ function byId<T extends { id: string }>(rows: Row[], map: (row: Row) => T = (row
   return new Map(rows.map((row) => [row.id as string, map(row)]));
 }
 
+const STATUS_RANK: Readonly<Record<Status, number>> = { over: 0, incomplete: 1, tight: 2, clear: 3 };
+const STATUS_NAMES: readonly Status[] = ['over', 'incomplete', 'tight', 'clear'];
+
 /** The list figures of a verdict row, computed the way the store keeps them (the tightest current check's value and limit). */
-function rowValues(verdict: BuildVerdict): [number | null, number | null, number | null, number | null, string | null, string | null, string] {
+function rowValues(verdict: BuildVerdict): [number | null, number | null, number | null, number | null, string | null, string | null, string, string] {
   let fullV: number | null = null;
   let speed: number | null = null;
   let peak: number | null = null;
@@ -100,11 +103,15 @@ function rowValues(verdict: BuildVerdict): [number | null, number | null, number
   let source: string | null = null;
   let tightest = Number.POSITIVE_INFINITY;
   const statuses: string[] = [];
+  // Each rule's worst status over the supplies, clear ones left out (ranks as core/status.ts).
+  const ruleWorst = new Map<string, number>();
   for (const s of verdict.supplies) {
     const f = s.figures;
     if (f.packVoltageFullV !== null && (fullV === null || f.packVoltageFullV > fullV)) fullV = f.packVoltageFullV;
     if (f.theoreticalSpeedKmh !== null && (speed === null || f.theoreticalSpeedKmh > speed)) speed = f.theoreticalSpeedKmh;
     for (const finding of s.findings) {
+      const rank = STATUS_RANK[finding.status];
+      if (rank < 3 && rank < (ruleWorst.get(finding.rule) ?? 3)) ruleWorst.set(finding.rule, rank);
       if (finding.unit !== 'A' || finding.margin === null || finding.value === null || finding.limit === null) continue;
       if (finding.margin < tightest) {
         tightest = finding.margin;
@@ -120,7 +127,11 @@ function rowValues(verdict: BuildVerdict): [number | null, number | null, number
     }
     statuses.push(`${s.supplyId}=${s.status}`);
   }
-  return [fullV, speed, peak, limit, rule, source, statuses.join(',')];
+  const rules = [...ruleWorst.keys()]
+    .sort((a, b) => (a < b ? -1 : a > b ? 1 : 0))
+    .map((id) => `${id}=${STATUS_NAMES[ruleWorst.get(id)!]!}`)
+    .join(',');
+  return [fullV, speed, peak, limit, rule, source, statuses.join(','), rules];
 }
 
 export class RawFloor {
@@ -184,8 +195,8 @@ export class RawFloor {
         const rule = bookkeeping(row) as unknown as ClassRule;
         rulesByClass.set(rule.className, [...(rulesByClass.get(rule.className) ?? []), rule]);
       }
-      const stored = new Map<string, { status: string; supplyStatuses: string; figures: unknown[] }>();
-      for (const [buildId, status, supplyStatuses, ...figures] of st.stored.all(motorId) as [string, string, string, ...unknown[]][]) stored.set(buildId, { status, supplyStatuses, figures });
+      const stored = new Map<string, { status: string; supplyStatuses: string; ruleStatuses: string; figures: unknown[] }>();
+      for (const [buildId, status, supplyStatuses, ruleStatuses, ...figures] of st.stored.all(motorId) as [string, string, string, string, ...unknown[]][]) stored.set(buildId, { status, supplyStatuses, ruleStatuses, figures });
       let now = performance.now();
       t.readMs = now - mark;
       mark = now;
@@ -229,7 +240,7 @@ export class RawFloor {
 
       const changes: { buildId: string; supplyId: string | null; from: Status | null; to: Status }[] = [];
       for (const v of verdicts) {
-        const [fullV, speed, peak, limit, rule, source, supplyStatuses] = rowValues(v);
+        const [fullV, speed, peak, limit, rule, source, supplyStatuses, ruleStatuses] = rowValues(v);
         const before = stored.get(v.buildId);
         if (before?.status !== v.status) changes.push({ buildId: v.buildId, supplyId: null, from: (before?.status ?? null) as Status | null, to: v.status });
         if (before?.supplyStatuses !== supplyStatuses) {
@@ -243,6 +254,7 @@ export class RawFloor {
           before !== undefined &&
           before.status === v.status &&
           before.supplyStatuses === supplyStatuses &&
+          before.ruleStatuses === ruleStatuses &&
           before.figures[0] === fullV &&
           before.figures[1] === speed &&
           before.figures[2] === peak &&
@@ -250,7 +262,7 @@ export class RawFloor {
           before.figures[4] === rule &&
           before.figures[5] === source;
         if (!same) {
-          st.upsertVerdict.run(v.buildId, v.status, fullV, speed, peak, limit, rule, source, supplyStatuses, at);
+          st.upsertVerdict.run(v.buildId, v.status, fullV, speed, peak, limit, rule, source, supplyStatuses, ruleStatuses, at);
           t.written += 1;
         }
       }

@@ -36,7 +36,7 @@ interface UpdateAnswer {
 }
 
 async function verdictFingerprint(floor: RawFloor): Promise<string> {
-  const rows = floor.raw.prepare('select buildId, status, supplyVoltageFullV, theoreticalSpeedKmh, peakCurrentA, peakCurrentLimitA, currentRule, currentSource, supplyStatuses from verdicts order by buildId').raw().all();
+  const rows = floor.raw.prepare('select buildId, status, supplyVoltageFullV, theoreticalSpeedKmh, peakCurrentA, peakCurrentLimitA, currentRule, currentSource, supplyStatuses, ruleStatuses from verdicts order by buildId').raw().all();
   return createHash('sha256').update(JSON.stringify(rows)).digest('hex');
 }
 

@@ -57,6 +57,10 @@ test.describe('on the invented fleet', () => {
     await page.getByRole('button', { name: /Incomplete/ }).click();
     await expect(page.getByTestId('build-count')).toHaveText(/of 11 shown/);
     await expectNoAxeViolations(page, 'builds list, filtered by verdict');
+    await page.getByLabel('Check').selectOption({ label: 'Controller continuous current' });
+    await expect(page.getByRole('group', { name: 'Verdict' }).getByRole('button', { name: /^Clear/ })).toBeDisabled();
+    await expectNoAxeViolations(page, 'builds list, filtered by check');
+    await page.getByLabel('Check').selectOption({ label: 'Any check' });
     await page.getByLabel('Search builds').fill('no build is called this');
     await expect(page.getByTestId('build-row')).toHaveCount(0);
     await expectNoAxeViolations(page, 'builds list, nothing matches');

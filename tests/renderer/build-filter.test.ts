@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { EMPTY_FILTER, countByStatus, filterSummaries, haystackOf, customersOf, peakShare, SHOP_OWN, sortSummaries } from '../../src-renderer/lib/builds/build-filter';
+import { EMPTY_FILTER, countByStatus, filterSummaries, haystackOf, customersOf, matchingPositions, narrows, peakShare, RuleFlags, ruleOptions, SHOP_OWN, sortSummaries } from '../../src-renderer/lib/builds/build-filter';
+import { RULE_IDS } from '../../src-main/core/catalogue/rules';
 import type { BuildSummary } from '../../src-renderer/lib/builds/build-summary';
 
 function summary(over: Partial<BuildSummary> & { id: string; name: string }): BuildSummary {
@@ -26,6 +27,7 @@ function summary(over: Partial<BuildSummary> & { id: string; name: string }): Bu
     peakCurrentLimitA: null,
     currentRule: null,
     currentSource: null,
+    ruleStatuses: '',
     updatedAt: '2026-01-01T00:00:00Z',
     ...over,
   };
@@ -99,5 +101,57 @@ describe('builds list helpers', () => {
 
   it('counts builds by verdict', () => {
     expect(countByStatus(rows)).toEqual({ over: 1, tight: 1, incomplete: 0, clear: 1 });
+  });
+});
+
+describe('builds list check filter', () => {
+  // Stored checks as the verdict row keeps them: `rule=status` by rule id, clear ones left out.
+  const flagged = [
+    summary({ id: 'p', name: 'Pump', status: 'over', ruleStatuses: 'battery-continuous=over,controller-continuous=tight' }),
+    summary({ id: 'q', name: 'Quill', status: 'over', ruleStatuses: 'controller-continuous=over' }),
+    summary({ id: 'r', name: 'Reed', status: 'incomplete', ruleStatuses: 'class-max-kv=incomplete,controller-continuous-x=over' }),
+    summary({ id: 's', name: 'Sedge', status: 'clear', ruleStatuses: '' }),
+    summary({ id: 't', name: 'Tern', status: 'tight', ruleStatuses: 'battery-continuous=over,controller-continuous=tight' }),
+  ];
+  const hayF = new Map(flagged.map((r) => [r.id, haystackOf(r)]));
+  const pick = (filter: Partial<typeof EMPTY_FILTER>) => ids(filterSummaries(flagged, { ...EMPTY_FILTER, ...filter }, hayF));
+
+  it('keeps the builds where the check is not clear, never a longer rule id that starts the same', () => {
+    expect(pick({ rule: 'controller-continuous' })).toEqual(['p', 'q', 't']);
+    expect(pick({ rule: 'class-max-kv' })).toEqual(['r']);
+    expect(pick({ rule: 'motor-heat' })).toEqual([]);
+  });
+
+  it("reads the verdict filter as the check's own status, not the build's", () => {
+    // Pump is over as a whole, but its controller check is only tight.
+    expect(pick({ rule: 'controller-continuous', statuses: ['over'] })).toEqual(['q']);
+    expect(pick({ rule: 'controller-continuous', statuses: ['tight'] })).toEqual(['p', 't']);
+    expect(pick({ rule: 'battery-continuous', statuses: ['over'], text: 'tern' })).toEqual(['t']);
+    expect(pick({ rule: 'battery-continuous', statuses: ['clear'] })).toEqual([]);
+  });
+
+  it('looks statuses up by position from one decoding per distinct text', () => {
+    const flags = new RuleFlags();
+    expect(flags.of(flagged[0]!)).toBe(flags.of(flagged[4]!));
+    const byPosition = flags.statusesOf(flagged, 'controller-continuous');
+    expect(byPosition).toEqual(['tight', 'over', undefined, undefined, 'tight']);
+    // The precomputed statuses are what the filter goes by (here deliberately different from the rows).
+    expect(matchingPositions(flagged, { ...EMPTY_FILTER, rule: 'controller-continuous' }, () => '', undefined, [undefined, undefined, undefined, 'over', undefined])).toEqual([3]);
+    expect(countByStatus(flagged, byPosition)).toEqual({ over: 1, tight: 2, incomplete: 0, clear: 0 });
+  });
+
+  it('does not reuse the last result when the check changes', () => {
+    expect(narrows({ ...EMPTY_FILTER, rule: 'motor-heat' }, { ...EMPTY_FILTER, rule: 'motor-heat', text: 'p' })).toBe(true);
+    expect(narrows({ ...EMPTY_FILTER, rule: 'motor-heat' }, { ...EMPTY_FILTER, rule: 'motor-current' })).toBe(false);
+  });
+
+  it('offers every rule of the catalogue by its short name, then the class checks the list flags', () => {
+    const flags = new RuleFlags();
+    const options = ruleOptions(flags.classRules(flagged), '');
+    expect(options.builtIn.map((o) => o.id)).toEqual([...RULE_IDS]);
+    expect(options.builtIn.find((o) => o.id === 'controller-continuous')?.name).toBe('Controller continuous current');
+    expect(options.classes).toEqual([{ id: 'class-max-kv', name: 'Class: max kv' }]);
+    // A check named by the address that no row flags still shows as chosen.
+    expect(ruleOptions([], 'class-pinion').classes).toEqual([{ id: 'class-pinion', name: 'Class: pinion' }]);
   });
 });

@@ -9,6 +9,7 @@ describe('the builds list in the address', () => {
     kinds: ['truck', 'boat'],
     customer: 'cust-dana',
     partId: 'pack-1',
+    rule: 'class-max-kv',
     sortKey: 'peak',
     sortDir: -1,
     archived: true,
@@ -37,6 +38,13 @@ describe('the builds list in the address', () => {
     expect(q.kinds).toEqual(['car']);
     expect(q.sortKey).toBe(DEFAULT_LIST_QUERY.sortKey);
     expect(q.sortDir).toBe(1);
+  });
+
+  it('keeps a check by its rule id and drops one that is not an id', () => {
+    expect(parseListQuery('check=controller-continuous&v=over').rule).toBe('controller-continuous');
+    expect(formatListQuery({ ...DEFAULT_LIST_QUERY, rule: 'controller-continuous', statuses: ['over'] })).toBe('v=over&check=controller-continuous');
+    expect(parseListQuery('check=a%2Cb%3Dover').rule).toBe('');
+    expect(parseListQuery('check=').rule).toBe('');
   });
 
   it('keeps a vehicle chosen for a new build in its address', () => {

@@ -37,6 +37,26 @@ describe('builds list state', () => {
     expect(list.recentlyChanged.has(seed.onFour.id)).toBe(true);
     list.statuses = ['over'];
     expect(list.visible.map((b) => b.id)).toEqual([seed.onFour.id]);
+
+    // 5 000 mAh at 1 C is 5 A continuous (capacity × C rating, common practice): the 4S buggy's pack check is over.
+    list.statuses = ['clear'];
+    list.chooseRule('battery-continuous');
+    expect(list.statuses).toEqual([]);
+    expect(list.query.rule).toBe('battery-continuous');
+    expect(list.visible.map((b) => b.id)).toEqual([seed.onFour.id]);
+    expect(list.counts.over).toBe(1);
+    list.toggleStatus('tight');
+    expect(list.visible).toEqual([]);
+    list.toggleStatus('tight');
+    list.toggleStatus('over');
+    expect(list.visible.map((b) => b.id)).toEqual([seed.onFour.id]);
+    // The same check judged on the 2S pack, untouched, raises nothing there.
+    list.statuses = [];
+    list.text = '2s';
+    expect(list.visible).toEqual([]);
+    list.clearFilters();
+    expect(list.rule).toBe('');
+    expect(list.visible).toHaveLength(2);
     stop();
   });
 });

@@ -77,6 +77,7 @@ function summary(i: number, name: string, customer: string): BuildSummary {
     peakCurrentLimitA: null,
     currentRule: null,
     currentSource: null,
+    ruleStatuses: '',
     updatedAt: '2026-01-01T00:00:00Z',
   };
 }

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { BuildVerdict, Finding } from '../../src-main/core/domain';
-import { decodeSupplyStatuses, encodeSupplyStatuses, verdictToRow } from '../../src-main/store/repositories/verdicts';
+import { decodeSupplyStatuses, encodeSupplyStatuses, sameVerdictRow, verdictToRow } from '../../src-main/store/repositories/verdicts';
 
 const finding = (rule: string, value: number, limit: number): Finding => ({
   rule,
@@ -42,5 +42,21 @@ describe('the list row of a stored verdict', () => {
       ['sup-1', 'over'],
       ['a=b', 'clear'],
     ]);
+  });
+
+  it('counts a change in which checks are flagged as a change of the row, with the same status and figures', () => {
+    const base = {
+      buildId: 'b1',
+      status: 'over',
+      supplies: [{ supplyId: 's1', batteryIds: ['p1'], status: 'over', figures: { packVoltageFullV: 16.8, theoreticalSpeedKmh: null, peakCurrentA: null }, findings: [{ ...finding('battery-burst', 130, 100), status: 'over' }] }],
+    } as unknown as BuildVerdict;
+    const moved = { ...base, supplies: [{ ...base.supplies[0]!, findings: [{ ...finding('motor-current', 130, 100), status: 'over' }] }] } as BuildVerdict;
+    const row = verdictToRow(base, 'then');
+    const next = verdictToRow(moved, 'now');
+    expect(row.ruleStatuses).toBe('battery-burst=over');
+    expect(next.ruleStatuses).toBe('motor-current=over');
+    const { buildId: _b, evaluatedAt: _e, ...columns } = row;
+    expect(sameVerdictRow({ status: 'over', supplies: new Map(), row: columns }, row)).toBe(true);
+    expect(sameVerdictRow({ status: 'over', supplies: new Map(), row: columns }, { ...next, peakCurrentA: row.peakCurrentA, peakCurrentLimitA: row.peakCurrentLimitA, currentRule: row.currentRule })).toBe(false);
   });
 });

@@ -84,6 +84,8 @@ const listInput = v.optional(
     kinds: v.optional(v.array(oneOf(VEHICLE_KINDS), 'must be a list of vehicle kinds')),
     customer: v.optional(v.pipe(text(64), v.regex(/^(-|[A-Za-z0-9][A-Za-z0-9._-]*)$/, "must be a customer's id, or - for the shop's own vehicles"))),
     partId: v.optional(id()),
+    // Rule ids (built-in or class): builds where one of these checks is not clear.
+    rules: v.optional(v.pipe(v.array(id(), 'must be a list of rule ids'), v.maxLength(100, 'must name at most 100 rules'))),
     includeArchived: v.optional(flag()),
     limit: v.optional(v.pipe(v.number('must be a number'), v.integer('must be a whole number'), v.minValue(1, 'must be 1 or more'), v.maxValue(100_000, 'must be 100000 or less'))),
   }),

@@ -32,6 +32,8 @@ export interface BuildSummary {
   /** Rule id of the check the current and limit come from; null when no current check was made. */
   currentRule: string | null;
   currentSource: 'model' | 'measured' | null;
+  /** The checks that are not clear, `rule=status` pairs by rule id ('' when none, or no verdict yet). */
+  ruleStatuses: string;
   updatedAt: string;
 }
 
@@ -61,6 +63,7 @@ export const BUILD_SUMMARY_KEYS = [
   'peakCurrentLimitA',
   'currentRule',
   'currentSource',
+  'ruleStatuses',
   'updatedAt',
 ] as const satisfies readonly (keyof BuildSummary)[];
 
@@ -86,6 +89,11 @@ export interface BuildListFilter {
   customer?: string;
   /** Builds that use this part (pack, motor, controller, propeller or vehicle id). */
   partId?: string;
+  /**
+   * Builds where one of these checks (rule ids) is not clear. With `statuses` as well, the
+   * check's own status must be one of them, not the build's overall verdict.
+   */
+  rules?: string[];
   includeArchived?: boolean;
   limit?: number;
 }
@@ -121,12 +129,27 @@ export async function listBuildSummaries(db: DbHandle, filter: BuildListFilter =
       'verdicts.peakCurrentLimitA',
       'verdicts.currentRule',
       'verdicts.currentSource',
+      'verdicts.ruleStatuses',
       'builds.updatedAt',
     ])
     .orderBy('builds.name')
     .orderBy('builds.id');
   if (!filter.includeArchived) query = query.where('builds.archivedAt', 'is', null);
-  if (filter.statuses && filter.statuses.length > 0) query = query.where('verdicts.status', 'in', filter.statuses);
+  const rules = filter.rules?.filter((r) => r !== '') ?? [];
+  if (rules.length > 0) {
+    // A check is flagged when its `rule=status` pair is in the stored text; commas on both ends
+    // make a whole pair match, never the tail of a longer rule id. replace() finds it: exact and
+    // case-sensitive on SQLite and PostgreSQL alike, where LIKE ignores case on SQLite.
+    const flagged = filter.statuses && filter.statuses.length > 0 ? filter.statuses.filter((s) => s !== 'clear') : (['over', 'incomplete', 'tight'] as const);
+    const pairs = rules.flatMap((rule) => flagged.map((status) => `,${rule}=${status},`));
+    query =
+      pairs.length === 0
+        ? query.where(sql<boolean>`1 = 0`)
+        : query.where((eb) => {
+            const wrapped = sql<string>`(',' || ${eb.ref('verdicts.ruleStatuses')} || ',')`;
+            return eb.or(pairs.map((pair) => sql<boolean>`replace(${wrapped}, ${pair}, '') <> ${wrapped}`));
+          });
+  } else if (filter.statuses && filter.statuses.length > 0) query = query.where('verdicts.status', 'in', filter.statuses);
   if (filter.kinds && filter.kinds.length > 0) query = query.where('vehicles.kind', 'in', filter.kinds);
   if (filter.customer === CUSTOMER_SHOP) query = query.where('vehicles.customerId', 'is', null);
   else if (filter.customer !== undefined && filter.customer !== '') query = query.where('vehicles.customerId', '=', filter.customer);
@@ -144,10 +167,7 @@ export async function listBuildSummaries(db: DbHandle, filter: BuildListFilter =
   }
   if (filter.text !== undefined && filter.text.trim() !== '') {
     // LIKE with escaped wildcards: the user's % and _ are literal characters.
-    const pattern = `%${filter.text
-      .trim()
-      .toLowerCase()
-      .replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    const pattern = `%${likeLiteral(filter.text.trim().toLowerCase())}%`;
     query = query.where((eb) => eb.or((['builds.name', 'vehicles.name', 'customers.name', 'motors.name', 'controllers.name'] as const).map((column) => sql<boolean>`lower(${eb.ref(column)}) like ${pattern} escape '\\'`)));
   }
   if (filter.limit !== undefined) query = query.limit(filter.limit);
@@ -159,9 +179,15 @@ export async function listBuildSummaries(db: DbHandle, filter: BuildListFilter =
     customerName: r.customerName ?? '',
     status: r.status as Status | null,
     currentSource: r.currentSource === 'model' || r.currentSource === 'measured' ? r.currentSource : null,
+    ruleStatuses: r.ruleStatuses ?? '',
     supplyLabels: labels.get(r.id)?.labels ?? [],
     batteryIds: labels.get(r.id)?.batteryIds ?? [],
   }));
+}
+
+/** A text for LIKE with its wildcards escaped: the user's % and _ are literal characters. */
+function likeLiteral(text: string): string {
+  return text.replace(/[\\%_]/g, (c) => `\\${c}`);
 }
 
 /** Pack names per supply; `null` ids reads every build's at once, cheaper than a huge IN list. */

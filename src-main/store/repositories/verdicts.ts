@@ -1,10 +1,11 @@
 import type { BuildVerdict, Status, SupplyVerdict } from '../../core/domain';
+import { encodeRuleStatuses } from '../../core/rule-statuses';
 import { chunks, type DbHandle } from '../db-handle';
 import { selectedBuildIds, type BuildSelector } from '../build-selector';
 import type { NewVerdictRow } from '../schema';
 
 /** The list columns a verdict row holds, everything but when it was written. */
-const LIST_COLUMNS = ['status', 'supplyVoltageFullV', 'theoreticalSpeedKmh', 'peakCurrentA', 'peakCurrentLimitA', 'currentRule', 'currentSource', 'supplyStatuses'] as const;
+const LIST_COLUMNS = ['status', 'supplyVoltageFullV', 'theoreticalSpeedKmh', 'peakCurrentA', 'peakCurrentLimitA', 'currentRule', 'currentSource', 'supplyStatuses', 'ruleStatuses'] as const;
 
 type ListColumns = Pick<NewVerdictRow, (typeof LIST_COLUMNS)[number]>;
 
@@ -96,12 +97,13 @@ export function verdictToRow(verdict: BuildVerdict, evaluatedAt: string): NewVer
     currentRule,
     currentSource,
     supplyStatuses: encodeSupplyStatuses(verdict.supplies),
+    ruleStatuses: encodeRuleStatuses(verdict),
     evaluatedAt,
   };
 }
 
-// 10 columns a row: 3 000 rows stay under SQLite's 32 766 bound parameters.
-const ROWS_PER_INSERT = 3000;
+// 11 columns a row: 2 900 rows stay under SQLite's 32 766 bound parameters.
+const ROWS_PER_INSERT = 2900;
 
 /** Upserts verdict rows in large batches: a few statements for a 10 000-build re-check. */
 export async function writeVerdicts(db: DbHandle, rows: readonly NewVerdictRow[]): Promise<void> {
@@ -119,6 +121,7 @@ export async function writeVerdicts(db: DbHandle, rows: readonly NewVerdictRow[]
           currentRule: eb.ref('excluded.currentRule'),
           currentSource: eb.ref('excluded.currentSource'),
           supplyStatuses: eb.ref('excluded.supplyStatuses'),
+          ruleStatuses: eb.ref('excluded.ruleStatuses'),
           evaluatedAt: eb.ref('excluded.evaluatedAt'),
         })),
       )

@@ -1,4 +1,6 @@
 import type { Status, VehicleKind } from '$core/domain';
+import { decodeRuleStatuses } from '$core/rule-statuses';
+import { CLASS_RULE, RULE_IDS, ruleName } from '$core/catalogue/rules';
 import { statusRank } from '../verdict/status-words';
 import type { BuildSummary } from './build-summary';
 import { collator, compareText, textOrderKey } from './text-order';
@@ -11,12 +13,17 @@ export interface BuildFilter {
   customer: string;
   /** '' for every part; else a pack, motor, controller, propeller or vehicle id. */
   partId: string;
+  /**
+   * '' for any check; else a rule id: only builds where that check is not clear, and the verdict
+   * filter then reads that check's status rather than the build's.
+   */
+  rule: string;
 }
 
 /** The customer filter's value for the shop's own vehicles, as the address writes it (`customer=-`). */
 export const SHOP_OWN = '-';
 
-export const EMPTY_FILTER: BuildFilter = { text: '', statuses: [], kinds: [], customer: '', partId: '' };
+export const EMPTY_FILTER: BuildFilter = { text: '', statuses: [], kinds: [], customer: '', partId: '', rule: '' };
 
 export const SORT_KEYS = ['status', 'name', 'vehicle', 'customer', 'supply', 'voltage', 'speed', 'peak'] as const;
 export type SortKey = (typeof SORT_KEYS)[number];
@@ -33,7 +40,47 @@ export function usesPart(s: BuildSummary, partId: string): boolean {
 
 /** True when the filter lets every row through. */
 export function isEmptyFilter(filter: BuildFilter): boolean {
-  return filter.text.trim() === '' && filter.statuses.length === 0 && filter.kinds.length === 0 && filter.customer === '' && filter.partId === '';
+  return filter.text.trim() === '' && filter.statuses.length === 0 && filter.kinds.length === 0 && filter.customer === '' && filter.partId === '' && filter.rule === '';
+}
+
+/** A row's stored checks read as rule → status, once for each distinct text (a list holds few). */
+export class RuleFlags {
+  readonly #decoded = new Map<string, ReadonlyMap<string, Status>>();
+
+  of(s: BuildSummary): ReadonlyMap<string, Status> {
+    let flags = this.#decoded.get(s.ruleStatuses);
+    if (flags === undefined) {
+      flags = decodeRuleStatuses(s.ruleStatuses);
+      this.#decoded.set(s.ruleStatuses, flags);
+    }
+    return flags;
+  }
+
+  /**
+   * Each row's status for one check, by position: undefined where the check raised nothing
+   * (clear, or not made for that build). Worked out once per list and check, so a keystroke
+   * reads an array rather than a row's text.
+   */
+  statusesOf(rows: readonly BuildSummary[], rule: string): (Status | undefined)[] {
+    const out = new Array<Status | undefined>(rows.length);
+    for (let i = 0; i < rows.length; i++) out[i] = this.of(rows[i]!).get(rule);
+    return out;
+  }
+
+  /** The class checks some row flags, for the check filter's options. */
+  classRules(rows: readonly BuildSummary[]): string[] {
+    const seen = new Set<string>();
+    for (const s of rows) for (const rule of this.of(s).keys()) if (rule.startsWith(CLASS_RULE.idPrefix)) seen.add(rule);
+    return [...seen].sort((a, b) => collator.compare(ruleName(a), ruleName(b)) || (a < b ? -1 : 1));
+  }
+}
+
+/** The check filter's options: every rule of the catalogue, then the class checks of the list (and the chosen one, if neither). */
+export function ruleOptions(classRules: readonly string[], chosen: string): { builtIn: { id: string; name: string }[]; classes: { id: string; name: string }[] } {
+  const builtIn = RULE_IDS.map((id) => ({ id, name: ruleName(id) }));
+  const classes = classRules.map((id) => ({ id, name: ruleName(id) }));
+  if (chosen !== '' && !builtIn.some((o) => o.id === chosen) && !classes.some((o) => o.id === chosen)) classes.push({ id: chosen, name: ruleName(chosen) });
+  return { builtIn, classes };
 }
 
 /**
@@ -41,7 +88,14 @@ export function isEmptyFilter(filter: BuildFilter): boolean {
  * `candidates` when given (positions a wider filter let through). Runs on every keystroke over
  * up to 10 000 rows: one pass, the haystack of a row asked for only when there is text to find.
  */
-export function matchingPositions(rows: readonly BuildSummary[], filter: BuildFilter, haystackAt: (position: number) => string, candidates?: readonly number[]): number[] {
+export function matchingPositions(
+  rows: readonly BuildSummary[],
+  filter: BuildFilter,
+  haystackAt: (position: number) => string,
+  candidates?: readonly number[],
+  /** Each row's status for the filter's check, by position (RuleFlags.statusesOf); worked out here when missing. */
+  ruleStatuses?: readonly (Status | undefined)[],
+): number[] {
   const words = filter.text
     .trim()
     .toLowerCase()
@@ -49,12 +103,16 @@ export function matchingPositions(rows: readonly BuildSummary[], filter: BuildFi
     .filter((w) => w !== '');
   const statuses = filter.statuses.length > 0 ? new Set<Status | null>(filter.statuses) : null;
   const kinds = filter.kinds.length > 0 ? new Set<VehicleKind>(filter.kinds) : null;
+  const byRule = filter.rule === '' ? null : (ruleStatuses ?? new RuleFlags().statusesOf(rows, filter.rule));
   const out: number[] = [];
   const count = candidates ? candidates.length : rows.length;
   for (let c = 0; c < count; c++) {
     const i = candidates ? candidates[c]! : c;
     const s = rows[i]!;
-    if (statuses && !statuses.has(s.status)) continue;
+    if (byRule) {
+      const status = byRule[i];
+      if (status === undefined || (statuses && !statuses.has(status))) continue;
+    } else if (statuses && !statuses.has(s.status)) continue;
     if (kinds && !kinds.has(s.kind)) continue;
     if (filter.customer !== '' && !ofCustomer(s, filter.customer)) continue;
     if (filter.partId !== '' && !usesPart(s, filter.partId)) continue;
@@ -88,7 +146,14 @@ const sameList = <T>(a: readonly T[], b: readonly T[]) => a.length === b.length 
  * does not.
  */
 export function narrows(previous: BuildFilter, next: BuildFilter): boolean {
-  return previous.customer === next.customer && previous.partId === next.partId && sameList(previous.statuses, next.statuses) && sameList(previous.kinds, next.kinds) && next.text.toLowerCase().startsWith(previous.text.toLowerCase());
+  return (
+    previous.customer === next.customer &&
+    previous.partId === next.partId &&
+    previous.rule === next.rule &&
+    sameList(previous.statuses, next.statuses) &&
+    sameList(previous.kinds, next.kinds) &&
+    next.text.toLowerCase().startsWith(previous.text.toLowerCase())
+  );
 }
 
 function numberOrNull(a: number | null, b: number | null): number {
@@ -158,8 +223,13 @@ export function customersOf(rows: readonly BuildSummary[]): { id: string; name: 
   return [...byId].map(([id, name]) => ({ id, name })).sort((a, b) => collator.compare(a.name, b.name) || (a.id < b.id ? -1 : 1));
 }
 
-export function countByStatus(rows: readonly BuildSummary[]): Record<Status, number> {
+/** Builds by verdict; with a check's statuses by position, by that check's status (clear: none, the check filter lists flagged builds only). */
+export function countByStatus(rows: readonly BuildSummary[], ruleStatuses?: readonly (Status | undefined)[]): Record<Status, number> {
   const out: Record<Status, number> = { over: 0, tight: 0, incomplete: 0, clear: 0 };
+  if (ruleStatuses) {
+    for (const status of ruleStatuses) if (status !== undefined && status !== 'clear') out[status] += 1;
+    return out;
+  }
   for (const s of rows) if (s.status !== null) out[s.status] += 1;
   return out;
 }

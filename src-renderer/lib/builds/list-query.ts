@@ -10,6 +10,8 @@ export interface ListQuery {
   /** '' every customer, '-' the shop's own, else a customer id. */
   customer: string;
   partId: string;
+  /** '' any check, else a rule id (built-in or class). */
+  rule: string;
   sortKey: SortKey;
   sortDir: SortDir;
   /** Archived builds are listed instead of the active ones. */
@@ -22,6 +24,7 @@ export const DEFAULT_LIST_QUERY: ListQuery = {
   kinds: [],
   customer: '',
   partId: '',
+  rule: '',
   sortKey: 'status',
   sortDir: 1,
   archived: false,
@@ -34,16 +37,21 @@ const listOf = <T extends string>(raw: string | null, allowed: readonly T[]): T[
   return out;
 };
 
+// A rule id as the service takes one; anything else in the address is no check at all.
+const RULE_ID = /^[A-Za-z0-9][A-Za-z0-9._-]{0,63}$/;
+
 /** Reads the query part of the address; anything unknown or malformed falls back to the default. */
 export function parseListQuery(search: string): ListQuery {
   const p = new URLSearchParams(search);
   const sort = p.get('sort');
+  const check = p.get('check') ?? '';
   return {
     text: p.get('q') ?? '',
     statuses: listOf(p.get('v'), STATUSES),
     kinds: listOf(p.get('kind'), VEHICLE_KINDS),
     customer: p.get('customer') ?? '',
     partId: p.get('part') ?? '',
+    rule: RULE_ID.test(check) ? check : '',
     sortKey: (SORT_KEYS as readonly string[]).includes(sort ?? '') ? (sort as SortKey) : DEFAULT_LIST_QUERY.sortKey,
     sortDir: p.get('dir') === 'desc' ? -1 : 1,
     archived: p.get('archived') === '1',
@@ -58,6 +66,7 @@ export function formatListQuery(q: ListQuery): string {
   if (q.kinds.length > 0) p.set('kind', q.kinds.join(','));
   if (q.customer !== '') p.set('customer', q.customer);
   if (q.partId !== '') p.set('part', q.partId);
+  if (q.rule !== '') p.set('check', q.rule);
   if (q.sortKey !== DEFAULT_LIST_QUERY.sortKey) p.set('sort', q.sortKey);
   if (q.sortDir === -1) p.set('dir', 'desc');
   if (q.archived) p.set('archived', '1');

@@ -6,7 +6,7 @@ import { Loader } from './loader.svelte';
 import { MAX_COMPARED } from '../compare/compare-limit';
 import type { BuildSummary } from '../builds/build-summary';
 import { DEFAULT_LIST_QUERY, type ListQuery } from '../builds/list-query';
-import { countByStatus, haystackOf, isEmptyFilter, matchingPositions, narrows, customersOf, sortSummaries, type BuildFilter, type SortDir, type SortKey } from '../builds/build-filter';
+import { countByStatus, haystackOf, isEmptyFilter, matchingPositions, narrows, customersOf, ruleOptions, RuleFlags, sortSummaries, type BuildFilter, type SortDir, type SortKey } from '../builds/build-filter';
 
 const NONE: BuildSummary[] = [];
 
@@ -32,6 +32,7 @@ export class BuildsListState {
       // For the benchmark: the time from here to the first row on screen is a budget.
       performance.mark('rigbook:builds-data');
       this.#haystacks = new Map();
+      this.#flags = new RuleFlags();
       this.#prepareSearch(rows);
     },
   );
@@ -46,6 +47,8 @@ export class BuildsListState {
   /** '' every customer, '-' the shop's own, else a customer id. */
   customer = $state('');
   partId = $state('');
+  /** '' any check, else a rule id: builds where that check is not clear (see chooseRule). */
+  rule = $state('');
   /** Lists the archived builds instead of the active ones. */
   archived = $state(false);
   selectedId = $state<string | null>(null);
@@ -68,12 +71,18 @@ export class BuildsListState {
   #hay: (string | undefined)[] = [];
   /** The last filter and the positions it let through: a keystroke that only narrows it looks at those alone. */
   #lastFilter: { from: readonly BuildSummary[]; filter: BuildFilter; positions: number[] | null } | null = null;
+  /** Each list's stored checks, decoded once per distinct text. */
+  #flags = new RuleFlags();
   /** The builds of the list shown: the active ones, or the archived ones. */
   scoped = $derived(this.archived ? this.all.filter((s) => s.archivedAt !== null) : this.all);
   sorted = $derived(sortSummaries(this.scoped, this.sortKey, this.sortDir));
-  visible = $derived(this.#filter(this.sorted, { text: this.text, statuses: this.statuses, kinds: this.kinds, customer: this.customer, partId: this.partId }));
+  /** The chosen check's status of each sorted row, by position: worked out when the list or the check changes, not per keystroke. */
+  ruleStatuses = $derived(this.rule === '' ? null : this.#flags.statusesOf(this.sorted, this.rule));
+  visible = $derived(this.#filter(this.sorted, { text: this.text, statuses: this.statuses, kinds: this.kinds, customer: this.customer, partId: this.partId, rule: this.rule }));
   customers = $derived(customersOf(this.all));
-  counts = $derived(countByStatus(this.scoped));
+  /** The check filter's options: the rule catalogue, and the class checks the list flags. */
+  rules = $derived(ruleOptions(this.#flags.classRules(this.all), this.rule));
+  counts = $derived(countByStatus(this.sorted, this.ruleStatuses ?? undefined));
   /** Everything the address keeps of the list (see list-query.ts). */
   query = $derived<ListQuery>({
     text: this.text,
@@ -81,12 +90,13 @@ export class BuildsListState {
     kinds: this.kinds,
     customer: this.customer,
     partId: this.partId,
+    rule: this.rule,
     sortKey: this.sortKey,
     sortDir: this.sortDir,
     archived: this.archived,
   });
   selectedIndex = $derived(this.selectedId === null ? -1 : this.visible.findIndex((s) => s.id === this.selectedId));
-  filtering = $derived(this.text.trim() !== '' || this.statuses.length > 0 || this.kinds.length > 0 || this.customer !== '' || this.partId !== '');
+  filtering = $derived(this.text.trim() !== '' || this.statuses.length > 0 || this.kinds.length > 0 || this.customer !== '' || this.partId !== '' || this.rule !== '');
 
   #pendingChanged = new Set<string>();
   #marking = new Set<string>();
@@ -111,7 +121,7 @@ export class BuildsListState {
     const byId = this.#haystacks;
     const haystackAt = (i: number): string => (hay[i] ??= byId.get(sorted[i]!.id) ?? haystackOf(sorted[i]!));
     const within = last !== null && last.from === sorted && last.positions !== null && narrows(last.filter, filter) ? last.positions : undefined;
-    const positions = matchingPositions(sorted, filter, haystackAt, within);
+    const positions = matchingPositions(sorted, filter, haystackAt, within, this.ruleStatuses ?? undefined);
     this.#lastFilter = { from: sorted, filter, positions };
     return positions.map((i) => sorted[i]!);
   }
@@ -177,7 +187,15 @@ export class BuildsListState {
   }
 
   toggleStatus(status: Status): void {
+    // A check filter lists the builds the check flags: none of them is clear on it.
+    if (status === 'clear' && this.rule !== '' && !this.statuses.includes(status)) return;
     this.statuses = this.statuses.includes(status) ? this.statuses.filter((s) => s !== status) : [...this.statuses, status];
+  }
+
+  /** Filters by one check ('' any); the Clear verdict is let go, as no flagged build is clear on its check. */
+  chooseRule(rule: string): void {
+    this.rule = rule;
+    if (rule !== '' && this.statuses.includes('clear')) this.statuses = this.statuses.filter((s) => s !== 'clear');
   }
 
   toggleKind(kind: VehicleKind): void {
@@ -190,6 +208,7 @@ export class BuildsListState {
     this.kinds = [];
     this.customer = '';
     this.partId = '';
+    this.rule = '';
   }
 
   /** Sets the list to what an address asks for; reloads when it switches between active and archived builds. */
@@ -199,6 +218,7 @@ export class BuildsListState {
     this.kinds = [...q.kinds];
     this.customer = q.customer;
     this.partId = q.partId;
+    this.chooseRule(q.rule);
     this.sortKey = q.sortKey;
     this.sortDir = q.sortDir;
     if (q.archived !== this.archived) this.showArchived(q.archived);

@@ -44,6 +44,7 @@ export function valueFor(table: string, column: Pick<ColumnShape, 'name' | 'type
     before: '{}',
     after: '{}',
     supplyStatuses: '',
+    ruleStatuses: '',
     actor: 'upgrade-test',
     cellResistancesOhm: '[0.003, 0.004]',
     samples: '{"timeS":[0,1],"currentA":[10,20]}',

@@ -66,6 +66,8 @@ export async function readHistory(host: Host): Promise<HistoryRow[]> {
 export interface StoredVerdict {
   status: Status;
   supplies: Array<{ supplyId: string; status: Status }>;
+  /** The checks that are not clear, as stored (`rule=status` pairs by rule id). */
+  rules: string;
 }
 
 export type StoreRecords = Record<RecordKind, StoredRecord[]> & { verdicts: Map<string, StoredVerdict>; contexts: BuildContext[] };
@@ -81,11 +83,11 @@ export async function readRecords(host: Host): Promise<StoreRecords> {
   out.contexts = await loadBuildContexts(host.ctx.db, { by: 'all' }, settings.tightThreshold);
   // The evaluation loads builds lean (no name, notes or version); records come whole from the repository `builds.get` reads.
   out.builds = (await loadBuilds(host.ctx.db, { by: 'all' })) as unknown as StoredRecord[];
-  const rows = await host.ctx.db.selectFrom('verdicts').select(['buildId', 'status', 'supplyStatuses']).execute();
+  const rows = await host.ctx.db.selectFrom('verdicts').select(['buildId', 'status', 'supplyStatuses', 'ruleStatuses']).execute();
   for (const row of rows) {
     // Stored as `supplyId=status` pairs joined by commas (store/schema.ts).
     const supplies = row.supplyStatuses === '' ? [] : row.supplyStatuses.split(',').map((pair) => ({ supplyId: pair.slice(0, pair.lastIndexOf('=')), status: pair.slice(pair.lastIndexOf('=') + 1) as Status }));
-    out.verdicts.set(row.buildId, { status: row.status as Status, supplies });
+    out.verdicts.set(row.buildId, { status: row.status as Status, supplies, rules: row.ruleStatuses });
   }
   return out;
 }
@@ -140,7 +142,22 @@ export interface VerdictAudit {
   buildsEvaluated: number;
 }
 
-/** Every build's stored verdict (overall and per supply) against core evaluateBuild on the stored records. */
+const RANK: Readonly<Record<Status, number>> = { over: 0, incomplete: 1, tight: 2, clear: 3 };
+
+/** Each rule's worst status that is not clear, written out here apart from the store's encoder. */
+function flaggedRules(verdict: BuildVerdict): string {
+  const worst = new Map<string, Status>();
+  for (const f of verdict.supplies.flatMap((s) => s.findings)) {
+    const before = worst.get(f.rule);
+    if (f.status !== 'clear' && (before === undefined || RANK[f.status] < RANK[before])) worst.set(f.rule, f.status);
+  }
+  return [...worst]
+    .sort(([a], [b]) => (a < b ? -1 : 1))
+    .map(([rule, status]) => `${rule}=${status}`)
+    .join(',');
+}
+
+/** Every build's stored verdict (overall, per supply and per flagged check) against core evaluateBuild on the stored records. */
 export function verdictProblems(records: StoreRecords): VerdictAudit {
   const problems: string[] = [];
   if (records.contexts.length !== records.verdicts.size) problems.push(`${records.contexts.length} builds, ${records.verdicts.size} stored verdicts`);
@@ -154,6 +171,8 @@ export function verdictProblems(records: StoreRecords): VerdictAudit {
     const stored = [verdict.status, ...verdict.supplies.map((s) => `${s.supplyId}=${s.status}`)].join(' ');
     const expected = [fresh.status, ...fresh.supplies.map((s) => `${s.supplyId}=${s.status}`)].join(' ');
     if (stored !== expected) problems.push(`build ${ctx.build.id}: stored verdict "${stored}", fresh evaluation "${expected}"`);
+    const rules = flaggedRules(fresh);
+    if (verdict.rules !== rules) problems.push(`build ${ctx.build.id}: stored checks "${verdict.rules}", fresh evaluation "${rules}"`);
   }
   return { problems, buildsEvaluated: records.contexts.length };
 }
