@@ -13,4 +13,7 @@
 //    and pack logs: the newest logged resistance measurement sets a pack's sag; the pack-health rule.
 //    and cells in series, motor Kv and pinion are figures a class limit can judge (a stored limit on
 //    one read incomplete before).
-export const ENGINE_VERSION = 5;
+// 6: BEC current (a controller's BEC rating against the build's receiver and servo load, where
+//    both are entered); motor heat judged against a rule of thumb per motor mass where the maker
+//    rates no heat loss (no better than tight).
+export const ENGINE_VERSION = 6;

@@ -7,6 +7,7 @@ import * as fieldAndTypicalValues from '../../migrations/20261203-0006-field-and
 import * as packLogRunLogs from '../../migrations/20261203-0007-pack-log-run-logs';
 import * as customersAndWorkOrders from '../../migrations/20261203-0008-customers-and-work-orders';
 import * as classRecords from '../../migrations/20261203-0009-class-records';
+import * as becCurrent from '../../migrations/20261204-0010-bec-current';
 
 // Static imports rather than a folder read at run time: bundlers follow these, so the
 // packaged app carries every migration. Add each new migration here, in name order.
@@ -19,6 +20,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261203-0007-pack-log-run-logs': packLogRunLogs,
   '20261203-0008-customers-and-work-orders': customersAndWorkOrders,
   '20261203-0009-class-records': classRecords,
+  '20261204-0010-bec-current': becCurrent,
 };
 
 export const staticMigrationProvider: MigrationProvider = {
