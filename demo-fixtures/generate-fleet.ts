@@ -66,6 +66,8 @@ export function generateFleet(options: GenerateOptions): FleetFile {
     maxVoltageV: 26,
     maxRpm: 90000,
     poles: 4,
+    // Invented, as the rest: a rated heat loss keeps the heat check on a rating, as a shop's own parts would be.
+    maxLossW: 200,
     massKg: 0.3,
   };
   const motors: Motor[] = [hotMotor];

@@ -8,6 +8,7 @@ import { AIR_DENSITY, CONTROLLER_VOLTS_PER_RATED_CELL, DEFAULT_2WD_DRIVEN_SHARE,
 import { SURFACES, VEHICLE_KINDS, type BuildContext, type PropellerEstimateMethod, type Surface, type VehicleKind } from './domain';
 import { finalDriveRatio } from './drivetrain';
 import { count, known, lacking, nonNegative, positive, type Known } from './known';
+import { motorHeatLimit, type MotorHeatLimit } from './motor-heat-limit';
 import { isPlausible, type PlausibleField } from './plausibility';
 import { estimateStaticCoefficients } from './propeller-estimate';
 import { estimateWaterCoefficients } from './water-propeller-estimate';
@@ -85,9 +86,13 @@ export interface BuildInputs {
   depthOfDischarge: number;
   depthOfDischargeDefault: boolean;
   motorPoles: Known;
-  motorMaxLossW: number | null;
+  /** The motor's heat-loss limit: the maker's rating, else the rule of thumb by mass; null with neither. */
+  motorHeatLimit: MotorHeatLimit | null;
   controllerMaxErpm: number | null;
   controllerMinVoltageV: number | null;
+  /** The controller's BEC rating and the receiver and servo load entered on the build; null where not entered. */
+  controllerBecA: number | null;
+  becLoadA: number | null;
   vehicleMassKg: Known;
 }
 
@@ -194,9 +199,10 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
   }
   const dod = build.depthOfDischarge;
   const dodGiven = typeof dod === 'number' && isPlausible('build.depthOfDischarge', dod);
-  const maxLoss = motor?.maxLossW;
   const maxErpm = controller?.maxErpm;
   const minVoltage = controller?.minVoltageV;
+  const becA = controller?.becCurrentA;
+  const becLoad = build.becLoadA;
 
   return {
     kind: vehicle ? ((VEHICLE_KINDS as readonly string[]).includes(vehicle.kind) ? known(vehicle.kind) : lacking<VehicleKind>('vehicle.kind')) : lacking<VehicleKind>('build.vehicleId'),
@@ -247,9 +253,11 @@ export function buildInputs(ctx: BuildContext): BuildInputs {
     depthOfDischarge: dodGiven ? dod : DEFAULT_DEPTH_OF_DISCHARGE,
     depthOfDischargeDefault: !dodGiven,
     motorPoles: motor ? count(motor.poles, 'motor.poles') : noMotor,
-    motorMaxLossW: typeof maxLoss === 'number' && maxLoss > 0 ? maxLoss : null,
+    motorHeatLimit: motor ? motorHeatLimit(motor.maxLossW, motor.massKg) : null,
     controllerMaxErpm: typeof maxErpm === 'number' && maxErpm > 0 ? maxErpm : null,
     controllerMinVoltageV: typeof minVoltage === 'number' && minVoltage > 0 ? minVoltage : null,
+    controllerBecA: typeof becA === 'number' && becA > 0 ? becA : null,
+    becLoadA: typeof becLoad === 'number' && becLoad >= 0 && Number.isFinite(becLoad) ? becLoad : null,
     vehicleMassKg: massKg,
   };
 }

@@ -10,6 +10,7 @@ import type { Battery, BuildContext, BuildVerdict, Figures, Finding, PackShare, 
 import { rolloutMm, speedKmhAt } from './drivetrain';
 import { known, lacking, missingOf, type Known } from './known';
 import { messageNumber } from './message-number';
+import { LOSS_W_PER_GRAM } from './motor-heat-limit';
 import { torqueConstant } from './motor';
 import { operate } from './operating-point';
 import { NOT_APPLICABLE } from './operation';
@@ -293,6 +294,7 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
     hoverThrottle: wider.hoverThrottle,
     erpm: wider.erpm,
     motorLossW: wider.motorLossW,
+    becLoadA: inp.becLoadA === null ? lacking('build.becLoadA') : known(inp.becLoadA),
     allUpMassKg: wider.allUpMassKg,
     thrustToWeight: wider.thrustToWeight,
     thrustGrams: op.thrustN.value === null ? op.thrustN : known(newtonToGramForce(op.thrustN.value)),
@@ -382,6 +384,7 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
     hoverCurrentA: null,
     erpm: null,
     motorLossW: null,
+    becLoadA: null,
     hoverMotorCurrentA: null,
     allUpMassKg: null,
     thrustToWeight: null,
@@ -431,7 +434,8 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
     pushRule(env, 'prop-tip-speed', op.tipSpeedMps, known(tipLimit), undefined, byMaker ? { limitName: `the propeller maker's limit of ${messageNumber(inp.propMaxRpm ?? 0)} rpm` } : undefined);
   }
   // The wider checks: each judged where its rating is entered (thrust-to-weight on every multirotor).
-  if (inp.motorMaxLossW !== null) pushRule(env, 'motor-heat', wider.motorLossW, known(inp.motorMaxLossW), contSource);
+  const heat = inp.motorHeatLimit;
+  if (heat !== null) pushRule(env, 'motor-heat', wider.motorLossW, known(heat.lossW), contSource, heat.ruleOfThumb ? { limitName: RULE_OF_THUMB_LIMIT_NAME } : undefined);
   if (inp.controllerMaxErpm !== null) pushRule(env, 'controller-erpm', wider.erpm, known(inp.controllerMaxErpm));
   if (kind === 'multirotor') {
     findings.push(
@@ -444,6 +448,8 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
       checkMinimum({ rule: 'controller-min-voltage', unit: 'V', value: finite(loadedCutoffV), overBelow: least, tightBelow: least * (1 + threshold), text: ratingRule('controller-min-voltage').text, source: peakSource, messages }),
     );
   }
+  // The BEC load is the user's own figure; with no load entered there is nothing to claim either way.
+  if (inp.controllerBecA !== null && inp.becLoadA !== null) pushRule(env, 'bec-current', known(inp.becLoadA), known(inp.controllerBecA));
   pushPackLimit(env, 'wire-current', contA, s, contSource, (b) => (typeof b.wireGaugeAwg === 'number' ? chassisAmpacity(b.wireGaugeAwg) : null), site.names);
   pushPackLimit(env, 'connector-current', contA, s, contSource, (b) => (typeof b.connectorRatingA === 'number' && b.connectorRatingA > 0 ? b.connectorRatingA : null), site.names);
   const marks: TypicalMarks = markTypical(inp, findings, figures, messages);
@@ -537,6 +543,9 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
   if (marks.markedFigures.length > 0) verdict.markedFigures = marks.markedFigures;
   return verdict;
 }
+
+/** The motor-heat limit's name where the maker rates no heat loss. */
+const RULE_OF_THUMB_LIMIT_NAME = `a rule of thumb of ${LOSS_W_PER_GRAM} W per gram of motor mass (common practice, set on the low side), not the maker's rating`;
 
 /** Multirotor thrust-to-weight under which the check reads over, and under which tight (common practice). */
 const THRUST_TO_WEIGHT_OVER = 1.3;

@@ -7,6 +7,7 @@ import type { BuildInputs } from './build-inputs';
 import { FIGURE_KEYS, FIGURES, type FigureKey } from './catalogue/figures';
 import type { Figures, Finding, ValueUsed, VehicleKind } from './domain';
 import { messageNumber } from './message-number';
+import { LOSS_W_PER_GRAM } from './motor-heat-limit';
 import { ESTIMATE } from './propeller-estimate';
 import { WATER_ESTIMATE } from './water-propeller-estimate';
 
@@ -25,6 +26,7 @@ const FIELD_WORDS: Readonly<Record<string, string>> = {
   'vehicle.tractionCoefficient': 'tyre grip μ',
   'propeller.thrustCoefficient': 'thrust coefficient C_T',
   'propeller.powerCoefficient': 'power coefficient C_P',
+  'motor.maxLossW': 'a rule of thumb per motor mass',
 };
 
 function valueOf(inp: BuildInputs, field: string): number | null {
@@ -44,6 +46,9 @@ function valueOf(inp: BuildInputs, field: string): number | null {
   }
 }
 
+/** The field a rule-of-thumb heat limit stands in for. */
+const HEAT_LIMIT_FIELD = 'motor.maxLossW';
+
 export function markTypical(inp: BuildInputs, findings: Finding[], figures: Figures, messages: boolean): TypicalMarks {
   const valuesUsed: ValueUsed[] = [];
   for (const field of inp.typicalFields) {
@@ -54,7 +59,10 @@ export function markTypical(inp: BuildInputs, findings: Finding[], figures: Figu
     const v = valueOf(inp, field);
     if (v !== null) valuesUsed.push(inp.estimateMethod === null ? { field, value: v, basis: 'estimated' } : { field, value: v, basis: 'estimated', method: inp.estimateMethod });
   }
-  if (valuesUsed.length === 0) return { valuesUsed, markedFigures: [] };
+  const heat = inp.motorHeatLimit;
+  if (heat?.ruleOfThumb) markHeatLimit(findings, messages);
+  const heatUsed: ValueUsed[] = heat?.ruleOfThumb ? [{ field: HEAT_LIMIT_FIELD, value: heat.lossW, basis: 'typical' }] : [];
+  if (valuesUsed.length === 0) return { valuesUsed: heatUsed, markedFigures: [] };
   const markedFigures: FigureKey[] = [];
   for (const key of FIGURE_KEYS) {
     const spec = FIGURES[key];
@@ -69,14 +77,30 @@ export function markTypical(inp: BuildInputs, findings: Finding[], figures: Figu
     const fields = valuesUsed.map((u) => u.field);
     for (const f of findings) {
       if (f.source !== 'model' || f.value === null) continue;
-      f.typical = fields.slice();
+      f.typical = [...fields, ...(f.typical ?? [])];
       if (f.status !== 'clear') continue;
       f.status = 'tight';
       if (messages)
         f.message += ` Rests on ${valuesUsed.some((u) => u.basis === 'estimated') ? 'estimated' : 'typical'} values not yet confirmed (${fields.map((x) => FIELD_WORDS[x] ?? x).join(', ')}), so it reads no better than tight: enter measured values, or confirm them on the vehicle.`;
     }
   }
-  return { valuesUsed, markedFigures };
+  // The heat limit is a limit, not an input of the model: no figure rests on it.
+  return { valuesUsed: [...valuesUsed, ...heatUsed], markedFigures };
+}
+
+/**
+ * A motor-heat finding judged against the rule of thumb reads no better than tight whatever the
+ * vehicle's confirmation says: that flag vouches for the vehicle's values, and only the maker's
+ * rated heat loss, entered on the motor, can clear the motor.
+ */
+function markHeatLimit(findings: Finding[], messages: boolean): void {
+  for (const f of findings) {
+    if (f.rule !== 'motor-heat' || f.value === null) continue;
+    f.typical = [HEAT_LIMIT_FIELD];
+    if (f.status !== 'clear') continue;
+    f.status = 'tight';
+    if (messages) f.message += ` The limit is ${FIELD_WORDS[HEAT_LIMIT_FIELD]}, not the maker's rating, so it reads no better than tight: enter the motor's rated heat loss where the maker gives one.`;
+  }
 }
 
 const fmt = (x: number): string => messageNumber(x);
@@ -93,7 +117,7 @@ export function typicalSentences(inp: BuildInputs, kind: VehicleKind | null, mar
         : `Air: ${fmt(a.densityKgM3)} kg/m\u00b3 at ${fmt(inp.fieldAltitudeM ?? 0)} m and ${fmt(a.temperatureC)} \u00b0C (${a.standardTemperature ? 'the standard temperature for the altitude' : 'as entered'}; pressure from the ISO 2533 standard atmosphere).`,
     );
   }
-  const typical = marks.valuesUsed.filter((u) => u.basis === 'typical');
+  const typical = marks.valuesUsed.filter((u) => u.basis === 'typical' && u.field !== HEAT_LIMIT_FIELD);
   if (typical.length > 0) {
     const surface = inp.surface === null ? 'surface not recorded: the highest of any surface' : `on ${inp.surface}`;
     out.push(
@@ -114,6 +138,12 @@ export function typicalSentences(inp: BuildInputs, kind: VehicleKind | null, mar
     } else {
       out.push(`Estimated from the propeller's diameter, pitch and blade count (blade-element momentum theory, about \u00b1${Math.round(ESTIMATE.accuracy * 100)} %): ${values}. ` + until);
     }
+  }
+  const heat = marks.valuesUsed.find((u) => u.field === HEAT_LIMIT_FIELD);
+  if (heat) {
+    out.push(
+      `Motor heat limit: ${fmt(heat.value)} W per motor, a rule of thumb of ${LOSS_W_PER_GRAM} W per gram of motor mass (common practice, set on the low side), since the motor has no rated heat loss; the check reads no better than tight until the maker's rating is entered on the motor.`,
+    );
   }
   out.push(`Run time: ${Math.round(inp.depthOfDischarge * 100)} % of the capacity (${inp.depthOfDischargeDefault ? 'the default depth of discharge; set one on the build' : 'as set on the build'}).`);
   if (kind === 'multirotor') out.push('Hover and thrust-to-weight: all-up mass is the vehicle mass plus the packs of this supply; hover at nominal voltage, the pack drop taken at the whole motor current.');

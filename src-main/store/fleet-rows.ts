@@ -125,6 +125,7 @@ function buildColumns(b: Build): Record<string, unknown> {
     fieldAltitudeM: b.fieldAltitudeM ?? null,
     airTemperatureC: b.airTemperatureC ?? null,
     depthOfDischarge: b.depthOfDischarge ?? null,
+    becLoadA: b.becLoadA ?? null,
     tightThreshold: b.tightThreshold,
   };
 }

@@ -7,6 +7,7 @@ import * as fieldAndTypicalValues from '../../migrations/20261203-0006-field-and
 import * as packLogRunLogs from '../../migrations/20261203-0007-pack-log-run-logs';
 import * as customersAndWorkOrders from '../../migrations/20261203-0008-customers-and-work-orders';
 import * as classRecords from '../../migrations/20261203-0009-class-records';
+import * as becCurrent from '../../migrations/20261204-0010-bec-current';
 import * as verdictRules from '../../migrations/20261204-0011-verdict-rules';
 
 // Static imports rather than a folder read at run time: bundlers follow these, so the
@@ -20,6 +21,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   '20261203-0007-pack-log-run-logs': packLogRunLogs,
   '20261203-0008-customers-and-work-orders': customersAndWorkOrders,
   '20261203-0009-class-records': classRecords,
+  '20261204-0010-bec-current': becCurrent,
   '20261204-0011-verdict-rules': verdictRules,
 };
 

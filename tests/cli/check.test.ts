@@ -200,6 +200,35 @@ describe('rigbook check', () => {
     expect(quad.findings.map((x) => x.rule)).toContain('thrust-to-weight');
   });
 
+  it('--json carries the BEC load as a figure and its check, and a heat limit by motor mass as a typical value', async () => {
+    const t = temp();
+    const fleet = JSON.parse(readFileSync(EXAMPLE, 'utf8')) as Record<string, Record<string, unknown>[]>;
+    // A 3 A BEC with 3.5 A of receiver and servos on it; a second copy of the motor with a mass and no rated heat loss.
+    fleet.controllers![0]!.becCurrentA = 3;
+    fleet.motors!.push({ ...fleet.motors![0]!, id: 'motor-by-mass', name: 'Same can, weighed', massKg: 0.3 });
+    const truck = fleet.builds![0]!;
+    fleet.builds!.push({ ...truck, id: 'bec', name: 'BEC loaded', becLoadA: 3.5 }, { ...truck, id: 'by-mass', name: 'Heat by mass', motorId: 'motor-by-mass' });
+    writeFileSync(t.file('bec.json'), JSON.stringify(fleet));
+    const run = await rigbook(['check', t.file('bec.json'), '--json']);
+    expect(run.err).toBe('');
+    const out = JSON.parse(run.out) as CheckOutput;
+    const byId = new Map(out.builds.map((b) => [b.id, b.supplies[0]!]));
+    const bec = byId.get('bec')!;
+    expect(bec.figures.becLoadA).toBe(3.5);
+    expect(bec.findings.find((x) => x.rule === 'bec-current')).toMatchObject({ status: 'over', value: 3.5, limit: 3, unit: 'A' });
+    // The same controller without a load entered: the figure is null and the check is left out.
+    const plain = byId.get('truck-on-3s')!;
+    expect(Object.keys(plain.figures)).toContain('becLoadA');
+    expect(plain.figures.becLoadA).toBeNull();
+    expect(plain.findings.some((x) => x.rule === 'bec-current')).toBe(false);
+    // 300 g × 0.15 W/g (the rule of thumb, common practice, from memory) = 45 W.
+    const byMass = byId.get('by-mass')!;
+    expect(byMass.valuesUsed).toEqual([{ field: 'motor.maxLossW', value: 45, basis: 'typical' }]);
+    expect(byMass.findings.find((x) => x.rule === 'motor-heat')!.limit).toBe(45);
+    expect(byMass.findings.find((x) => x.rule === 'motor-heat')!.status).not.toBe('clear');
+    expect(plain.findings.some((x) => x.rule === 'motor-heat')).toBe(false);
+  });
+
   it('refuses a file that lists one pack twice in a build, naming it', async () => {
     const t = temp();
     const fleet = JSON.parse(readFileSync(EXAMPLE, 'utf8')) as { builds: { supplies: { batteryIds: string[] }[] }[] };

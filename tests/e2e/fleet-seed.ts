@@ -23,14 +23,15 @@ const PACKS = {
   old3s: { name: 'Old 3S 2200', chemistry: 'lipo', cellsSeries: 3, capacityMah: 2200, cRatingContinuous: 20, cRatingBurst: 30, massKg: 0.19, cycleCount: 300, retired: true },
 } as const;
 
+// Rated heat losses near each motor's loss at its rated current and voltage (I²·R + I₀·V).
 const MOTORS = {
-  shop2050: { name: 'Shop 2050 4-pole 2200Kv', kv: 2200, resistanceOhm: 0.008, noLoadCurrentA: 2.4, maxCurrentA: 140, maxPowerW: 2600, maxVoltageV: 26, maxRpm: 60000, poles: 4, massKg: 0.36 },
-  stadium: { name: 'Stadium 3660 3300Kv', kv: 3300, resistanceOhm: 0.012, noLoadCurrentA: 3.5, maxCurrentA: 100, maxPowerW: 1500, maxVoltageV: 17, maxRpm: 55000, poles: 4, massKg: 0.25 },
-  crawler: { name: 'Crawler 540 21T', kv: 2000, resistanceOhm: 0.04, noLoadCurrentA: 1.5, maxCurrentA: 40, maxPowerW: 300, maxVoltageV: 12, maxRpm: 30000, poles: 2, massKg: 0.17 },
-  marine: { name: 'Marine 4074 2000Kv', kv: 2000, resistanceOhm: 0.007, noLoadCurrentA: 3, maxCurrentA: 150, maxPowerW: 3000, maxVoltageV: 26, maxRpm: 55000, poles: 4, massKg: 0.45 },
+  shop2050: { name: 'Shop 2050 4-pole 2200Kv', kv: 2200, resistanceOhm: 0.008, noLoadCurrentA: 2.4, maxCurrentA: 140, maxPowerW: 2600, maxVoltageV: 26, maxRpm: 60000, maxLossW: 220, poles: 4, massKg: 0.36 },
+  stadium: { name: 'Stadium 3660 3300Kv', kv: 3300, resistanceOhm: 0.012, noLoadCurrentA: 3.5, maxCurrentA: 100, maxPowerW: 1500, maxVoltageV: 17, maxRpm: 55000, maxLossW: 180, poles: 4, massKg: 0.25 },
+  crawler: { name: 'Crawler 540 21T', kv: 2000, resistanceOhm: 0.04, noLoadCurrentA: 1.5, maxCurrentA: 40, maxPowerW: 300, maxVoltageV: 12, maxRpm: 30000, maxLossW: 80, poles: 2, massKg: 0.17 },
+  marine: { name: 'Marine 4074 2000Kv', kv: 2000, resistanceOhm: 0.007, noLoadCurrentA: 3, maxCurrentA: 150, maxPowerW: 3000, maxVoltageV: 26, maxRpm: 55000, maxLossW: 240, poles: 4, massKg: 0.45 },
   // 1650 Kv on 6S keeps the unloaded five-inch tips just under 85 % of the speed of sound: tight.
-  quad: { name: 'Quad 2207 1650Kv', kv: 1650, resistanceOhm: 0.065, noLoadCurrentA: 1.2, maxCurrentA: 40, maxPowerW: 800, maxVoltageV: 26, maxRpm: 50000, poles: 14, massKg: 0.033 },
-  glider: { name: 'Glider 3520 700Kv', kv: 700, resistanceOhm: 0.03, noLoadCurrentA: 1, maxCurrentA: 60, maxPowerW: 1000, maxVoltageV: 19, maxRpm: 20000, poles: 14, massKg: 0.2 },
+  quad: { name: 'Quad 2207 1650Kv', kv: 1650, resistanceOhm: 0.065, noLoadCurrentA: 1.2, maxCurrentA: 40, maxPowerW: 800, maxVoltageV: 26, maxRpm: 50000, maxLossW: 135, poles: 14, massKg: 0.033 },
+  glider: { name: 'Glider 3520 700Kv', kv: 700, resistanceOhm: 0.03, noLoadCurrentA: 1, maxCurrentA: 60, maxPowerW: 1000, maxVoltageV: 19, maxRpm: 20000, maxLossW: 130, poles: 14, massKg: 0.2 },
 } as const;
 
 const CONTROLLERS = {

@@ -25,8 +25,8 @@ forEachEngine((engine) => {
     // High-grip tyres: launch current close to the 50 A motor rating.
     'demo-b-touring': { status: 'tight', rules: ['motor-current'] },
     'demo-b-drift': { status: 'clear', rules: [] },
-    // A pinion too big for the motor's current.
-    'demo-b-shortcourse-big': { status: 'over', rules: ['motor-current'] },
+    // A pinion too big for the motor: past its rated current, and shedding more heat than it is rated for.
+    'demo-b-shortcourse-big': { status: 'over', rules: ['motor-current', 'motor-heat'] },
     'demo-b-shortcourse-ok': { status: 'clear', rules: [] },
     // A 6S pack on a controller rated for 4S.
     'demo-b-monster': { status: 'over', rules: ['controller-voltage'] },
@@ -98,14 +98,25 @@ forEachEngine((engine) => {
       // Judged at the unloaded rpm; the static figure alone stays under the limit.
       expect(quad.supplies[0]!.figures.tipSpeedStaticMps as number).toBeLessThan(tip.limit!);
       expect(tip.value as number).toBeGreaterThan(tip.limit!);
-      // The rest of the quad is still only close to its ratings.
+      // The rest of the quad is still only close to its ratings (at static full throttle the motors near their rated heat loss).
       expect(
         quad.supplies[0]!.findings.filter((x) => x.status === 'tight')
           .map((x) => x.rule)
           .sort(),
-      ).toEqual(['battery-continuous', 'motor-current']);
+      ).toEqual(['battery-continuous', 'motor-current', 'motor-heat']);
+
+      // The trainer's receiver and servos on its controller's 3 A BEC: 1.8 A leaves 40 %.
+      const bec = plane.supplies[0]!.findings.find((x) => x.rule === 'bec-current')!;
+      expect(bec).toMatchObject({ status: 'clear', value: 1.8, limit: 3 });
+      expect(plane.supplies[0]!.figures.becLoadA).toBe(1.8);
 
       const crawler = (await f.call('builds.get', { id: 'demo-b-crawler' })).verdict!;
+      // The crawler's brushed motor has no rated heat loss: 160 g × 0.15 W/g = 24 W by the rule of
+      // thumb (common practice, from memory), which can read no better than tight.
+      const heat = crawler.supplies[0]!.findings.find((x) => x.rule === 'motor-heat')!;
+      expect(heat).toMatchObject({ status: 'tight', typical: ['motor.maxLossW'] });
+      expect(heat.limit).toBeCloseTo(24, 9);
+      expect(crawler.supplies[0]!.valuesUsed?.map((u) => u.field)).toEqual(['motor.maxLossW']);
       const missing = crawler.supplies[0]!.findings.filter((x) => x.status === 'incomplete').flatMap((x) => x.missing ?? []);
       expect(missing.sort()).toEqual(['battery.cRatingBurst', 'battery.cRatingContinuous']);
 

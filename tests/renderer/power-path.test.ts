@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { askedText, assumedText, decidingChecks, powerPath, type PathParts } from '../../src-renderer/lib/sheet/power-path';
+import { valueUsedText } from '../../src-renderer/lib/sheet/values-used';
 import { figuresByStage } from '../../src-renderer/lib/sheet/stage-figures';
 import { stageOfRule } from '../../src-renderer/lib/sheet/path-stages';
 import type { BuildContext, Finding } from '../../src-main/core/domain';
@@ -78,6 +79,18 @@ describe('power path', () => {
     expect(askedText({ ...f, value: null, status: 'incomplete' }, 'metric')).toBe('Controller continuous current: cannot be checked');
   });
 
+  it('says when a figure was entered, and when a limit is a rule of thumb', () => {
+    const bec: Finding = { rule: 'bec-current', status: 'tight', value: 2.8, limit: 3, unit: 'A', margin: 0.2 / 3, message: '' };
+    expect(askedText(bec, 'metric')).toBe('2.80 A of 3 A BEC rating');
+    expect(assumedText(bec)).toBe('as entered on the build');
+    expect(stageOfRule('bec-current', 'A')).toBe('controller');
+    const heat: Finding = { rule: 'motor-heat', status: 'tight', value: 59.6, limit: 150, unit: 'W', margin: 0.6, message: '', source: 'measured', typical: ['motor.maxLossW'] };
+    expect(askedText(heat, 'metric')).toBe('59.6 W of 150 W rule-of-thumb limit');
+    expect(assumedText(heat)).toBe('continuous, measured, full charge, limit by rule of thumb per motor mass');
+    expect(askedText({ ...heat, typical: [] }, 'metric')).toBe('59.6 W of 150 W rated loss');
+    expect(valueUsedText({ field: 'motor.maxLossW', value: 150, basis: 'typical' })).toMatch(/^Motor heat limit: 150 W, rule of thumb per motor mass/);
+  });
+
   it('class rules fall on the stage of what they limit', () => {
     expect(stageOfRule('class-max-voltage', 'V')).toBe('supply');
     expect(stageOfRule('class-speed', 'km/h')).toBe('output');
@@ -87,8 +100,10 @@ describe('power path', () => {
   it('groups every figure once, by stage', () => {
     const truck = figuresByStage('truck');
     // Stages come from the figure catalogue: the supply current is the packs' figure (their
-    // checks and the controller's both read it); no figure belongs to the controller alone.
-    expect(truck.map((g) => g.title)).toEqual(['Packs', 'Motor', 'Gearing', 'Wheels']);
+    // checks and the controller's both read it); the controller's own is the BEC load, entered
+    // on some builds only.
+    expect(truck.map((g) => g.title)).toEqual(['Packs', 'Speed controller (supply current)', 'Motor', 'Gearing', 'Wheels']);
+    expect(truck.find((g) => g.id === 'controller')!.figures.map((f) => [f.key, f.optional])).toEqual([['becLoadA', true]]);
     expect(truck.find((g) => g.id === 'supply')!.figures.map((f) => f.key)).toContain('continuousCurrentA');
     const keys = truck.flatMap((g) => g.figures.map((f) => f.key));
     expect(new Set(keys).size).toBe(keys.length);

@@ -122,6 +122,18 @@ export const BUILD_FIELDS = {
     optional: true,
     plausible: { above: 0.05, max: 1, why: 'a share of the capacity: 80 % is the usual limit for lithium packs' },
   },
+  becLoadA: {
+    type: 'number',
+    label: 'BEC load',
+    unit: 'A',
+    hint: 'what the receiver and servos draw; servos at stall draw most',
+    nullable: true,
+    fallback: null,
+    // Added after the first file version: records written before it lack the field.
+    optional: true,
+    bounds: { min: 0, max: 100 },
+    need: 'the receiver and servo load on the BEC',
+  },
   tightThreshold: {
     type: 'number',
     label: 'Tight threshold',

@@ -4,7 +4,7 @@
 
 import type { Finding } from '../domain';
 
-export const CAUTION_TOPICS = ['fire', 'storage', 'heat', 'propeller', 'voltage', 'mechanical', 'flight', 'brownout'] as const;
+export const CAUTION_TOPICS = ['fire', 'storage', 'heat', 'propeller', 'voltage', 'mechanical', 'flight', 'brownout', 'receiver'] as const;
 export type CautionTopic = (typeof CAUTION_TOPICS)[number];
 
 export const CAUTION_TEXT: Readonly<Record<CautionTopic, string>> = {
@@ -16,6 +16,8 @@ export const CAUTION_TEXT: Readonly<Record<CautionTopic, string>> = {
   voltage: 'Over-voltage can destroy a controller or motor at once; a failing controller can catch fire.',
   mechanical: 'Above its rated speed a motor’s rotor and bearings are over-stressed and can come apart.',
   brownout: 'Brown-out: a controller that drops below its minimum input voltage cuts out or resets; a craft in the air loses power and comes down, a vehicle stops or lurches.',
+  receiver:
+    'Receiver supply: a BEC asked for more than it gives lets the receiver brown out, and control is lost: a vehicle or aircraft can run away or come down. Follow the maker\u2019s BEC rating, count the servos\u2019 stall current, and use a separate regulator when in doubt.',
   flight: 'Flight risk: a craft with little thrust to spare can fail to climb or recover and come down without warning. Fly away from people and follow local rules for flying.',
 };
 

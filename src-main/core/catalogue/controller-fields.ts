@@ -48,6 +48,19 @@ export const CONTROLLER_FIELDS = {
     bounds: { above: 0, max: 2000 },
     need: 'the controller minimum input voltage',
   },
+  becCurrentA: {
+    type: 'number',
+    label: 'BEC current',
+    unit: 'A',
+    hint: 'what the built-in regulator for receiver and servos is rated to give, where the maker states it',
+    nullable: true,
+    fallback: null,
+    // Added after the first file version: records written before it lack the field.
+    optional: true,
+    bounds: { above: 0, max: 100 },
+    typical: [0.5, 30],
+    need: 'the controller BEC current rating',
+  },
   resistanceOhm: {
     type: 'number',
     label: 'Own resistance',

@@ -7,8 +7,8 @@ import { PROPELLER_FIELDS } from './propeller-fields';
 // A draft part is one typed in on the spot to try against a build before it is owned. It asks
 // only for what the checks read: the name, every field whose absence an incomplete verdict
 // names (`need`), and the few the engine reads without naming them when missing. Everything
-// else (notes, a motor's mass, cycles, retired, blades) takes the catalogue's fallback, so a draft
-// is always a whole record once the fallbacks are filled.
+// else (notes, cycles, retired, blades) takes the catalogue's fallback, so a draft is always a
+// whole record once the fallbacks are filled.
 
 export const DRAFT_KINDS = ['batteries', 'motors', 'controllers', 'propellers'] as const;
 export type DraftKind = (typeof DRAFT_KINDS)[number];
@@ -28,7 +28,8 @@ export const DRAFT_CATALOGUES = {
 const READ_WITHOUT_NEED: { readonly [K in DraftKind]: readonly (keyof (typeof DRAFT_CATALOGUES)[K] & string)[] } = {
   // A multirotor's or plane's all-up mass counts its packs: without a pack's mass thrust-to-weight reads incomplete.
   batteries: ['massKg'],
-  motors: [],
+  // Without a rated heat loss, the heat check takes a rule of thumb on the motor's mass.
+  motors: ['massKg'],
   controllers: ['maxCells'],
   propellers: ['maxRpm'],
 };

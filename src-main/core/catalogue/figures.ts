@@ -649,6 +649,21 @@ const CATALOGUE = {
     span: 'continuous',
     origin: 'model-or-measured',
   },
+  // The receiver and servo load is the user's own figure: the engine does not model it.
+  becLoadA: {
+    unit: 'A',
+    quantity: 'current',
+    decimals: 1,
+    optional: true,
+    name: 'BEC load',
+    label: 'BEC load (receiver and servos), as entered',
+    hint: 'what the receiver and servos draw from the controller\u2019s regulator, as entered on the build',
+    stage: 'controller',
+    applies: 'all',
+    charge: null,
+    span: 'continuous',
+    origin: 'input',
+  },
   hoverMotorCurrentA: {
     unit: 'A',
     quantity: 'current',

@@ -212,6 +212,14 @@ const RATING_TEXT = {
     tightHint: 'Little headroom: check how warm the connector gets after a run.',
     perMotor: false,
   },
+  'bec-current': {
+    what: 'Receiver and servo load on the BEC (as entered)',
+    limitName: "the controller's BEC rating",
+    risk: 'An overloaded BEC lets its voltage sag or cuts out: the receiver browns out and control is lost, and a vehicle or aircraft can run away.',
+    fix: 'Use a controller with a stronger BEC, lighter servos, or a separate regulator (UBEC) for the receiver and servos.',
+    tightHint: 'Little headroom: servos at stall or several moving at once can draw more than entered.',
+    perMotor: false,
+  },
 } as const satisfies Record<string, RuleText>;
 
 const PACK_CAUTIONS = ['fire', 'heat'] as const satisfies readonly CautionTopic[];
@@ -303,7 +311,8 @@ const CATALOGUE = {
   'motor-heat': {
     kind: 'rating',
     figure: 'motorLossW',
-    limit: ['motor.maxLossW'],
+    // The maker's rated loss; without one, a rule of thumb on the motor's mass (core/motor-heat-limit.ts).
+    limit: ['motor.maxLossW', 'motor.massKg'],
     name: 'Motor heat',
     cautions: ['heat'],
     text: RATING_TEXT['motor-heat'],
@@ -349,6 +358,15 @@ const CATALOGUE = {
     name: 'Connector current',
     cautions: ['heat'],
     text: RATING_TEXT['connector-current'],
+  },
+  'bec-current': {
+    // Judged only where both the rating and the load are entered: without a load there is nothing to claim.
+    kind: 'rating',
+    figure: 'becLoadA',
+    limit: ['controller.becCurrentA'],
+    name: 'BEC current',
+    cautions: ['receiver'],
+    text: RATING_TEXT['bec-current'],
   },
   'supply-match': {
     kind: 'match',

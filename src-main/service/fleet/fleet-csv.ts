@@ -54,6 +54,7 @@ const LATER_COLUMNS: ReadonlySet<string> = new Set([
   'wireGaugeAwg',
   'connectorRatingA',
   'customerId',
+  'becCurrentA',
 ]);
 
 /** Columns older files carried and exports no longer write: read, and turned into what replaced them (a vehicle's owner text into a customer). */

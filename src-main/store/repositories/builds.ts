@@ -25,6 +25,7 @@ const EVALUATION_COLUMNS = [
   'builds.fieldAltitudeM',
   'builds.airTemperatureC',
   'builds.depthOfDischarge',
+  'builds.becLoadA',
   'builds.tightThreshold',
 ] as const;
 
@@ -62,6 +63,7 @@ function rowToBuild(row: EvaluationRow, supplies: Supply[], meta: BuildMeta): Bu
     fieldAltitudeM: row.fieldAltitudeM,
     airTemperatureC: row.airTemperatureC,
     depthOfDischarge: row.depthOfDischarge,
+    becLoadA: row.becLoadA,
     tightThreshold: row.tightThreshold,
   };
 }

@@ -64,6 +64,7 @@ const LIMIT_WORD: Readonly<Record<string, string>> = {
   'controller-erpm': 'eRPM limit',
   'wire-current': 'lead gauge',
   'connector-current': 'connector rating',
+  'bec-current': 'BEC rating',
 };
 
 /** Which of the model's operating points a check judged, besides the charge state. */
@@ -83,6 +84,9 @@ const POINT_WORD: Readonly<Record<string, string>> = {
   'thrust-to-weight': 'static',
   'controller-min-voltage': 'peak',
 };
+
+/** Checks whose figure the user entered: no model, no charge state. */
+const ENTERED_RULES: ReadonlySet<string> = new Set(['bec-current']);
 
 const RESISTANCE_WORDS: Readonly<Record<string, string>> = {
   'battery.cellResistanceOhm': 'pack resistance not measured, taken as zero',
@@ -105,13 +109,14 @@ export function askedText(f: Finding, system: UnitSystem): string {
     return ruleName(f.rule);
   }
   if (isMinimumRule(f.rule)) return `${amount(f.value, f.unit, system)}, at least ${amount(f.limit, f.unit, system)} needed`;
-  const word = LIMIT_WORD[f.rule] ?? (f.rule.startsWith('class-') ? 'class limit' : 'limit');
+  const word = f.typical?.includes('motor.maxLossW') ? 'rule-of-thumb limit' : (LIMIT_WORD[f.rule] ?? (f.rule.startsWith('class-') ? 'class limit' : 'limit'));
   return `${amount(f.value, f.unit, system)} of ${amount(f.limit, f.unit, system)} ${word}`;
 }
 
 /** What the figure behind a check assumed: charge state, model or measured, which point. */
 export function assumedText(f: Finding): string | null {
   if (f.value === null) return null;
+  if (ENTERED_RULES.has(f.rule)) return 'as entered on the build';
   const parts: string[] = [];
   const point = POINT_WORD[f.rule];
   if (point) parts.push(point);
@@ -119,7 +124,9 @@ export function assumedText(f: Finding): string | null {
   else if (f.unit === 'rpm' || f.unit === 'm/s') parts.push('model');
   parts.push(f.rule === 'controller-min-voltage' ? 'cut-off' : 'full charge');
   for (const a of f.assumed ?? []) parts.push(RESISTANCE_WORDS[a] ?? `${a} taken as zero`);
-  if (f.typical && f.typical.length > 0) parts.push(f.typical.some((t) => t.startsWith('propeller.')) ? 'estimated propeller values' : 'typical values used');
+  const inputs = (f.typical ?? []).filter((t) => t !== 'motor.maxLossW');
+  if (inputs.length > 0) parts.push(inputs.some((t) => t.startsWith('propeller.')) ? 'estimated propeller values' : 'typical values used');
+  if (f.typical?.includes('motor.maxLossW')) parts.push('limit by rule of thumb per motor mass');
   return parts.join(', ');
 }
 

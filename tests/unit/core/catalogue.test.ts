@@ -2,6 +2,7 @@ import { describe, expect, expectTypeOf, it } from 'vitest';
 import { CAUTION_TOPICS } from '../../../src-main/core/catalogue/cautions';
 import { FIGURE_KEYS, FIGURES, SOURCE_FIGURES, type FigureKey, type Figures, type SourceFigureKey } from '../../../src-main/core/catalogue/figures';
 import { BUILT_IN_RULE_IDS, cautionsFor, RULE_IDS, RULES, ruleName } from '../../../src-main/core/catalogue/rules';
+import type { BuildContext } from '../../../src-main/core/domain';
 import { battery, controller, motor, quadContext, supplyOf, truckContext } from './fixtures';
 
 // The catalogues are checked against the evaluation itself: a rule judges the figure its
@@ -19,14 +20,16 @@ describe('figure catalogue', () => {
   });
 
   it('the evaluation fills in exactly the catalogue figures', () => {
-    // Ratings entered only where a maker gives them (heat loss, eRPM limit, lead gauge, connector).
+    // Ratings entered only where a maker gives them (heat loss, eRPM limit, lead gauge, connector, BEC).
     const rated = {
       motor: motor({ maxLossW: 150 }),
-      controller: controller({ maxErpm: 300_000, minVoltageV: 6 }),
+      controller: controller({ maxErpm: 300_000, minVoltageV: 6, becCurrentA: 5 }),
       batteries: new Map([['pack-a', battery({ wireGaugeAwg: 10, connectorRatingA: 90 })]]),
     };
     const quad = quadContext();
-    for (const ctx of [truckContext(rated), { ...quad, ...rated }]) {
+    // A receiver and servo load entered on the build, so the BEC check judges it.
+    const withLoad = (ctx: BuildContext): BuildContext => ({ ...ctx, build: { ...ctx.build, becLoadA: 2 } });
+    for (const ctx of [withLoad(truckContext(rated)), withLoad({ ...quad, ...rated })]) {
       const keys = Object.keys(supplyOf(ctx).figures).sort();
       expect(keys).toEqual([...FIGURE_KEYS, ...Object.keys(SOURCE_FIGURES)].sort());
     }
@@ -84,14 +87,16 @@ describe('rule catalogue', () => {
   it('a rating rule judges the figure its entry names, in that figure’s unit', () => {
     // Single-pack builds: a pack's share of the current is the whole supply current.
     const seen = new Set<string>();
-    // Ratings entered only where a maker gives them (heat loss, eRPM limit, lead gauge, connector).
+    // Ratings entered only where a maker gives them (heat loss, eRPM limit, lead gauge, connector, BEC).
     const rated = {
       motor: motor({ maxLossW: 150 }),
-      controller: controller({ maxErpm: 300_000, minVoltageV: 6 }),
+      controller: controller({ maxErpm: 300_000, minVoltageV: 6, becCurrentA: 5 }),
       batteries: new Map([['pack-a', battery({ wireGaugeAwg: 10, connectorRatingA: 90 })]]),
     };
     const quad = quadContext();
-    for (const ctx of [truckContext(rated), { ...quad, ...rated }]) {
+    // A receiver and servo load entered on the build, so the BEC check judges it.
+    const withLoad = (ctx: BuildContext): BuildContext => ({ ...ctx, build: { ...ctx.build, becLoadA: 2 } });
+    for (const ctx of [withLoad(truckContext(rated)), withLoad({ ...quad, ...rated })]) {
       const s = supplyOf(ctx);
       for (const f of s.findings) {
         const id = BUILT_IN_RULE_IDS.find((r) => r === f.rule);

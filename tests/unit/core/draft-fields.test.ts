@@ -15,14 +15,29 @@ const CONTEXTS: Record<DraftKind, BuildContext[]> = {
   // A pack with its lead gauge and connector rating entered, so the lead and connector checks judge it.
   // A pack with a past (cycles before its log), which a draft leaves out; one in a multirotor, whose all-up mass counts the pack.
   batteries: [packContext({ cycleCount: 150 }), packContext({ cycleCount: 150 }, quadContext()), packContext({ cycleCount: 150, wireGaugeAwg: 12, connectorRatingA: 60 })],
-  // A motor with a rated heat loss, so the heat check judges it.
-  motors: [truckContext(), quadContext(), truckContext({ motor: motor({ maxLossW: 120 }) })],
+  // The fixture motor has a rated heat loss, so the heat check judges it; the last has none, so
+  // its heat check takes the rule of thumb on its mass. Each has notes, which a draft leaves out.
+  motors: [withMotorNotes(truckContext()), withMotorNotes(quadContext()), withMotorNotes(truckContext({ motor: motor({ maxLossW: null }) }))],
   // A controller rated only in cells: its cell count stands in for its voltage (4.2 V a cell, common practice).
   // Another with an eRPM limit and a minimum input voltage, so those checks judge it.
-  controllers: [truckContext(), truckContext({ controller: controller({ maxVoltageV: null, maxCells: 6 }) }), truckContext({ controller: controller({ maxErpm: 210_000, minVoltageV: 6 }) })],
+  // And one with a BEC rating on a build that enters its receiver and servo load.
+  controllers: [
+    truckContext(),
+    truckContext({ controller: controller({ maxVoltageV: null, maxCells: 6 }) }),
+    truckContext({ controller: controller({ maxErpm: 210_000, minVoltageV: 6 }) }),
+    withBecLoad(truckContext({ controller: controller({ becCurrentA: 3 }) }), 2.5),
+  ],
   // A maker's rpm limit stricter than the tip-speed limit of a 127 mm propeller.
   propellers: [quadContext(), quadContext({ propeller: propeller({ maxRpm: 20_000 }) })],
 };
+
+function withMotorNotes(ctx: BuildContext): BuildContext {
+  return ctx.motor ? { ...ctx, motor: { ...ctx.motor, notes: 'spare' } } : ctx;
+}
+
+function withBecLoad(ctx: BuildContext, loadA: number): BuildContext {
+  return { ...ctx, build: { ...ctx.build, becLoadA: loadA } };
+}
 
 function packContext(over: Partial<Battery>, ctx: BuildContext = truckContext()): BuildContext {
   const pack = { ...[...ctx.batteries.values()][0]!, ...over };
@@ -60,10 +75,11 @@ const verdictOf = (ctx: BuildContext) => JSON.stringify(evaluateBuild(ctx));
 describe('the fields of a draft part', () => {
   it('are the name and the fields the checks read, in catalogue order', () => {
     // The lists as the catalogues stood when written (December 2026).
-    // The wider checks (heat loss, eRPM with the pole count, minimum voltage, leads and connectors) came later the same month.
-    expect(draftFieldKeys('motors')).toEqual(['name', 'kv', 'resistanceOhm', 'noLoadCurrentA', 'maxCurrentA', 'maxPowerW', 'maxVoltageV', 'maxRpm', 'maxLossW', 'poles']);
+    // The wider checks (heat loss, eRPM with the pole count, minimum voltage, leads and connectors) came later the same month,
+    // then the BEC rating and the heat check's rule of thumb on the motor's mass.
+    expect(draftFieldKeys('motors')).toEqual(['name', 'kv', 'resistanceOhm', 'noLoadCurrentA', 'maxCurrentA', 'maxPowerW', 'maxVoltageV', 'maxRpm', 'maxLossW', 'poles', 'massKg']);
     expect(draftFieldKeys('batteries')).toEqual(['name', 'chemistry', 'cellsSeries', 'cellsParallel', 'capacityMah', 'cRatingContinuous', 'cRatingBurst', 'cellResistanceOhm', 'massKg', 'wireGaugeAwg', 'connectorRatingA']);
-    expect(draftFieldKeys('controllers')).toEqual(['name', 'maxVoltageV', 'maxCells', 'continuousCurrentA', 'burstCurrentA', 'maxErpm', 'minVoltageV', 'resistanceOhm']);
+    expect(draftFieldKeys('controllers')).toEqual(['name', 'maxVoltageV', 'maxCells', 'continuousCurrentA', 'burstCurrentA', 'maxErpm', 'minVoltageV', 'becCurrentA', 'resistanceOhm']);
     expect(draftFieldKeys('propellers')).toEqual(['name', 'diameterMm', 'pitchMm', 'thrustCoefficient', 'powerCoefficient', 'maxRpm']);
   });
 

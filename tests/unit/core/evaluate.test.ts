@@ -53,7 +53,7 @@ describe('figures of a truck on 4S', () => {
   });
 
   it('check every built-in rule except the propeller one', () => {
-    expect(s.findings.map((x) => x.rule)).toEqual(['controller-voltage', 'motor-voltage', 'motor-speed', 'battery-continuous', 'battery-burst', 'controller-continuous', 'controller-burst', 'motor-current', 'motor-power']);
+    expect(s.findings.map((x) => x.rule)).toEqual(['controller-voltage', 'motor-voltage', 'motor-speed', 'battery-continuous', 'battery-burst', 'controller-continuous', 'controller-burst', 'motor-current', 'motor-power', 'motor-heat']);
     expect(s.status).toBe('clear');
   });
 });

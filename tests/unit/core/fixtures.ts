@@ -38,6 +38,8 @@ export function motor(over: Partial<Motor> = {}): Motor {
     maxVoltageV: 25,
     maxRpm: 60000,
     poles: 4,
+    // A rated heat loss, so the heat check is judged on a rating rather than the rule of thumb by mass.
+    maxLossW: 120,
     massKg: 0.3,
     ...over,
   };

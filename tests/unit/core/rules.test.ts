@@ -41,6 +41,7 @@ describe('rule catalogue', () => {
         'wire-current',
         'connector-current',
         'controller-min-voltage',
+        'bec-current',
       ].sort(),
     );
   });

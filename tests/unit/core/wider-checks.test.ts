@@ -2,9 +2,10 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { fieldAir, isaPressurePa } from '../../../src-main/core/atmosphere';
 import { STANDARD_GRAVITY } from '../../../src-main/core/constants';
-import type { BuildContext } from '../../../src-main/core/domain';
+import type { BuildContext, SupplyVerdict } from '../../../src-main/core/domain';
 import { ESTIMATE, estimateStaticCoefficients } from '../../../src-main/core/propeller-estimate';
 import { typicalDragArea } from '../../../src-main/core/typical-values';
+import { LOSS_W_PER_GRAM, motorHeatLimit } from '../../../src-main/core/motor-heat-limit';
 import { chassisAmpacity } from '../../../src-main/core/wire-ampacity';
 import { battery, controller, finding, motor, propeller, quadContext, supplyOf, truckContext, vehicle } from './fixtures';
 
@@ -203,20 +204,28 @@ describe('multirotor hover and thrust-to-weight', () => {
 
 describe('motor heat and controller eRPM', () => {
   // Truck fixture: R 0.011 Ω, I₀ 2.5 A, 4S LiPo full 16.8 V, Kv 2200, 4 poles.
-  const at40 = (over: Partial<BuildContext>) => {
+  const at40Context = (over: Partial<BuildContext>): BuildContext => {
     const base = truckContext(over);
-    return supplyOf({ ...base, build: { ...base.build, measuredAverageCurrentA: 40 } });
+    return { ...base, build: { ...base.build, measuredAverageCurrentA: 40 } };
   };
+  const at40 = (over: Partial<BuildContext>) => supplyOf(at40Context(over));
 
   it('loss is I²R + I₀V at the continuous current: 40² × 0.011 + 2.5 × 16.8 = 59.6 W', () => {
     expect(at40({}).figures.motorLossW).toBeCloseTo(59.6, 9);
   });
 
-  it('is judged against the rated heat loss only where one is entered', () => {
-    expect(at40({}).findings.some((f) => f.rule === 'motor-heat')).toBe(false);
+  it('is judged against the rated heat loss where one is entered, whatever the motor weighs', () => {
     expect(finding(at40({ motor: motor({ maxLossW: 50 }) }), 'motor-heat').status).toBe('over');
     expect(finding(at40({ motor: motor({ maxLossW: 65 }) }), 'motor-heat').status).toBe('tight');
-    expect(finding(at40({ motor: motor({ maxLossW: 80 }) }), 'motor-heat').status).toBe('clear');
+    const rated = supplyOf({ ...at40Context({ motor: motor({ maxLossW: 80, massKg: 0.1 }) }) });
+    expect(finding(rated, 'motor-heat')).toMatchObject({ status: 'clear', limit: 80 });
+    expect(finding(rated, 'motor-heat').typical).toBeUndefined();
+    expect(rated.valuesUsed).toBeUndefined();
+  });
+
+  it('is not judged with neither a rated heat loss nor a motor mass', () => {
+    expect(at40({ motor: motor({ maxLossW: null, massKg: null }) }).findings.some((f) => f.rule === 'motor-heat')).toBe(false);
+    expect(motorHeatLimit(null, null)).toBeNull();
   });
 
   it('eRPM is no-load rpm at full charge × pole pairs: 2200 × 16.8 × 2 = 73 920', () => {
@@ -226,6 +235,131 @@ describe('motor heat and controller eRPM', () => {
     const noPoles = finding(at40({ controller: controller({ maxErpm: 100_000 }), motor: motor({ poles: null }) }), 'controller-erpm');
     expect(noPoles.status).toBe('incomplete');
     expect(noPoles.missing).toEqual(['motor.poles']);
+  });
+});
+
+describe('motor heat by the rule of thumb on the motor mass', () => {
+  // Truck fixture at a measured 40 A: loss 40² × 0.011 + 2.5 × 16.8 = 59.6 W (copper loss I²·R plus
+  // the no-load loss I₀·V, the first-order motor model of any electric-machines handbook).
+  // The limit per gram is the project's rule of thumb (common practice, from memory); the limits
+  // below are that figure times the mass, worked by hand for 0.15 W/g.
+  const unrated = (massKg: number | null, over: Partial<BuildContext> = {}): SupplyVerdict => {
+    const base = truckContext({ motor: motor({ maxLossW: null, massKg }), ...over });
+    return supplyOf({ ...base, build: { ...base.build, measuredAverageCurrentA: 40 } });
+  };
+
+  it('takes 0.15 W a gram, on the low side, and an entered rating always wins', () => {
+    expect(LOSS_W_PER_GRAM).toBe(0.15);
+    // 300 g × 0.15 W/g = 45 W.
+    expect(motorHeatLimit(null, 0.3)).toEqual({ lossW: 45, ruleOfThumb: true });
+    expect(motorHeatLimit(80, 0.3)).toEqual({ lossW: 80, ruleOfThumb: false });
+    // A stored zero rating is no rating.
+    expect(motorHeatLimit(0, 0.3)?.ruleOfThumb).toBe(true);
+  });
+
+  it('over: 59.6 W against 45 W for a 300 g motor', () => {
+    const s = unrated(0.3);
+    const f = finding(s, 'motor-heat');
+    expect(f).toMatchObject({ status: 'over', limit: 45, typical: ['motor.maxLossW'] });
+    expect(f.value).toBeCloseTo(59.6, 9);
+    expect(f.message).toMatch(/rule of thumb of 0\.15 W per gram of motor mass/);
+    expect(f.message).toContain("Follow the part maker's ratings.");
+  });
+
+  it('tight: 59.6 W against 67.5 W for a 450 g motor ((67.5 − 59.6) ÷ 67.5 = 11.7 %, under the 15 % threshold)', () => {
+    const f = finding(unrated(0.45), 'motor-heat');
+    expect(f.limit).toBeCloseTo(67.5, 9);
+    expect(f.margin).toBeCloseTo((67.5 - 59.6) / 67.5, 9);
+    expect(f.status).toBe('tight');
+  });
+
+  it('never clear on the rule of thumb: 59.6 W against 150 W for a 1 kg motor reads tight, and says why', () => {
+    const s = unrated(1);
+    const f = finding(s, 'motor-heat');
+    // (150 − 59.6) ÷ 150 = 60 % to spare: clear on the margin, held to tight.
+    expect(f.margin).toBeCloseTo(0.6027, 4);
+    expect(f.status).toBe('tight');
+    expect(f.message).toMatch(/no better than tight/);
+    expect(f.message).toMatch(/rated heat loss/);
+    // The vehicle's confirmation vouches for the vehicle's values, not for the motor's limit.
+    const confirmed = unrated(1, { vehicle: vehicle({ typicalValuesConfirmed: true }) });
+    expect(finding(confirmed, 'motor-heat').status).toBe('tight');
+    // With the maker's rating entered it clears.
+    expect(finding(at40RatedAt(150, 1), 'motor-heat').status).toBe('clear');
+  });
+
+  it('is listed as a typical value on the sheet, marking no figure', () => {
+    const s = unrated(1);
+    expect(s.valuesUsed).toEqual([{ field: 'motor.maxLossW', value: 150, basis: 'typical' }]);
+    expect(s.markedFigures).toBeUndefined();
+    expect(s.assumptions.some((a) => a.startsWith('Motor heat limit: 150 W per motor, a rule of thumb of 0.15 W per gram'))).toBe(true);
+    // Other checks do not rest on it: they still read clear.
+    expect(finding(s, 'motor-current').status).toBe('clear');
+    expect(finding(s, 'motor-current').typical).toBeUndefined();
+  });
+
+  it('beside typical road values, a modelled heat finding names both and the sheet keeps them apart', () => {
+    // No measured current: the loss rests on the model, and so on the typical drag area.
+    const s = supplyOf(truckContext({ motor: motor({ maxLossW: null, massKg: 1 }), vehicle: vehicle({ dragAreaM2: null }) }));
+    expect(s.valuesUsed?.map((u) => u.field)).toEqual(['vehicle.dragAreaM2', 'motor.maxLossW']);
+    expect(finding(s, 'motor-heat').typical).toEqual(['vehicle.dragAreaM2', 'motor.maxLossW']);
+    // At a measured current the loss rests on the limit alone.
+    expect(finding(unrated(1, { vehicle: vehicle({ dragAreaM2: null }) }), 'motor-heat').typical).toEqual(['motor.maxLossW']);
+    expect(s.assumptions.find((a) => a.startsWith('Typical values used'))).not.toContain('rule of thumb');
+  });
+
+  it('incomplete where the loss cannot be worked out, naming the missing input', () => {
+    const base = truckContext({ motor: motor({ maxLossW: null, massKg: 0.3, resistanceOhm: null }) });
+    const g = finding(supplyOf({ ...base, build: { ...base.build, measuredAverageCurrentA: 40 } }), 'motor-heat');
+    expect(g.status).toBe('incomplete');
+    expect(g.missing).toEqual(['motor.resistanceOhm']);
+  });
+});
+
+/** The truck at a measured 40 A with a rated heat loss and a mass. */
+function at40RatedAt(maxLossW: number, massKg: number): SupplyVerdict {
+  const base = truckContext({ motor: motor({ maxLossW, massKg }) });
+  return supplyOf({ ...base, build: { ...base.build, measuredAverageCurrentA: 40 } });
+}
+
+describe('BEC current', () => {
+  // A controller's BEC rated 3 A against what the receiver and servos draw, as entered. Check
+  // values worked by hand against the default 15 % tight threshold; the loads are of the size a
+  // receiver with a few standard servos draws, more with a servo near stall (common practice,
+  // from memory).
+  const withBec = (ratingA: number | null, loadA: number | null): SupplyVerdict => {
+    const base = truckContext({ controller: controller({ becCurrentA: ratingA }) });
+    return supplyOf({ ...base, build: { ...base.build, becLoadA: loadA } });
+  };
+
+  it('over: 3.5 A of load on a 3 A BEC', () => {
+    const s = withBec(3, 3.5);
+    const f = finding(s, 'bec-current');
+    expect(f).toMatchObject({ status: 'over', value: 3.5, limit: 3, unit: 'A' });
+    expect(f.message).toMatch(/receiver browns out/);
+    expect(s.figures.becLoadA).toBe(3.5);
+  });
+
+  it('tight: 2.8 A on 3 A leaves (3 − 2.8) ÷ 3 = 6.7 %, under the 15 % threshold', () => {
+    const f = finding(withBec(3, 2.8), 'bec-current');
+    expect(f.margin).toBeCloseTo(0.2 / 3, 9);
+    expect(f.status).toBe('tight');
+  });
+
+  it('clear: 2 A on 3 A leaves 33 %; the build’s own threshold decides tight', () => {
+    expect(finding(withBec(3, 2), 'bec-current').status).toBe('clear');
+    const base = truckContext({ controller: controller({ becCurrentA: 3 }) });
+    const strict = supplyOf({ ...base, build: { ...base.build, becLoadA: 2, tightThreshold: 0.4 } });
+    expect(finding(strict, 'bec-current').status).toBe('tight');
+  });
+
+  it('incomplete input: a rating without a load (or a load without a rating) is left out, never claimed clear', () => {
+    for (const s of [withBec(3, null), withBec(null, 2), withBec(null, null)]) {
+      expect(s.findings.some((f) => f.rule === 'bec-current')).toBe(false);
+    }
+    expect(withBec(3, null).figures.becLoadA).toBeNull();
+    // The load is shown as entered even where the controller has no rating.
+    expect(withBec(null, 2).figures.becLoadA).toBe(2);
   });
 });
 
