@@ -139,7 +139,7 @@ export function checkText(fleet: FleetRecords, verdicts: readonly BuildVerdict[]
       for (const f of s.findings) if (f.status !== 'clear') lines.push(`    ${WORD[f.status]} ${ruleWords(f.rule)}: ${f.message}`);
       for (const c of cautionsOfAll(s.findings, lithium(s))) cautions.add(c);
       for (const a of s.assumptions) lines.push(`    assumed: ${a}`);
-      for (const u of s.valuesUsed ?? []) lines.push(`    ${u.basis}: ${u.field} ${formatNumber(u.value)}`);
+      for (const u of s.valuesUsed ?? []) lines.push(`    ${u.basis === 'rule-of-thumb' ? 'rule of thumb' : u.basis}: ${u.field} ${formatNumber(u.value)}`);
     });
     lines.push('');
   }

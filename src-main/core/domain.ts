@@ -143,7 +143,8 @@ export interface ValueUsed {
   /** Field path: `vehicle.dragAreaM2`, `propeller.powerCoefficient`. */
   field: string;
   value: number;
-  basis: 'typical' | 'estimated';
+  /** Typical for the kind, estimated from geometry, or a rule of thumb standing in for a rating (a limit, not an input). */
+  basis: 'typical' | 'estimated' | 'rule-of-thumb';
   /** For an estimated value, how it was estimated. */
   method?: PropellerEstimateMethod;
 }

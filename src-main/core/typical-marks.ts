@@ -61,7 +61,7 @@ export function markTypical(inp: BuildInputs, findings: Finding[], figures: Figu
   }
   const heat = inp.motorHeatLimit;
   if (heat?.ruleOfThumb) markHeatLimit(findings, messages);
-  const heatUsed: ValueUsed[] = heat?.ruleOfThumb ? [{ field: HEAT_LIMIT_FIELD, value: heat.lossW, basis: 'typical' }] : [];
+  const heatUsed: ValueUsed[] = heat?.ruleOfThumb ? [{ field: HEAT_LIMIT_FIELD, value: heat.lossW, basis: 'rule-of-thumb' }] : [];
   if (valuesUsed.length === 0) return { valuesUsed: heatUsed, markedFigures: [] };
   const markedFigures: FigureKey[] = [];
   for (const key of FIGURE_KEYS) {
@@ -117,7 +117,7 @@ export function typicalSentences(inp: BuildInputs, kind: VehicleKind | null, mar
         : `Air: ${fmt(a.densityKgM3)} kg/m\u00b3 at ${fmt(inp.fieldAltitudeM ?? 0)} m and ${fmt(a.temperatureC)} \u00b0C (${a.standardTemperature ? 'the standard temperature for the altitude' : 'as entered'}; pressure from the ISO 2533 standard atmosphere).`,
     );
   }
-  const typical = marks.valuesUsed.filter((u) => u.basis === 'typical' && u.field !== HEAT_LIMIT_FIELD);
+  const typical = marks.valuesUsed.filter((u) => u.basis === 'typical');
   if (typical.length > 0) {
     const surface = inp.surface === null ? 'surface not recorded: the highest of any surface' : `on ${inp.surface}`;
     out.push(
@@ -139,7 +139,7 @@ export function typicalSentences(inp: BuildInputs, kind: VehicleKind | null, mar
       out.push(`Estimated from the propeller's diameter, pitch and blade count (blade-element momentum theory, about \u00b1${Math.round(ESTIMATE.accuracy * 100)} %): ${values}. ` + until);
     }
   }
-  const heat = marks.valuesUsed.find((u) => u.field === HEAT_LIMIT_FIELD);
+  const heat = marks.valuesUsed.find((u) => u.basis === 'rule-of-thumb');
   if (heat) {
     out.push(
       `Motor heat limit: ${fmt(heat.value)} W per motor, a rule of thumb of ${LOSS_W_PER_GRAM} W per gram of motor mass (common practice, set on the low side), since the motor has no rated heat loss; the check reads no better than tight until the maker's rating is entered on the motor.`,

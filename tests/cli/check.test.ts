@@ -223,7 +223,7 @@ describe('rigbook check', () => {
     expect(plain.findings.some((x) => x.rule === 'bec-current')).toBe(false);
     // 300 g × 0.15 W/g (the rule of thumb, common practice, from memory) = 45 W.
     const byMass = byId.get('by-mass')!;
-    expect(byMass.valuesUsed).toEqual([{ field: 'motor.maxLossW', value: 45, basis: 'typical' }]);
+    expect(byMass.valuesUsed).toEqual([{ field: 'motor.maxLossW', value: 45, basis: 'rule-of-thumb' }]);
     expect(byMass.findings.find((x) => x.rule === 'motor-heat')!.limit).toBe(45);
     expect(byMass.findings.find((x) => x.rule === 'motor-heat')!.status).not.toBe('clear');
     expect(plain.findings.some((x) => x.rule === 'motor-heat')).toBe(false);

@@ -88,7 +88,7 @@ describe('power path', () => {
     expect(askedText(heat, 'metric')).toBe('59.6 W of 150 W rule-of-thumb limit');
     expect(assumedText(heat)).toBe('continuous, measured, full charge, limit by rule of thumb per motor mass');
     expect(askedText({ ...heat, typical: [] }, 'metric')).toBe('59.6 W of 150 W rated loss');
-    expect(valueUsedText({ field: 'motor.maxLossW', value: 150, basis: 'typical' })).toMatch(/^Motor heat limit: 150 W, rule of thumb per motor mass/);
+    expect(valueUsedText({ field: 'motor.maxLossW', value: 150, basis: 'rule-of-thumb' })).toMatch(/^Motor heat limit: 150 W, rule of thumb per motor mass/);
   });
 
   it('class rules fall on the stage of what they limit', () => {

@@ -5,24 +5,25 @@ import { smart } from '../format/number';
 
 // A typical or estimated input as the sheet lists it: what it is, its value, and where it came from.
 
-const WORDS: Readonly<Record<string, { label: string; unit: string; basis?: string }>> = {
+const WORDS: Readonly<Record<string, { label: string; unit: string }>> = {
   'vehicle.dragAreaM2': { label: 'Drag area Cd·A', unit: ' m²' },
   'vehicle.rollingCoefficient': { label: 'Rolling coefficient', unit: '' },
   'vehicle.tractionCoefficient': { label: 'Tyre grip μ', unit: '' },
   'propeller.thrustCoefficient': { label: 'Thrust coefficient C_T', unit: '' },
   'propeller.powerCoefficient': { label: 'Power coefficient C_P', unit: '' },
   // A limit rather than an input: the motor has no rated heat loss.
-  'motor.maxLossW': { label: 'Motor heat limit', unit: ' W', basis: 'rule of thumb per motor mass (no better than tight until the motor maker’s rating is entered)' },
+  'motor.maxLossW': { label: 'Motor heat limit', unit: ' W' },
 };
 
 export function valueUsedText(u: ValueUsed): string {
   const w = WORDS[u.field] ?? { label: u.field, unit: '' };
   const basis =
-    w.basis ??
-    (u.basis !== 'estimated'
-      ? 'typical value for the kind and surface'
-      : u.method === 'water-b-series'
-        ? `estimated (water propeller, B-series at bollard, about ±${Math.round(WATER_ESTIMATE.accuracy * 100)} %)`
-        : `estimated from diameter, pitch and blades (about ±${Math.round(ESTIMATE.accuracy * 100)} %)`);
+    u.basis === 'rule-of-thumb'
+      ? 'rule of thumb per motor mass (no better than tight until the motor maker’s rating is entered)'
+      : u.basis === 'typical'
+        ? 'typical value for the kind and surface'
+        : u.method === 'water-b-series'
+          ? `estimated (water propeller, B-series at bollard, about ±${Math.round(WATER_ESTIMATE.accuracy * 100)} %)`
+          : `estimated from diameter, pitch and blades (about ±${Math.round(ESTIMATE.accuracy * 100)} %)`;
   return `${w.label}: ${smart(u.value)}${w.unit}, ${basis}`;
 }

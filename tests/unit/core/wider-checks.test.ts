@@ -290,7 +290,7 @@ describe('motor heat by the rule of thumb on the motor mass', () => {
 
   it('is listed as a typical value on the sheet, marking no figure', () => {
     const s = unrated(1);
-    expect(s.valuesUsed).toEqual([{ field: 'motor.maxLossW', value: 150, basis: 'typical' }]);
+    expect(s.valuesUsed).toEqual([{ field: 'motor.maxLossW', value: 150, basis: 'rule-of-thumb' }]);
     expect(s.markedFigures).toBeUndefined();
     expect(s.assumptions.some((a) => a.startsWith('Motor heat limit: 150 W per motor, a rule of thumb of 0.15 W per gram'))).toBe(true);
     // Other checks do not rest on it: they still read clear.
