@@ -1,26 +1,12 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import type { Finding, Status } from '../../src-main/core/domain';
+import { flaggedChecks } from '../helpers/flagged-checks';
 import { serviceFixture, seedTwoBuggies, type ServiceFixture } from '../helpers/service-fixture';
 import { forEachEngine } from '../helpers/store-engines';
 
 // The stored list of flagged checks must say what a fresh evaluation of the build says, after a
 // part edit changes which check fails. "Over" is a value past its limit, "tight" a margin under
 // the threshold (common practice for a rating check; the definitions in the design brief).
-
-const RANK: Readonly<Record<Status, number>> = { over: 0, incomplete: 1, tight: 2, clear: 3 };
-
-/** The flagged checks of a fresh sheet, worked out here rather than by the store's encoder. */
-function flaggedOf(findings: readonly Finding[]): string {
-  const worst = new Map<string, Status>();
-  for (const f of findings) {
-    const before = worst.get(f.rule);
-    if (f.status !== 'clear' && (before === undefined || RANK[f.status] < RANK[before])) worst.set(f.rule, f.status);
-  }
-  return [...worst]
-    .sort(([a], [b]) => (a < b ? -1 : 1))
-    .map(([rule, status]) => `${rule}=${status}`)
-    .join(',');
-}
 
 let f: ServiceFixture | undefined;
 forEachEngine((engine) => {
@@ -37,7 +23,7 @@ forEachEngine((engine) => {
   async function fresh(fx: ServiceFixture, buildId: string): Promise<{ flagged: string; findings: Finding[] }> {
     const sheet = await fx.call('builds.get', { id: buildId });
     const findings = sheet.verdict.supplies.flatMap((s) => s.findings);
-    return { flagged: flaggedOf(findings), findings };
+    return { flagged: flaggedChecks(findings), findings };
   }
 
   describe('the checks a verdict row flags', () => {

@@ -5,6 +5,7 @@ import type { ServiceHost } from '../../../src-main/service/contract';
 import type { ServiceContext } from '../../../src-main/service/service-context';
 import { loadBuildContexts } from '../../../src-main/service/recheck';
 import { loadBuilds } from '../../../src-main/store/repositories/builds';
+import { flaggedChecks } from '../../helpers/flagged-checks';
 import { canonical } from './random';
 
 // Checks a store for the promises the write path makes: the file is sound, every record
@@ -142,21 +143,6 @@ export interface VerdictAudit {
   buildsEvaluated: number;
 }
 
-const RANK: Readonly<Record<Status, number>> = { over: 0, incomplete: 1, tight: 2, clear: 3 };
-
-/** Each rule's worst status that is not clear, written out here apart from the store's encoder. */
-function flaggedRules(verdict: BuildVerdict): string {
-  const worst = new Map<string, Status>();
-  for (const f of verdict.supplies.flatMap((s) => s.findings)) {
-    const before = worst.get(f.rule);
-    if (f.status !== 'clear' && (before === undefined || RANK[f.status] < RANK[before])) worst.set(f.rule, f.status);
-  }
-  return [...worst]
-    .sort(([a], [b]) => (a < b ? -1 : 1))
-    .map(([rule, status]) => `${rule}=${status}`)
-    .join(',');
-}
-
 /** Every build's stored verdict (overall, per supply and per flagged check) against core evaluateBuild on the stored records. */
 export function verdictProblems(records: StoreRecords): VerdictAudit {
   const problems: string[] = [];
@@ -171,7 +157,7 @@ export function verdictProblems(records: StoreRecords): VerdictAudit {
     const stored = [verdict.status, ...verdict.supplies.map((s) => `${s.supplyId}=${s.status}`)].join(' ');
     const expected = [fresh.status, ...fresh.supplies.map((s) => `${s.supplyId}=${s.status}`)].join(' ');
     if (stored !== expected) problems.push(`build ${ctx.build.id}: stored verdict "${stored}", fresh evaluation "${expected}"`);
-    const rules = flaggedRules(fresh);
+    const rules = flaggedChecks(fresh.supplies.flatMap((x) => x.findings));
     if (verdict.rules !== rules) problems.push(`build ${ctx.build.id}: stored checks "${verdict.rules}", fresh evaluation "${rules}"`);
   }
   return { problems, buildsEvaluated: records.contexts.length };
