@@ -1,4 +1,4 @@
-import { test, expect } from './local-shell';
+import { test, expect, SCREENSHOT_DIR } from './local-shell';
 import { openApp, seedOneBuild, type StoredRecord } from './app-helpers';
 
 type Flagged = { rule: string; status: string; value: number | null };
@@ -61,6 +61,8 @@ test('the Check filter lists the builds a check flags, and with a verdict only t
   await expect(page.getByTestId('build-count')).toHaveText('2 of 3 shown');
   await expect(rows.filter({ hasText: 'Truck on the snug rating' })).toHaveCount(1);
   await expect(rows.filter({ hasText: 'Test truck 4S' })).toHaveCount(0);
+  await expect(page.getByTestId('check-note')).toContainText('Controller continuous current');
+  await page.screenshot({ path: `${SCREENSHOT_DIR}/builds-list-check-filter.png` });
   await chip('Tight').click();
   await expect(page.getByTestId('build-count')).toHaveText('1 of 3 shown');
   await expect(rows.first()).toContainText('Truck on the snug rating');
@@ -73,6 +75,7 @@ test('the Check filter lists the builds a check flags, and with a verdict only t
 
   await page.getByLabel('Check').selectOption({ label: 'Any check' });
   await expect(page).not.toHaveURL(/check=/);
+  await expect(page.getByTestId('check-note')).toHaveCount(0);
   await page.getByRole('button', { name: 'Clear filters' }).click();
   await expect(page.getByTestId('build-count')).toHaveText('3 builds');
 });
