@@ -102,8 +102,9 @@ export function verdictToRow(verdict: BuildVerdict, evaluatedAt: string): NewVer
   };
 }
 
-// 11 columns a row: 2 900 rows stay under SQLite's 32 766 bound parameters.
-const ROWS_PER_INSERT = 2900;
+// A row binds its build id, its list columns and when it was written: as many rows a statement
+// as stay under SQLite's 32 766 bound parameters, so a new list column cannot overflow it.
+const ROWS_PER_INSERT = Math.floor(32_766 / (LIST_COLUMNS.length + 2));
 
 /** Upserts verdict rows in large batches: a few statements for a 10 000-build re-check. */
 export async function writeVerdicts(db: DbHandle, rows: readonly NewVerdictRow[]): Promise<void> {
