@@ -10,6 +10,9 @@
  */
 export const LOSS_W_PER_GRAM = 0.15;
 
+/** The field a rule-of-thumb heat limit stands in for: a finding marks it in `typical`, the supply lists it among its values used. */
+export const HEAT_LIMIT_FIELD = 'motor.maxLossW';
+
 export interface MotorHeatLimit {
   /** The most heat loss per motor, W. */
   lossW: number;

@@ -7,7 +7,7 @@ import type { BuildInputs } from './build-inputs';
 import { FIGURE_KEYS, FIGURES, type FigureKey } from './catalogue/figures';
 import type { Figures, Finding, ValueUsed, VehicleKind } from './domain';
 import { messageNumber } from './message-number';
-import { LOSS_W_PER_GRAM } from './motor-heat-limit';
+import { HEAT_LIMIT_FIELD, LOSS_W_PER_GRAM } from './motor-heat-limit';
 import { ESTIMATE } from './propeller-estimate';
 import { WATER_ESTIMATE } from './water-propeller-estimate';
 
@@ -26,7 +26,7 @@ const FIELD_WORDS: Readonly<Record<string, string>> = {
   'vehicle.tractionCoefficient': 'tyre grip μ',
   'propeller.thrustCoefficient': 'thrust coefficient C_T',
   'propeller.powerCoefficient': 'power coefficient C_P',
-  'motor.maxLossW': 'a rule of thumb per motor mass',
+  [HEAT_LIMIT_FIELD]: 'a rule of thumb per motor mass',
 };
 
 function valueOf(inp: BuildInputs, field: string): number | null {
@@ -45,9 +45,6 @@ function valueOf(inp: BuildInputs, field: string): number | null {
       return null;
   }
 }
-
-/** The field a rule-of-thumb heat limit stands in for. */
-const HEAT_LIMIT_FIELD = 'motor.maxLossW';
 
 export function markTypical(inp: BuildInputs, findings: Finding[], figures: Figures, messages: boolean): TypicalMarks {
   const valuesUsed: ValueUsed[] = [];

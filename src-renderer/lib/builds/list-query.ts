@@ -1,6 +1,8 @@
 // The builds list's filters, sort and search as the query of its address (`#/builds?v=over&q=4s`),
 // so a reload, a bookmark or the browser's Back opens the list as it was left.
 import { STATUSES, VEHICLE_KINDS, type Status, type VehicleKind } from '$core/domain';
+import * as v from 'valibot';
+import { id } from '$service/schemas/field-builders';
 import { SORT_KEYS, type SortDir, type SortKey } from './build-filter';
 
 export interface ListQuery {
@@ -38,7 +40,7 @@ const listOf = <T extends string>(raw: string | null, allowed: readonly T[]): T[
 };
 
 // A rule id as the service takes one; anything else in the address is no check at all.
-const RULE_ID = /^[A-Za-z0-9][A-Za-z0-9._-]{0,63}$/;
+const RULE_ID = id();
 
 /** Reads the query part of the address; anything unknown or malformed falls back to the default. */
 export function parseListQuery(search: string): ListQuery {
@@ -51,7 +53,7 @@ export function parseListQuery(search: string): ListQuery {
     kinds: listOf(p.get('kind'), VEHICLE_KINDS),
     customer: p.get('customer') ?? '',
     partId: p.get('part') ?? '',
-    rule: RULE_ID.test(check) ? check : '',
+    rule: v.is(RULE_ID, check) ? check : '',
     sortKey: (SORT_KEYS as readonly string[]).includes(sort ?? '') ? (sort as SortKey) : DEFAULT_LIST_QUERY.sortKey,
     sortDir: p.get('dir') === 'desc' ? -1 : 1,
     archived: p.get('archived') === '1',

@@ -1,6 +1,7 @@
 import type { Battery, Controller, Figures, Finding, Motor, Propeller, Status, SupplyVerdict, Vehicle } from '$core/domain';
-import type { FigureKey } from '$core/catalogue/figures';
-import { isMinimumRule } from '$core/catalogue/rules';
+import { FIGURES, type FigureKey } from '$core/catalogue/figures';
+import { isMinimumRule, isRuleId, RULES } from '$core/catalogue/rules';
+import { HEAT_LIMIT_FIELD } from '$core/motor-heat-limit';
 import { compareStatus } from '$core/status';
 import { displayUnit, quantityOfUnit, toDisplay, type UnitSystem } from '$core/units';
 import { DRIVETRAIN_FIGURES, MOTOR_FIGURES, PROPELLER_FIGURES, SUPPLY_FIGURES, figureText, type FigureDef } from '../figures/figure-groups';
@@ -85,8 +86,12 @@ const POINT_WORD: Readonly<Record<string, string>> = {
   'controller-min-voltage': 'peak',
 };
 
-/** Checks whose figure the user entered: no model, no charge state. */
-const ENTERED_RULES: ReadonlySet<string> = new Set(['bec-current']);
+/** A check whose figure the user entered (the figure catalogue's `input` origin): no model, no charge state. */
+function judgesEnteredFigure(rule: string): boolean {
+  if (!isRuleId(rule)) return false;
+  const spec = RULES[rule];
+  return spec.kind === 'rating' && FIGURES[spec.figure].origin === 'input';
+}
 
 const RESISTANCE_WORDS: Readonly<Record<string, string>> = {
   'battery.cellResistanceOhm': 'pack resistance not measured, taken as zero',
@@ -109,14 +114,14 @@ export function askedText(f: Finding, system: UnitSystem): string {
     return ruleName(f.rule);
   }
   if (isMinimumRule(f.rule)) return `${amount(f.value, f.unit, system)}, at least ${amount(f.limit, f.unit, system)} needed`;
-  const word = f.typical?.includes('motor.maxLossW') ? 'rule-of-thumb limit' : (LIMIT_WORD[f.rule] ?? (f.rule.startsWith('class-') ? 'class limit' : 'limit'));
+  const word = f.typical?.includes(HEAT_LIMIT_FIELD) ? 'rule-of-thumb limit' : (LIMIT_WORD[f.rule] ?? (f.rule.startsWith('class-') ? 'class limit' : 'limit'));
   return `${amount(f.value, f.unit, system)} of ${amount(f.limit, f.unit, system)} ${word}`;
 }
 
 /** What the figure behind a check assumed: charge state, model or measured, which point. */
 export function assumedText(f: Finding): string | null {
   if (f.value === null) return null;
-  if (ENTERED_RULES.has(f.rule)) return 'as entered on the build';
+  if (judgesEnteredFigure(f.rule)) return 'as entered on the build';
   const parts: string[] = [];
   const point = POINT_WORD[f.rule];
   if (point) parts.push(point);
@@ -124,9 +129,9 @@ export function assumedText(f: Finding): string | null {
   else if (f.unit === 'rpm' || f.unit === 'm/s') parts.push('model');
   parts.push(f.rule === 'controller-min-voltage' ? 'cut-off' : 'full charge');
   for (const a of f.assumed ?? []) parts.push(RESISTANCE_WORDS[a] ?? `${a} taken as zero`);
-  const inputs = (f.typical ?? []).filter((t) => t !== 'motor.maxLossW');
+  const inputs = (f.typical ?? []).filter((t) => t !== HEAT_LIMIT_FIELD);
   if (inputs.length > 0) parts.push(inputs.some((t) => t.startsWith('propeller.')) ? 'estimated propeller values' : 'typical values used');
-  if (f.typical?.includes('motor.maxLossW')) parts.push('limit by rule of thumb per motor mass');
+  if (f.typical?.includes(HEAT_LIMIT_FIELD)) parts.push('limit by rule of thumb per motor mass');
   return parts.join(', ');
 }
 
