@@ -17,7 +17,7 @@
 //    point (a boat known by diameter × pitch read incomplete before; now no better than tight).
 //    and stored verdicts list the checks that are not clear, rule by rule, for the list's check filter
 //    (rows written before hold none until re-checked).
-//    and BEC current (a controller's BEC rating against the build's receiver and servo load, where
-//    both are entered); motor heat judged against a rule of thumb per motor mass where the maker
+//    and BEC current (a controller's BEC rating against the build's receiver and servo load, where a
+//    load is entered; incomplete without the rating); motor heat judged against a rule of thumb per motor mass where the maker
 //    rates no heat loss (no better than tight).
 export const ENGINE_VERSION = 6;

@@ -448,8 +448,10 @@ function evaluateSupply(inp: BuildInputs, supply: Supply, model: Known<SupplyMod
       checkMinimum({ rule: 'controller-min-voltage', unit: 'V', value: finite(loadedCutoffV), overBelow: least, tightBelow: least * (1 + threshold), text: ratingRule('controller-min-voltage').text, source: peakSource, messages }),
     );
   }
-  // The BEC load is the user's own figure; with no load entered there is nothing to claim either way.
-  if (inp.controllerBecA !== null && inp.becLoadA !== null) pushRule(env, 'bec-current', known(inp.becLoadA), known(inp.controllerBecA));
+  // The BEC load is the user's own figure: with none entered there is nothing to judge. A load
+  // entered on a controller whose BEC rating is not known asks for a check that cannot be made:
+  // incomplete, naming the rating, never left out as if nothing were asked.
+  if (inp.becLoadA !== null) pushRule(env, 'bec-current', known(inp.becLoadA), inp.controllerBecA === null ? lacking('controller.becCurrentA') : known(inp.controllerBecA));
   pushPackLimit(env, 'wire-current', contA, s, contSource, (b) => (typeof b.wireGaugeAwg === 'number' ? chassisAmpacity(b.wireGaugeAwg) : null), site.names);
   pushPackLimit(env, 'connector-current', contA, s, contSource, (b) => (typeof b.connectorRatingA === 'number' && b.connectorRatingA > 0 ? b.connectorRatingA : null), site.names);
   const marks: TypicalMarks = markTypical(inp, findings, figures, messages);

@@ -353,13 +353,22 @@ describe('BEC current', () => {
     expect(finding(strict, 'bec-current').status).toBe('tight');
   });
 
-  it('incomplete input: a rating without a load (or a load without a rating) is left out, never claimed clear', () => {
-    for (const s of [withBec(3, null), withBec(null, 2), withBec(null, null)]) {
+  it('no load entered: nothing to judge, so no finding (never claimed clear)', () => {
+    for (const s of [withBec(3, null), withBec(null, null)]) {
       expect(s.findings.some((f) => f.rule === 'bec-current')).toBe(false);
     }
     expect(withBec(3, null).figures.becLoadA).toBeNull();
+  });
+
+  it('incomplete: a load entered on a controller with no BEC rating names the missing rating', () => {
+    const s = withBec(null, 2);
+    const f = finding(s, 'bec-current');
+    expect(f.status).toBe('incomplete');
+    expect(f.missing).toContain('controller.becCurrentA');
+    expect(f.message).toMatch(/BEC current rating/);
+    expect(s.status).not.toBe('clear');
     // The load is shown as entered even where the controller has no rating.
-    expect(withBec(null, 2).figures.becLoadA).toBe(2);
+    expect(s.figures.becLoadA).toBe(2);
   });
 });
 
