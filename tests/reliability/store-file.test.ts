@@ -181,6 +181,26 @@ describe('restore', () => {
     expect(history.at(-1)).toMatchObject({ action: 'restore', entityKind: 'store' });
   });
 
+  it('corrects a restored file whose stored check lists were emptied, though its verdicts were left as they were', async () => {
+    const t = temp();
+    const target = t.file('rigbook.sqlite');
+    await seededStore(target, 20, 7);
+    const backup = t.file('backup.sqlite');
+    await backupOf(target, backup);
+    // Only the checks the list filters on are emptied: a build would drop out of "every build
+    // whose controller check is over" while its badge still says over.
+    const db = new Database(backup);
+    const hidden = db.prepare("update verdicts set ruleStatuses = '' where ruleStatuses <> ''").run().changes;
+    db.close();
+    expect(hidden).toBeGreaterThan(0);
+
+    const run = await rigbook(['restore', backup, '--db', target, '--json']);
+    expect(run.code, run.err).toBe(0);
+    expect(JSON.parse(run.out)).toMatchObject({ rechecked: 20 });
+    // The audit compares every stored check list with a fresh evaluation.
+    await auditedDump(target);
+  });
+
   it('refuses a backup whose table lost columns, naming the first difference, and replaces nothing', async () => {
     const t = temp();
     const target = t.file('rigbook.sqlite');
