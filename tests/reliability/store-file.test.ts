@@ -159,21 +159,26 @@ describe('restore', () => {
     expect(readdirSync(t.dir).sort()).toEqual(['backup.sqlite', 'backups', 'rigbook.sqlite'].filter((n) => existsSync(join(t.dir, n))).sort());
   });
 
-  it('re-checks every build of a restored file whose stored verdicts were edited, and records it in history', async () => {
+  /** A seeded store restored from its own backup after `lie` (SQL) edited the backup's verdict rows. */
+  async function restoreAfterLie(lie: string): Promise<{ target: string; changed: number; out: { rechecked: number; verdictChanges: number } }> {
     const t = temp();
     const target = t.file('rigbook.sqlite');
     await seededStore(target, 20, 7);
     const backup = t.file('backup.sqlite');
     await backupOf(target, backup);
     const db = new Database(backup);
-    const lied = db.prepare("update verdicts set status = 'clear', supplyStatuses = '' where status <> 'clear'").run().changes;
+    const changed = db.prepare(lie).run().changes;
     db.close();
-    expect(lied).toBeGreaterThan(0);
-
     const run = await rigbook(['restore', backup, '--db', target, '--json']);
     expect(run.code, run.err).toBe(0);
-    expect(JSON.parse(run.out)).toMatchObject({ rechecked: 20 });
-    expect(JSON.parse(run.out).verdictChanges).toBeGreaterThanOrEqual(lied);
+    return { target, changed, out: JSON.parse(run.out) as { rechecked: number; verdictChanges: number } };
+  }
+
+  it('re-checks every build of a restored file whose stored verdicts were edited, and records it in history', async () => {
+    const { target, changed: lied, out } = await restoreAfterLie("update verdicts set status = 'clear', supplyStatuses = '' where status <> 'clear'");
+    expect(lied).toBeGreaterThan(0);
+    expect(out).toMatchObject({ rechecked: 20 });
+    expect(out.verdictChanges).toBeGreaterThanOrEqual(lied);
     await auditedDump(target);
     const host = await open(target);
     const history = await readHistory(host);
@@ -182,21 +187,11 @@ describe('restore', () => {
   });
 
   it('corrects a restored file whose stored check lists were emptied, though its verdicts were left as they were', async () => {
-    const t = temp();
-    const target = t.file('rigbook.sqlite');
-    await seededStore(target, 20, 7);
-    const backup = t.file('backup.sqlite');
-    await backupOf(target, backup);
     // Only the checks the list filters on are emptied: a build would drop out of "every build
     // whose controller check is over" while its badge still says over.
-    const db = new Database(backup);
-    const hidden = db.prepare("update verdicts set ruleStatuses = '' where ruleStatuses <> ''").run().changes;
-    db.close();
+    const { target, changed: hidden, out } = await restoreAfterLie("update verdicts set ruleStatuses = '' where ruleStatuses <> ''");
     expect(hidden).toBeGreaterThan(0);
-
-    const run = await rigbook(['restore', backup, '--db', target, '--json']);
-    expect(run.code, run.err).toBe(0);
-    expect(JSON.parse(run.out)).toMatchObject({ rechecked: 20 });
+    expect(out).toMatchObject({ rechecked: 20 });
     // The audit compares every stored check list with a fresh evaluation.
     await auditedDump(target);
   });
