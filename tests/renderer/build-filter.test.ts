@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { EMPTY_FILTER, countByStatus, filterSummaries, haystackOf, customersOf, matchingPositions, narrows, peakShare, RuleFlags, ruleOptions, SHOP_OWN, sortSummaries } from '../../src-renderer/lib/builds/build-filter';
+import { EMPTY_FILTER, countByStatus, filterKey, filterSummaries, haystackOf, customersOf, matchingPositions, narrows, peakShare, RuleFlags, ruleOptions, SHOP_OWN, sortSummaries } from '../../src-renderer/lib/builds/build-filter';
 import { RULE_IDS } from '../../src-main/core/catalogue/rules';
 import type { BuildSummary } from '../../src-renderer/lib/builds/build-summary';
 
@@ -61,6 +61,24 @@ describe('builds list filter', () => {
     expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, partId: 'pack-1' }, hay))).toEqual(['a']);
     expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, partId: 'mot-1' }, hay))).toEqual(['b']);
     expect(ids(filterSummaries(rows, { ...EMPTY_FILTER, partId: 'prop-1' }, hay))).toEqual(['c']);
+  });
+});
+
+describe('builds list filter keys', () => {
+  it('gives one key to filters that let the same rows through, and another to any that differ', () => {
+    expect(filterKey({ ...EMPTY_FILTER, text: '  Amber   4s ' })).toBe(filterKey({ ...EMPTY_FILTER, text: 'amber 4S' }));
+    const base = filterKey({ ...EMPTY_FILTER, text: 'a' });
+    for (const other of [
+      { ...EMPTY_FILTER, text: 'ab' },
+      { ...EMPTY_FILTER, text: 'a', statuses: ['over' as const] },
+      { ...EMPTY_FILTER, text: 'a', kinds: ['boat' as const] },
+      { ...EMPTY_FILTER, text: 'a', customer: SHOP_OWN },
+      { ...EMPTY_FILTER, text: 'a', partId: 'pack-1' },
+      { ...EMPTY_FILTER, text: 'a', rule: 'motor-heat' },
+    ])
+      expect(filterKey(other)).not.toBe(base);
+    // Words are kept apart: "a b" is not "ab".
+    expect(filterKey({ ...EMPTY_FILTER, text: 'a b' })).not.toBe(filterKey({ ...EMPTY_FILTER, text: 'ab' }));
   });
 });
 

@@ -61,6 +61,42 @@ describe('builds list state', () => {
   });
 });
 
+describe('builds list recent filters', () => {
+  it('answers a filter typed again from its recent answer, never from one of another filter or of an older list', async () => {
+    const { f, client } = await clientOnService();
+    fixture = f;
+    const seed = await seedTwoBuggies(f);
+    const list = new BuildsListState(client);
+    const stop = list.follow();
+    await list.load();
+    list.text = '4s';
+    expect(list.visible.map((b) => b.id)).toEqual([seed.onFour.id]);
+    // The search cleared and typed again.
+    list.text = '';
+    expect(list.visible).toHaveLength(2);
+    list.text = '4s';
+    expect(list.visible.map((b) => b.id)).toEqual([seed.onFour.id]);
+    // The same text with a verdict chosen is another filter.
+    expect(list.all.find((b) => b.id === seed.onFour.id)!.status).not.toBe('over');
+    list.statuses = ['over'];
+    expect(list.visible).toEqual([]);
+    list.statuses = [];
+    // Another client makes the 4S buggy over: the re-read list is filtered afresh.
+    await f.call('batteries.update', { id: seed.pack4s.id, expectedVersion: seed.pack4s.version, changes: { cRatingContinuous: 1, cRatingBurst: 1 }, reason: '' });
+    await settle();
+    list.statuses = ['over'];
+    expect(list.visible.map((b) => b.id)).toEqual([seed.onFour.id]);
+    list.statuses = [];
+    expect(list.visible[0]!.status).toBe('over');
+    // Typing on from an answer found in the recent ones narrows it correctly.
+    list.text = '4s buggy';
+    expect(list.visible.map((b) => b.id)).toEqual([seed.onFour.id]);
+    list.text = '4s buggyz';
+    expect(list.visible).toEqual([]);
+    stop();
+  });
+});
+
 describe('part form state', () => {
   it('puts a refused value beside its field and keeps every typed value', async () => {
     const { f, client } = await clientOnService();

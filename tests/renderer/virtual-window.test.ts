@@ -6,10 +6,22 @@ describe('virtual window', () => {
     // 600 px of 32 px rows shows 18.75 rows; scrolled to row 100.
     const w = visibleWindow(3200, 600, 32, 10_000, 6);
     expect(w.start).toBe(94);
-    expect(w.end).toBe(100 + 20 + 6);
+    // From row 100's top edge, 600 px reach into row 118: 19 rows in view, then 6 below.
+    expect(w.end).toBe(100 + 19 + 6);
     expect(w.offset).toBe(94 * 32);
     expect(w.total).toBe(320_000);
     expect(w.end - w.start).toBeLessThan(40);
+  });
+
+  it('counts a partly scrolled top row, and can leave out the rows below the view', () => {
+    // 10 px into row 100: rows 100 to 119 are (partly) in view, 20 of them.
+    expect(visibleWindow(3210, 600, 32, 10_000, 6).end).toBe(100 + 20 + 6);
+    // The frame that answers a keystroke: the overscan above stays (so slots keep their rows), none below.
+    const now = visibleWindow(3200, 600, 32, 10_000, 6, 0);
+    expect(now.start).toBe(94);
+    expect(now.end).toBe(100 + 19);
+    expect(now.slots).toBe(visibleWindow(3200, 600, 32, 10_000, 6).slots);
+    expect(visibleWindow(0, 600, 32, 10_000, 6, 0)).toMatchObject({ start: 0, end: 19 });
   });
 
   it('clamps at both ends of the list', () => {

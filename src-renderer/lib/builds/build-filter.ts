@@ -43,6 +43,12 @@ export function isEmptyFilter(filter: BuildFilter): boolean {
   return filter.text.trim() === '' && filter.statuses.length === 0 && filter.kinds.length === 0 && filter.customer === '' && filter.partId === '' && filter.rule === '';
 }
 
+/** One text for everything that decides which rows a filter lets through, as matchingPositions reads it. */
+export function filterKey(filter: BuildFilter): string {
+  const words = filter.text.trim().toLowerCase().split(/\s+/).join(' ');
+  return [words, filter.statuses.join(','), filter.kinds.join(','), filter.customer, filter.partId, filter.rule].join('\u0000');
+}
+
 /** A row's stored checks read as rule → status, once for each distinct text (a list holds few). */
 export class RuleFlags {
   readonly #decoded = new Map<string, ReadonlyMap<string, Status>>();

@@ -17,7 +17,12 @@ export interface WindowSlice {
   slots: number;
 }
 
-export function visibleWindow(scrollTop: number, viewportHeight: number, rowHeight: number, count: number, overscan = 6): WindowSlice {
+/**
+ * `below` is the overscan under the window, `overscan` by default; the list draws none there in
+ * the frame that answers a keystroke and adds it right after (see BuildsTable.svelte). The
+ * overscan above never changes with it, so a slot keeps its row when the rest is added.
+ */
+export function visibleWindow(scrollTop: number, viewportHeight: number, rowHeight: number, count: number, overscan = 6, below = overscan): WindowSlice {
   const total = count * rowHeight;
   if (rowHeight <= 0) return { start: 0, end: 0, offset: 0, total, slots: 0 };
   const shown = Math.ceil(Math.max(viewportHeight, rowHeight) / rowHeight) + 1;
@@ -26,7 +31,10 @@ export function visibleWindow(scrollTop: number, viewportHeight: number, rowHeig
   const top = Math.max(0, Math.min(scrollTop, Math.max(0, total - viewportHeight)));
   const first = Math.floor(top / rowHeight);
   const start = Math.max(0, first - overscan);
-  const end = Math.min(count, first + shown + overscan);
+  // Below the window: the rows that reach the viewport's bottom edge from where it starts (one
+  // fewer than `shown` when the top row is whole), then the overscan.
+  const inView = Math.floor((top + Math.max(viewportHeight, rowHeight) - 1) / rowHeight) - first + 1;
+  const end = Math.min(count, first + inView + Math.max(0, Math.min(overscan, below)));
   return { start, end, offset: start * rowHeight, total, slots };
 }
 

@@ -6,9 +6,11 @@ import { Loader } from './loader.svelte';
 import { MAX_COMPARED } from '../compare/compare-limit';
 import type { BuildSummary } from '../builds/build-summary';
 import { DEFAULT_LIST_QUERY, type ListQuery } from '../builds/list-query';
-import { countByStatus, haystackOf, isEmptyFilter, matchingPositions, narrows, customersOf, ruleOptions, RuleFlags, sortSummaries, type BuildFilter, type SortDir, type SortKey } from '../builds/build-filter';
+import { countByStatus, filterKey, haystackOf, isEmptyFilter, matchingPositions, narrows, customersOf, ruleOptions, RuleFlags, sortSummaries, type BuildFilter, type SortDir, type SortKey } from '../builds/build-filter';
 
 const NONE: BuildSummary[] = [];
+/** Filters whose answers are kept (see #recent): a word typed and taken back, and a little more. */
+const RECENT_FILTERS = 12;
 
 /** Runs work when the page is idle (after the next frame where idle callbacks are missing). */
 function later(work: (deadline?: { timeRemaining(): number }) => void): void {
@@ -71,6 +73,13 @@ export class BuildsListState {
   #hay: (string | undefined)[] = [];
   /** The last filter and the positions it let through: a keystroke that only narrows it looks at those alone. */
   #lastFilter: { from: readonly BuildSummary[]; filter: BuildFilter; positions: number[] | null } | null = null;
+  /**
+   * The last few filters' answers on the sorted list they ran on, by filterKey: a deletion goes
+   * back to a filter just typed through ('777' → '77'), and is answered here instead of by a pass
+   * over every build.
+   */
+  #recent = new Map<string, { positions: number[]; rows: readonly BuildSummary[] }>();
+  #recentOf: readonly BuildSummary[] | null = null;
   /** Each list's stored checks, decoded once per distinct text. */
   #flags = new RuleFlags();
   /** The builds of the list shown: the active ones, or the archived ones. */
@@ -117,13 +126,29 @@ export class BuildsListState {
       this.#lastFilter = { from: sorted, filter, positions: null };
       return sorted;
     }
+    if (this.#recentOf !== sorted) {
+      this.#recentOf = sorted;
+      this.#recent.clear();
+    }
+    const key = filterKey(filter);
+    const known = this.#recent.get(key);
+    if (known) {
+      // Most recent last, so the oldest is the first to go.
+      this.#recent.delete(key);
+      this.#recent.set(key, known);
+      this.#lastFilter = { from: sorted, filter, positions: known.positions };
+      return known.rows;
+    }
     const hay = this.#hay;
     const byId = this.#haystacks;
     const haystackAt = (i: number): string => (hay[i] ??= byId.get(sorted[i]!.id) ?? haystackOf(sorted[i]!));
     const within = last !== null && last.from === sorted && last.positions !== null && narrows(last.filter, filter) ? last.positions : undefined;
     const positions = matchingPositions(sorted, filter, haystackAt, within, this.ruleStatuses ?? undefined);
     this.#lastFilter = { from: sorted, filter, positions };
-    return positions.map((i) => sorted[i]!);
+    const rows = positions.map((i) => sorted[i]!);
+    this.#recent.set(key, { positions, rows });
+    if (this.#recent.size > RECENT_FILTERS) this.#recent.delete(this.#recent.keys().next().value!);
+    return rows;
   }
 
   /**
