@@ -23,7 +23,7 @@ import { benchListQueries } from './list-query-bench';
 import { benchRecheck, summary, type RecheckBench } from './recheck-bench';
 import { BUDGETS, renderJson, renderMarkdown, renderTable, type Figure } from './report';
 import { benchShell, type ShellBench } from './shell-bench';
-import { median, worst } from './stats';
+import { median, percentile, worst } from './stats';
 
 const RUNS = Math.max(1, Number(process.env.RIGBOOK_BENCH_RUNS ?? 5) || 5);
 const BROWSER = process.env.RIGBOOK_BENCH_BROWSER !== '0';
@@ -224,7 +224,7 @@ async function main(): Promise<void> {
         figures.push({
           group: g,
           name: 'keystroke → updated list painted, 90th percentile',
-          value: latency.length === 0 ? Number.NaN : [...latency].sort((a, b) => a - b)[Math.min(latency.length - 1, Math.floor(latency.length * 0.9))]!,
+          value: percentile(latency, 0.9),
           unit: 'ms',
           detail: 'one keystroke in ten is slower than this',
           budget: BUDGETS.keystroke,

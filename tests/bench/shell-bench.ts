@@ -188,7 +188,7 @@ async function coldStart(browser: Browser, dbPath: string): Promise<{ times: Col
  * and a little: all 10 000 rows to none and back, a digit narrowing step by step, a word.
  * Generated names are "Build 123", owners "Owner 12", vehicles "truck 40"; nothing holds a "z".
  */
-const KEY_SCRIPT: readonly { key: string; label: string }[] = [
+export const KEY_SCRIPT: readonly { key: string; label: string }[] = [
   { key: '7', label: "'' → '7'" },
   { key: '7', label: "'7' → '77'" },
   { key: '7', label: "'77' → '777'" },

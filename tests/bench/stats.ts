@@ -7,6 +7,12 @@ export function median(values: readonly number[]): number {
   return sorted.length % 2 === 1 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
 }
 
+/** The value that a share `p` (0–1) of the values do not exceed, nearest rank; NaN for none. */
+export function percentile(values: readonly number[], p: number): number {
+  if (values.length === 0) return Number.NaN;
+  return [...values].sort((a, b) => a - b)[Math.min(values.length - 1, Math.floor(values.length * p))]!;
+}
+
 export function worst(values: readonly number[]): number {
   return values.length === 0 ? Number.NaN : Math.max(...values);
 }
