@@ -12,14 +12,20 @@ afterEach(async () => {
   fixture = null;
 });
 
+/** Two buggies on a real service, listed by a list state that follows the service's events. */
+async function twoBuggiesListed() {
+  const { f, client } = await clientOnService();
+  fixture = f;
+  const seed = await seedTwoBuggies(f);
+  const list = new BuildsListState(client);
+  const stop = list.follow();
+  await list.load();
+  return { f, seed, list, stop };
+}
+
 describe('builds list state', () => {
   it('filters and sorts the loaded summaries, and follows a re-check made by another client', async () => {
-    const { f, client } = await clientOnService();
-    fixture = f;
-    const seed = await seedTwoBuggies(f);
-    const list = new BuildsListState(client);
-    const stop = list.follow();
-    await list.load();
+    const { f, seed, list, stop } = await twoBuggiesListed();
     expect(list.all.map((b) => b.name).sort()).toEqual(['Buggy on 2S', 'Buggy on 4S']);
     list.text = '4s';
     expect(list.visible.map((b) => b.name)).toEqual(['Buggy on 4S']);
@@ -63,12 +69,7 @@ describe('builds list state', () => {
 
 describe('builds list recent filters', () => {
   it('answers a filter typed again from its recent answer, never from one of another filter or of an older list', async () => {
-    const { f, client } = await clientOnService();
-    fixture = f;
-    const seed = await seedTwoBuggies(f);
-    const list = new BuildsListState(client);
-    const stop = list.follow();
-    await list.load();
+    const { f, seed, list, stop } = await twoBuggiesListed();
     list.text = '4s';
     expect(list.visible.map((b) => b.id)).toEqual([seed.onFour.id]);
     // The search cleared and typed again.
