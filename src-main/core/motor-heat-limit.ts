@@ -13,6 +13,11 @@ export const LOSS_W_PER_GRAM = 0.15;
 /** The field a rule-of-thumb heat limit stands in for: a finding marks it in `typical`, the supply lists it among its values used. */
 export const HEAT_LIMIT_FIELD = 'motor.maxLossW';
 
+/** Whether a finding was judged against the rule of thumb (typical-marks.ts marks it with the field it stands in for). */
+export function judgedByRuleOfThumb(finding: { readonly typical?: readonly string[] }): boolean {
+  return finding.typical?.includes(HEAT_LIMIT_FIELD) ?? false;
+}
+
 export interface MotorHeatLimit {
   /** The most heat loss per motor, W. */
   lossW: number;

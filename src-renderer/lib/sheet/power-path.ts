@@ -1,7 +1,7 @@
 import type { Battery, Controller, Figures, Finding, Motor, Propeller, Status, SupplyVerdict, Vehicle } from '$core/domain';
 import { FIGURES, type FigureKey } from '$core/catalogue/figures';
 import { isMinimumRule, isRuleId, RULES } from '$core/catalogue/rules';
-import { HEAT_LIMIT_FIELD } from '$core/motor-heat-limit';
+import { HEAT_LIMIT_FIELD, judgedByRuleOfThumb } from '$core/motor-heat-limit';
 import { compareStatus } from '$core/status';
 import { displayUnit, quantityOfUnit, toDisplay, type UnitSystem } from '$core/units';
 import { DRIVETRAIN_FIGURES, MOTOR_FIGURES, PROPELLER_FIGURES, SUPPLY_FIGURES, figureText, type FigureDef } from '../figures/figure-groups';
@@ -114,7 +114,7 @@ export function askedText(f: Finding, system: UnitSystem): string {
     return ruleName(f.rule);
   }
   if (isMinimumRule(f.rule)) return `${amount(f.value, f.unit, system)}, at least ${amount(f.limit, f.unit, system)} needed`;
-  const word = f.typical?.includes(HEAT_LIMIT_FIELD) ? 'rule-of-thumb limit' : (LIMIT_WORD[f.rule] ?? (f.rule.startsWith('class-') ? 'class limit' : 'limit'));
+  const word = judgedByRuleOfThumb(f) ? 'rule-of-thumb limit' : (LIMIT_WORD[f.rule] ?? (f.rule.startsWith('class-') ? 'class limit' : 'limit'));
   return `${amount(f.value, f.unit, system)} of ${amount(f.limit, f.unit, system)} ${word}`;
 }
 
@@ -131,7 +131,7 @@ export function assumedText(f: Finding): string | null {
   for (const a of f.assumed ?? []) parts.push(RESISTANCE_WORDS[a] ?? `${a} taken as zero`);
   const inputs = (f.typical ?? []).filter((t) => t !== HEAT_LIMIT_FIELD);
   if (inputs.length > 0) parts.push(inputs.some((t) => t.startsWith('propeller.')) ? 'estimated propeller values' : 'typical values used');
-  if (f.typical?.includes(HEAT_LIMIT_FIELD)) parts.push('limit by rule of thumb per motor mass');
+  if (judgedByRuleOfThumb(f)) parts.push('limit by rule of thumb per motor mass');
   return parts.join(', ');
 }
 

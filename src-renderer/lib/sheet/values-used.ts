@@ -1,4 +1,5 @@
 import type { ValueUsed } from '$core/domain';
+import { HEAT_LIMIT_FIELD } from '$core/motor-heat-limit';
 import { ESTIMATE } from '$core/propeller-estimate';
 import { WATER_ESTIMATE } from '$core/water-propeller-estimate';
 import { smart } from '../format/number';
@@ -12,7 +13,7 @@ const WORDS: Readonly<Record<string, { label: string; unit: string }>> = {
   'propeller.thrustCoefficient': { label: 'Thrust coefficient C_T', unit: '' },
   'propeller.powerCoefficient': { label: 'Power coefficient C_P', unit: '' },
   // A limit rather than an input: the motor has no rated heat loss.
-  'motor.maxLossW': { label: 'Motor heat limit', unit: ' W' },
+  [HEAT_LIMIT_FIELD]: { label: 'Motor heat limit', unit: ' W' },
 };
 
 export function valueUsedText(u: ValueUsed): string {
