@@ -7,8 +7,8 @@ import { SORT_KEYS, type SortDir, type SortKey } from './build-filter';
 
 export interface ListQuery {
   text: string;
-  statuses: Status[];
-  kinds: VehicleKind[];
+  statuses: readonly Status[];
+  kinds: readonly VehicleKind[];
   /** '' every customer, '-' the shop's own, else a customer id. */
   customer: string;
   partId: string;

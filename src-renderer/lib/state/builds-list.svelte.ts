@@ -87,25 +87,22 @@ export class BuildsListState {
   sorted = $derived(sortSummaries(this.scoped, this.sortKey, this.sortDir));
   /** The chosen check's status of each sorted row, by position: worked out when the list or the check changes, not per keystroke. */
   ruleStatuses = $derived(this.rule === '' ? null : this.#flags.statusesOf(this.sorted, this.rule));
-  visible = $derived(this.#filter(this.sorted, { text: this.text, statuses: this.statuses, kinds: this.kinds, customer: this.customer, partId: this.partId, rule: this.rule }));
+  /** What the list is narrowed by, in one value: the filter, the address and "is anything filtered" all read it. */
+  filter = $derived<BuildFilter>({ text: this.text, statuses: this.statuses, kinds: this.kinds, customer: this.customer, partId: this.partId, rule: this.rule });
+  visible = $derived(this.#filter(this.sorted, this.filter));
   customers = $derived(customersOf(this.all));
   /** The check filter's options: the rule catalogue, and the class checks the list flags. */
   rules = $derived(ruleOptions(this.#flags.classRules(this.all), this.rule));
   counts = $derived(countByStatus(this.sorted, this.ruleStatuses ?? undefined));
   /** Everything the address keeps of the list (see list-query.ts). */
   query = $derived<ListQuery>({
-    text: this.text,
-    statuses: this.statuses,
-    kinds: this.kinds,
-    customer: this.customer,
-    partId: this.partId,
-    rule: this.rule,
+    ...this.filter,
     sortKey: this.sortKey,
     sortDir: this.sortDir,
     archived: this.archived,
   });
   selectedIndex = $derived(this.selectedId === null ? -1 : this.visible.findIndex((s) => s.id === this.selectedId));
-  filtering = $derived(this.text.trim() !== '' || this.statuses.length > 0 || this.kinds.length > 0 || this.customer !== '' || this.partId !== '' || this.rule !== '');
+  filtering = $derived(!isEmptyFilter(this.filter));
 
   #pendingChanged = new Set<string>();
   #marking = new Set<string>();
