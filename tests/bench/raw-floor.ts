@@ -9,6 +9,7 @@
 import Database from 'better-sqlite3';
 import type { Battery, BuildContext, BuildVerdict, ClassRule, Controller, Motor, Propeller, Status, Supply, Vehicle } from '../../src-main/core/domain';
 import { evaluateBuild } from '../../src-main/core/evaluate';
+import { encodeRuleStatuses } from '../../src-main/core/rule-statuses';
 import { applyPragmas } from '../../src-main/store/open-database';
 
 export interface FloorTiming {
@@ -90,9 +91,6 @@ function byId<T extends { id: string }>(rows: Row[], map: (row: Row) => T = (row
   return new Map(rows.map((row) => [row.id as string, map(row)]));
 }
 
-const STATUS_RANK: Readonly<Record<Status, number>> = { over: 0, incomplete: 1, tight: 2, clear: 3 };
-const STATUS_NAMES: readonly Status[] = ['over', 'incomplete', 'tight', 'clear'];
-
 /** The list figures of a verdict row, computed the way the store keeps them (the tightest current check's value and limit). */
 function rowValues(verdict: BuildVerdict): [number | null, number | null, number | null, number | null, string | null, string | null, string, string] {
   let fullV: number | null = null;
@@ -103,15 +101,11 @@ function rowValues(verdict: BuildVerdict): [number | null, number | null, number
   let source: string | null = null;
   let tightest = Number.POSITIVE_INFINITY;
   const statuses: string[] = [];
-  // Each rule's worst status over the supplies, clear ones left out (ranks as core/status.ts).
-  const ruleWorst = new Map<string, number>();
   for (const s of verdict.supplies) {
     const f = s.figures;
     if (f.packVoltageFullV !== null && (fullV === null || f.packVoltageFullV > fullV)) fullV = f.packVoltageFullV;
     if (f.theoreticalSpeedKmh !== null && (speed === null || f.theoreticalSpeedKmh > speed)) speed = f.theoreticalSpeedKmh;
     for (const finding of s.findings) {
-      const rank = STATUS_RANK[finding.status];
-      if (rank < 3 && rank < (ruleWorst.get(finding.rule) ?? 3)) ruleWorst.set(finding.rule, rank);
       if (finding.unit !== 'A' || finding.margin === null || finding.value === null || finding.limit === null) continue;
       if (finding.margin < tightest) {
         tightest = finding.margin;
@@ -127,11 +121,8 @@ function rowValues(verdict: BuildVerdict): [number | null, number | null, number
     }
     statuses.push(`${s.supplyId}=${s.status}`);
   }
-  const rules = [...ruleWorst.keys()]
-    .sort((a, b) => (a < b ? -1 : a > b ? 1 : 0))
-    .map((id) => `${id}=${STATUS_NAMES[ruleWorst.get(id)!]!}`)
-    .join(',');
-  return [fullV, speed, peak, limit, rule, source, statuses.join(','), rules];
+  // The checks that are not clear, by the store's own pure encoder, as the evaluation is the engine's own.
+  return [fullV, speed, peak, limit, rule, source, statuses.join(','), encodeRuleStatuses(verdict)];
 }
 
 export class RawFloor {
