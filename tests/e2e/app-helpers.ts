@@ -16,6 +16,9 @@ export interface StoredRecord {
 }
 
 /** A minimal pack + motor + controller + car + build, for tests that need one build and nothing else. */
+/** The test truck's gearing: seedOneBuild's build, and the tests' other builds on the same truck. */
+export const TRUCK_GEARING = { pinionTeeth: 14, spurTeeth: 50, internalRatio: 2.85, tireDiameterMm: 110, drivetrainEfficiency: 0.88 };
+
 export async function seedOneBuild(shell: Shell, overrides: { cRatingContinuous?: number; cRatingBurst?: number } = {}) {
   const pack = await shell.api<StoredRecord>('batteries.create', {
     name: 'Test 4S 5000',
@@ -52,7 +55,7 @@ export async function seedOneBuild(shell: Shell, overrides: { cRatingContinuous?
     motorId: motor.id,
     controllerId: esc.id,
     supplies: [{ arrangement: 'series', batteryIds: [pack.id] }],
-    gearing: { pinionTeeth: 14, spurTeeth: 50, internalRatio: 2.85, tireDiameterMm: 110, drivetrainEfficiency: 0.88 },
+    gearing: TRUCK_GEARING,
   });
   return { pack, motor, esc, car, build: build.record };
 }

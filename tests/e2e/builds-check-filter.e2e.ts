@@ -1,5 +1,5 @@
 import { test, expect, SCREENSHOT_DIR } from './local-shell';
-import { openApp, seedOneBuild, type StoredRecord } from './app-helpers';
+import { openApp, seedOneBuild, TRUCK_GEARING, type StoredRecord } from './app-helpers';
 
 type Flagged = { rule: string; status: string; value: number | null };
 
@@ -19,23 +19,18 @@ test('the Check filter lists the builds a check flags, and with a verdict only t
   const snug = await shell.api<StoredRecord>('controllers.create', { name: 'Snug rating', maxCells: 6, continuousCurrentA: Math.ceil((amps / 0.95) * 10) / 10, burstCurrentA: 900, resistanceOhm: 0.0008 });
   // The snug build is over as a whole for another reason: a pack rated far below its draw.
   const weak = await shell.api<StoredRecord>('batteries.create', { name: 'Weak 4S 5000', chemistry: 'lipo', cellsSeries: 4, capacityMah: 5000, cRatingContinuous: 1, cRatingBurst: 2, cellResistanceOhm: 0.003 });
-  const gearing = { pinionTeeth: 14, spurTeeth: 50, internalRatio: 2.85, tireDiameterMm: 110, drivetrainEfficiency: 0.88 };
-  const over = await shell.api<{ record: StoredRecord }>('builds.create', {
-    name: 'Truck on the half rating',
-    vehicleId: car.id,
-    motorId: motor.id,
-    controllerId: small.id,
-    supplies: [{ arrangement: 'series', batteryIds: [pack.id] }],
-    gearing,
-  });
-  const tight = await shell.api<{ record: StoredRecord }>('builds.create', {
-    name: 'Truck on the snug rating',
-    vehicleId: car.id,
-    motorId: motor.id,
-    controllerId: snug.id,
-    supplies: [{ arrangement: 'series', batteryIds: [weak.id] }],
-    gearing,
-  });
+  // The seeded truck and motor on another controller and pack, geared as the seeded build.
+  const truckOn = (name: string, controllerId: string, batteryId: string) =>
+    shell.api<{ record: StoredRecord }>('builds.create', {
+      name,
+      vehicleId: car.id,
+      motorId: motor.id,
+      controllerId,
+      supplies: [{ arrangement: 'series', batteryIds: [batteryId] }],
+      gearing: TRUCK_GEARING,
+    });
+  const over = await truckOn('Truck on the half rating', small.id, pack.id);
+  const tight = await truckOn('Truck on the snug rating', snug.id, weak.id);
   expect((await findings(shell.api, over.record.id)).find((f) => f.rule === 'controller-continuous')?.status).toBe('over');
   expect((await findings(shell.api, tight.record.id)).find((f) => f.rule === 'controller-continuous')?.status).toBe('tight');
   expect((await findings(shell.api, tight.record.id)).find((f) => f.rule === 'battery-continuous')?.status).toBe('over');

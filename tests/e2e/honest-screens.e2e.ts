@@ -1,6 +1,6 @@
 import type { Page } from '@playwright/test';
 import { test, expect, SCREENSHOT_DIR } from './local-shell';
-import { openApp, seedOneBuild, type SheetValue, type StoredRecord } from './app-helpers';
+import { openApp, seedOneBuild, TRUCK_GEARING, type SheetValue, type StoredRecord } from './app-helpers';
 
 // The screens say what their figures mean, keep their state in the address, can be worked by
 // keyboard, and never let a change that takes a build past a rating pass unremarked.
@@ -90,9 +90,8 @@ test('keyboard: skip link to the list, sort from a column heading, focus on the 
 test('filters, sort and search live in the address: a reload and Back keep them', async ({ page, shell }) => {
   const { car, motor, esc, pack } = await seedOneBuild(shell, { cRatingContinuous: 5, cRatingBurst: 6 });
   const weak = await shell.api<StoredRecord>('batteries.create', { name: 'Spare 4S 3000', chemistry: 'lipo', cellsSeries: 4, capacityMah: 3000, cRatingContinuous: 2, cRatingBurst: 3, cellResistanceOhm: 0.004 });
-  const gearing = { pinionTeeth: 14, spurTeeth: 50, internalRatio: 2.85, tireDiameterMm: 110, drivetrainEfficiency: 0.88 };
   for (const name of ['Blue truck on spare', 'Green truck on spare']) {
-    await shell.api('builds.create', { name, vehicleId: car.id, motorId: motor.id, controllerId: esc.id, gearing, supplies: [{ arrangement: 'series', batteryIds: [weak.id] }] });
+    await shell.api('builds.create', { name, vehicleId: car.id, motorId: motor.id, controllerId: esc.id, gearing: TRUCK_GEARING, supplies: [{ arrangement: 'series', batteryIds: [weak.id] }] });
   }
   await shell.api('builds.create', { name: 'Truck with no controller', vehicleId: car.id, motorId: motor.id, supplies: [{ arrangement: 'series', batteryIds: [pack.id] }] });
   await openApp(page, shell, '#/builds');

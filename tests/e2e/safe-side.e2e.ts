@@ -1,5 +1,5 @@
 import { test, expect } from './local-shell';
-import { openApp, seedOneBuild, type StoredRecord } from './app-helpers';
+import { openApp, seedOneBuild, TRUCK_GEARING, type StoredRecord } from './app-helpers';
 
 test('the build sheet shows the run, each parallel pack with the worst named, and what was assumed', async ({ page, shell }) => {
   const { build, car, motor, esc } = await seedOneBuild(shell);
@@ -11,7 +11,7 @@ test('the build sheet shows the run, each parallel pack with the worst named, an
     motorId: motor.id,
     controllerId: esc.id,
     supplies: [{ arrangement: 'parallel', batteryIds: [small.id, big.id] }],
-    gearing: { pinionTeeth: 14, spurTeeth: 50, internalRatio: 2.85, tireDiameterMm: 110, drivetrainEfficiency: 0.88 },
+    gearing: TRUCK_GEARING,
   });
 
   await openApp(page, shell, `#/builds/${build.id}`);

@@ -1,6 +1,6 @@
 import { test, expect } from './local-shell';
 import { SCREENSHOT_DIR } from './local-shell';
-import { openApp, type StoredRecord } from './app-helpers';
+import { openApp, TRUCK_GEARING, type StoredRecord } from './app-helpers';
 
 // An owner enters a truck the way most do: kind and mass, no drag area, rolling coefficient or
 // grip. The sheet checks every current on typical values, marks the figures resting on them and
@@ -17,7 +17,7 @@ test('a truck on typical values reads tight with its figures marked, and clear o
     motorId: motor.id,
     controllerId: esc.id,
     supplies: [{ batteryIds: [pack.id] }],
-    gearing: { pinionTeeth: 14, spurTeeth: 50, internalRatio: 2.85, tireDiameterMm: 110, drivetrainEfficiency: 0.88 },
+    gearing: TRUCK_GEARING,
   });
 
   await openApp(page, shell, `#/builds/${build.record.id}`);
