@@ -1,17 +1,12 @@
-import { Migrator, sql, type Kysely } from 'kysely';
+import { Migrator } from 'kysely';
 import { afterEach, describe, expect, it } from 'vitest';
 import { staticMigrationProvider } from '../../src-main/store/migration-provider';
 import { openStore } from '../../src-main/store/open-database';
+import { columns } from '../helpers/table-columns';
 import { tempDir } from '../helpers/temp-dir';
 
 const temps: ReturnType<typeof tempDir>[] = [];
 afterEach(() => temps.splice(0).forEach((t) => t.remove()));
-
-// eslint-disable-next-line @typescript-eslint/no-explicit-any -- any database: names are read from the table info
-async function columns(db: Kysely<any>, table: string): Promise<string[]> {
-  const rows = await sql<{ name: string }>`select name from pragma_table_info(${table})`.execute(db);
-  return rows.rows.map((r) => r.name);
-}
 
 describe('the BEC current migration', () => {
   it('adds the controller rating and the build load, null on old rows, and its down removes them', async () => {

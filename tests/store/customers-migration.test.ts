@@ -3,6 +3,7 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { customerIdForOwner } from '../../src-main/core/customer-id';
 import { staticMigrationProvider } from '../../src-main/store/migration-provider';
 import { openStore } from '../../src-main/store/open-database';
+import { columns } from '../helpers/table-columns';
 import { tempDir } from '../helpers/temp-dir';
 
 const temps: ReturnType<typeof tempDir>[] = [];
@@ -10,12 +11,6 @@ afterEach(() => temps.splice(0).forEach((t) => t.remove()));
 
 const BEFORE = '20261202-0005-history-selectors';
 const STEP = '20261203-0008-customers-and-work-orders';
-
-// eslint-disable-next-line @typescript-eslint/no-explicit-any -- any database: names are read from the table info
-async function columns(db: Kysely<any>, table: string): Promise<string[]> {
-  const rows = await sql<{ name: string }>`select name from pragma_table_info(${table})`.execute(db);
-  return rows.rows.map((r) => r.name);
-}
 
 function vehicle(id: string, owner: string) {
   return { id, name: `Vehicle ${id}`, kind: 'car', owner, className: '', version: 1, notes: '', createdAt: 'x', updatedAt: 'x' };
