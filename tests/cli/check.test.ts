@@ -29,6 +29,14 @@ interface CheckOutput {
   }[];
 }
 
+/** Writes `fleet` to `file` in the temp folder, checks it with `--json` (nothing on stderr), and gives the builds by id. */
+async function checkedById(t: ReturnType<typeof temp>, file: string, fleet: unknown): Promise<Map<string, CheckOutput['builds'][number]>> {
+  writeFileSync(t.file(file), JSON.stringify(fleet));
+  const run = await rigbook(['check', t.file(file), '--json']);
+  expect(run.err).toBe('');
+  return new Map((JSON.parse(run.out) as CheckOutput).builds.map((b) => [b.id, b]));
+}
+
 describe('rigbook check', () => {
   it('--json prints exactly the documented shape, and exits 1 when something is over', async () => {
     const t = temp();
@@ -131,11 +139,7 @@ describe('rigbook check', () => {
       { ...truck, id: 'tired-build', name: 'On a retired pack', supplies: [{ batteryIds: ['tired'] }] },
       { ...truck, id: 'quad-build', name: 'Quad', vehicleId: 'quad', propellerId: 'prop-5', motorCount: 4, gearing: { internalRatio: 1 }, supplies: [{ batteryIds: ['pack-6s-5000'] }] },
     );
-    writeFileSync(t.file('safe.json'), JSON.stringify(fleet));
-    const run = await rigbook(['check', t.file('safe.json'), '--json']);
-    expect(run.err).toBe('');
-    const out = JSON.parse(run.out) as CheckOutput;
-    const byId = new Map(out.builds.map((b) => [b.id, b]));
+    const byId = await checkedById(t, 'safe.json', fleet);
 
     const pair = byId.get('pair')!.supplies[0]!;
     const cont = pair.findings.find((x) => x.rule === 'battery-continuous')!;
@@ -174,12 +178,8 @@ describe('rigbook check', () => {
       { ...truck, id: 'plain', name: 'Plain truck build', vehicleId: 'plain-truck' },
       { ...truck, id: 'quad-build', name: 'Quad', vehicleId: 'quad', propellerId: 'prop-5', motorCount: 4, gearing: { internalRatio: 1 }, fieldAltitudeM: 1000, airTemperatureC: 30 },
     );
-    writeFileSync(t.file('plain.json'), JSON.stringify(fleet));
-    const run = await rigbook(['check', t.file('plain.json'), '--json']);
-    expect(run.err).toBe('');
-    const out = JSON.parse(run.out) as CheckOutput;
-    const byId = new Map(out.builds.map((b) => [b.id, b.supplies[0]!]));
-    const plain = byId.get('plain')!;
+    const byId = await checkedById(t, 'plain.json', fleet);
+    const plain = byId.get('plain')!.supplies[0]!;
     expect(plain.valuesUsed.map((u) => [u.field, u.basis])).toEqual([
       ['vehicle.dragAreaM2', 'typical'],
       ['vehicle.rollingCoefficient', 'typical'],
@@ -192,7 +192,7 @@ describe('rigbook check', () => {
     }
     expect(plain.figures.packEnergyWh as number).toBeGreaterThan(0);
     expect(plain.figures.motorLossW as number).toBeGreaterThan(0);
-    const quad = byId.get('quad-build')!;
+    const quad = byId.get('quad-build')!.supplies[0]!;
     expect(quad.valuesUsed.map((u) => u.basis)).toEqual(['estimated', 'estimated']);
     // ISO 2533 at 1000 m with 30 °C: 1.0328 kg/m³ (hand computation in tests/unit/core/wider-checks.test.ts).
     expect(quad.figures.fluidDensityKgM3 as number).toBeCloseTo(1.0328, 4);
@@ -208,21 +208,17 @@ describe('rigbook check', () => {
     fleet.motors!.push({ ...fleet.motors![0]!, id: 'motor-by-mass', name: 'Same can, weighed', massKg: 0.3 });
     const truck = fleet.builds![0]!;
     fleet.builds!.push({ ...truck, id: 'bec', name: 'BEC loaded', becLoadA: 3.5 }, { ...truck, id: 'by-mass', name: 'Heat by mass', motorId: 'motor-by-mass' });
-    writeFileSync(t.file('bec.json'), JSON.stringify(fleet));
-    const run = await rigbook(['check', t.file('bec.json'), '--json']);
-    expect(run.err).toBe('');
-    const out = JSON.parse(run.out) as CheckOutput;
-    const byId = new Map(out.builds.map((b) => [b.id, b.supplies[0]!]));
-    const bec = byId.get('bec')!;
+    const byId = await checkedById(t, 'bec.json', fleet);
+    const bec = byId.get('bec')!.supplies[0]!;
     expect(bec.figures.becLoadA).toBe(3.5);
     expect(bec.findings.find((x) => x.rule === 'bec-current')).toMatchObject({ status: 'over', value: 3.5, limit: 3, unit: 'A' });
     // The same controller without a load entered: the figure is null and the check is left out.
-    const plain = byId.get('truck-on-3s')!;
+    const plain = byId.get('truck-on-3s')!.supplies[0]!;
     expect(Object.keys(plain.figures)).toContain('becLoadA');
     expect(plain.figures.becLoadA).toBeNull();
     expect(plain.findings.some((x) => x.rule === 'bec-current')).toBe(false);
     // 300 g × 0.15 W/g (the rule of thumb, common practice, from memory) = 45 W.
-    const byMass = byId.get('by-mass')!;
+    const byMass = byId.get('by-mass')!.supplies[0]!;
     expect(byMass.valuesUsed).toEqual([{ field: 'motor.maxLossW', value: 45, basis: 'rule-of-thumb' }]);
     expect(byMass.findings.find((x) => x.rule === 'motor-heat')!.limit).toBe(45);
     expect(byMass.findings.find((x) => x.rule === 'motor-heat')!.status).not.toBe('clear');
