@@ -12,6 +12,13 @@
 //                                what a part of each row costs, e.g. {"base": "", "no badge":
 //                                ".rows .badge { display: none }"}
 //   RIGBOOK_KEYS_LABELS=1        also print the median of each key of the script
+//   RIGBOOK_KEYS_KEYS=7,Backspace  press these keys instead of the bench's script (a pair that
+//                                changes every row in view both ways makes the heaviest case)
+//
+// Variants run in a new random order each round, so a machine slowing down over the minutes does
+// not weigh on one of them. Besides the wall-clock work, the thread's own CPU time is given (it
+// leaves out the moments the machine gave the thread's core to something else), with its mean:
+// on a shared machine that is the steadier figure for telling two variants apart.
 
 import { spawn } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
@@ -21,12 +28,13 @@ import { chromium } from '@playwright/test';
 import { CHROMIUM_FLAGS, findBrowser } from '../e2e/find-browser.mjs';
 import { makeStore } from './fleet-stores';
 import { ARM_KEYSTROKE, AWAIT_KEYSTROKE, FIRST_ROW_PROBE, type KeystrokeTimes } from './page-probes';
-import { KEY_SCRIPT } from './shell-bench';
-import { median, percentile } from './stats';
+import { KEY_SCRIPT as BENCH_SCRIPT } from './shell-bench';
+import { mean, median, percentile } from './stats';
 
 const ROOT = path.resolve(import.meta.dirname, '..', '..');
 const BUILD = path.resolve(process.env.RIGBOOK_KEYS_ROOT ?? ROOT);
 const ROUNDS = Math.max(1, Number(process.env.RIGBOOK_KEYS_ROUNDS ?? 5) || 5);
+const KEY_SCRIPT = process.env.RIGBOOK_KEYS_KEYS ? process.env.RIGBOOK_KEYS_KEYS.split(',').map((key) => ({ key, label: key })) : BENCH_SCRIPT;
 const VARIANTS = JSON.parse(process.env.RIGBOOK_KEYS_VARIANTS ?? '{"as built": ""}') as Record<string, string>;
 
 interface TraceEvent {
@@ -34,6 +42,8 @@ interface TraceEvent {
   ph: string;
   ts: number;
   dur?: number;
+  /** The thread's own CPU time over the event, where the trace has it. */
+  tdur?: number;
   pid: number;
   tid: number;
   args?: { data?: { type?: string } };
@@ -72,7 +82,7 @@ async function main(): Promise<void> {
     const keys: { variant: string; label: string; latency: number; counted: boolean }[] = [];
     await browser.startTracing(page, { categories: ['devtools.timeline', 'toplevel'] });
     for (let round = -1; round < ROUNDS; round++) {
-      for (const [variant, css] of Object.entries(VARIANTS)) {
+      for (const [variant, css] of shuffled(Object.entries(VARIANTS))) {
         await page.evaluate(`(() => { const s = document.createElement('style'); s.id = 'keys-variant'; s.textContent = ${JSON.stringify(css)}; document.head.appendChild(s); })()`);
         await page.waitForTimeout(100);
         for (const step of KEY_SCRIPT) {
@@ -97,7 +107,7 @@ async function main(): Promise<void> {
     const keydowns = onMain.filter((e) => e.name === 'EventDispatch' && e.args?.data?.type === 'keydown');
     if (keydowns.length !== keys.length) throw new Error(`the trace holds ${keydowns.length} keydowns for ${keys.length} keys pressed`);
 
-    const byVariant = new Map<string, { work: number[]; keyTask: number[]; frame: number[]; latency: number[]; byLabel: Map<string, number[]> }>();
+    const byVariant = new Map<string, { work: number[]; cpu: number[]; keyTask: number[]; frame: number[]; latency: number[]; byLabel: Map<string, number[]> }>();
     keydowns.forEach((keydown, i) => {
       const key = keys[i]!;
       if (!key.counted) return;
@@ -107,9 +117,10 @@ async function main(): Promise<void> {
       const frame = tasks.find((t) => t.ts >= end && paints.some((p) => p.ts >= t.ts && p.ts <= t.ts + t.dur!));
       const keyMs = keyTask.dur! / 1000;
       const frameMs = frame ? frame.dur! / 1000 : 0;
-      const v = byVariant.get(key.variant) ?? { work: [], keyTask: [], frame: [], latency: [], byLabel: new Map<string, number[]>() };
+      const v = byVariant.get(key.variant) ?? { work: [], cpu: [], keyTask: [], frame: [], latency: [], byLabel: new Map<string, number[]>() };
       byVariant.set(key.variant, v);
       v.work.push(keyMs + frameMs);
+      v.cpu.push(((keyTask.tdur ?? keyTask.dur!) + (frame ? (frame.tdur ?? frame.dur!) : 0)) / 1000);
       v.keyTask.push(keyMs);
       v.frame.push(frameMs);
       v.latency.push(key.latency);
@@ -118,7 +129,7 @@ async function main(): Promise<void> {
     process.stdout.write(`build ${BUILD}, ${ROUNDS} rounds of ${KEY_SCRIPT.length} keys, 10 000 builds; ms of main-thread work (the key's task + the next frame's), then keydown → painted\n`);
     for (const [variant, v] of byVariant) {
       process.stdout.write(
-        `${variant.padEnd(16)} work median ${median(v.work).toFixed(2)}, 90th ${percentile(v.work, 0.9).toFixed(2)} (key task ${median(v.keyTask).toFixed(2)}, frame ${median(v.frame).toFixed(2)}) | latency median ${median(v.latency).toFixed(1)}, 90th ${percentile(v.latency, 0.9).toFixed(1)} | n=${v.work.length}\n`,
+        `${variant.padEnd(16)} work median ${median(v.work).toFixed(2)}, 90th ${percentile(v.work, 0.9).toFixed(2)} (key task ${median(v.keyTask).toFixed(2)}, frame ${median(v.frame).toFixed(2)}) | cpu mean ${mean(v.cpu).toFixed(2)}, median ${median(v.cpu).toFixed(2)} | latency median ${median(v.latency).toFixed(1)}, 90th ${percentile(v.latency, 0.9).toFixed(1)} | n=${v.work.length}\n`,
       );
       if (process.env.RIGBOOK_KEYS_LABELS === '1') for (const [label, xs] of v.byLabel) process.stdout.write(`    ${label.padEnd(28)} ${median(xs).toFixed(2)}\n`);
     }
@@ -127,6 +138,15 @@ async function main(): Promise<void> {
     shell.kill('SIGTERM');
     rmSync(folder, { recursive: true, force: true });
   }
+}
+
+function shuffled<T>(items: readonly T[]): T[] {
+  const out = [...items];
+  for (let i = out.length - 1; i > 0; i--) {
+    const j = Math.floor(Math.random() * (i + 1));
+    [out[i], out[j]] = [out[j]!, out[i]!];
+  }
+  return out;
 }
 
 main().catch((error: unknown) => {
