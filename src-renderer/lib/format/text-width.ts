@@ -5,8 +5,9 @@
 //
 // The bound is the sum of the characters' advances, each rounded up to whole pixels (screens
 // may snap glyph advances to pixels at small sizes), every digit as wide as the widest digit
-// (tabular figures), plus a pixel per character and two more for kerning and shaping. Kerning
-// only narrows Latin text; a character outside the table is measured alone and kept.
+// (tabular figures), plus a pixel per character and two more for kerning and shaping: kerning
+// mostly narrows a pair, and the pixel a character covers the rare pair it widens. Each
+// character is measured alone, once per font.
 
 /** Measures one run of text in a CSS font shorthand, in CSS pixels (a canvas, in the page). */
 export type MeasureText = (font: string, text: string) => number;
