@@ -17,10 +17,11 @@ test('a cell left unclipped never holds text wider than its column, and a long n
   await shell.api('fleet.import', { fleet, mode: 'replace', reason: 'cell fit test' });
 
   for (const width of [1280, 1000]) {
-    await page.setViewportSize({ width, height: 1200 });
+    await page.setViewportSize({ width, height: 1600 });
     await openApp(page, shell, '#/builds');
     const rows = page.getByTestId('build-row');
     await expect(rows.first()).toBeVisible({ timeout: 15_000 });
+    // All 30 rows fit in this window, so every one is drawn.
     await expect.poll(() => rows.count()).toBe(30);
     const cells = await page
       .locator('[data-testid="build-row"] > [role="gridcell"]:is(.name, .text)')
