@@ -43,10 +43,18 @@ export function isEmptyFilter(filter: BuildFilter): boolean {
   return filter.text.trim() === '' && filter.statuses.length === 0 && filter.kinds.length === 0 && filter.customer === '' && filter.partId === '' && filter.rule === '';
 }
 
+/** The words a search text looks for, each to be found somewhere in a row (case aside). */
+function searchWords(text: string): string[] {
+  return text
+    .trim()
+    .toLowerCase()
+    .split(/\s+/)
+    .filter((w) => w !== '');
+}
+
 /** One text for everything that decides which rows a filter lets through, as matchingPositions reads it. */
 export function filterKey(filter: BuildFilter): string {
-  const words = filter.text.trim().toLowerCase().split(/\s+/).join(' ');
-  return [words, filter.statuses.join(','), filter.kinds.join(','), filter.customer, filter.partId, filter.rule].join('\u0000');
+  return [searchWords(filter.text).join(' '), filter.statuses.join(','), filter.kinds.join(','), filter.customer, filter.partId, filter.rule].join('\u0000');
 }
 
 /** A row's stored checks read as rule → status, once for each distinct text (a list holds few). */
@@ -102,11 +110,7 @@ export function matchingPositions(
   /** Each row's status for the filter's check, by position (RuleFlags.statusesOf); worked out here when missing. */
   ruleStatuses?: readonly (Status | undefined)[],
 ): number[] {
-  const words = filter.text
-    .trim()
-    .toLowerCase()
-    .split(/\s+/)
-    .filter((w) => w !== '');
+  const words = searchWords(filter.text);
   const statuses = filter.statuses.length > 0 ? new Set<Status | null>(filter.statuses) : null;
   const kinds = filter.kinds.length > 0 ? new Set<VehicleKind>(filter.kinds) : null;
   const byRule = filter.rule === '' ? null : (ruleStatuses ?? new RuleFlags().statusesOf(rows, filter.rule));
