@@ -1,9 +1,9 @@
 import type { Battery, BuildContext, BuildVerdict, ClassRule, Status } from '../core/domain';
 import { evaluateBuild, type EvaluateOptions } from '../core/evaluate';
-import type { DbHandle } from '../store/db-handle';
-import { selectedBuildIds, selectsNothing, type BuildSelector } from '../store/build-selector';
+import { chunks, type DbHandle } from '../store/db-handle';
+import { selectsNothing, type BuildSelector } from '../store/build-selector';
 import { loadBuildsForEvaluation } from '../store/repositories/builds';
-import { rowToRecord } from '../store/repositories/part-records';
+import { rowToRecord, type PartRecords } from '../store/repositories/part-records';
 import type { VerdictChange } from '../store/repositories/history';
 import { packHealthProblems, withLoggedResistance, type HealthProblem } from '../core/pack-log';
 import { packEventsOf } from '../store/repositories/pack-events';
@@ -16,23 +16,29 @@ export interface RecheckResult {
 }
 
 type RefTable = 'vehicles' | 'motors' | 'controllers' | 'propellers';
-const REF_COLUMN = { vehicles: 'vehicleId', motors: 'motorId', controllers: 'controllerId', propellers: 'propellerId' } as const;
 
-/** The records of one table that the selected builds point to, through a subquery. */
-async function referenced<T extends RefTable>(db: DbHandle, table: T, selector: BuildSelector) {
-  const rows = await db
-    .selectFrom(table as 'motors')
-    .selectAll()
-    .where(
-      'id',
-      'in',
-      db
-        .selectFrom('builds')
-        .select(`builds.${REF_COLUMN[table]}` as 'builds.motorId')
-        .where('builds.id', 'in', selectedBuildIds(db, selector)),
-    )
-    .execute();
-  return new Map(rows.map((row) => [row.id, rowToRecord(table, row)]));
+/** The distinct non-null values, for reading each referenced record once. */
+function distinct(values: Iterable<string | null>): string[] {
+  const out = new Set<string>();
+  for (const v of values) if (v !== null) out.add(v);
+  return [...out];
+}
+
+/**
+ * The records of one table with these ids. The ids come from the builds already read, so each
+ * table is one indexed lookup per chunk of ids rather than another pass over the selected builds.
+ */
+async function recordsById<T extends RefTable>(db: DbHandle, table: T, ids: readonly string[]) {
+  const out = new Map<string, PartRecords[T]>();
+  for (const part of chunks(ids)) {
+    const rows = await db
+      .selectFrom(table as 'motors')
+      .selectAll()
+      .where('id', 'in', part)
+      .execute();
+    for (const row of rows) out.set(row.id, rowToRecord(table, row));
+  }
+  return out;
 }
 
 interface ReferencedPacks {
@@ -44,9 +50,11 @@ interface ReferencedPacks {
  * The packs the selected builds use, as the evaluation sees them: each with its newest logged
  * resistance measurement in place of the typed one, and the health problems its log shows.
  */
-async function referencedPacks(db: DbHandle, selector: BuildSelector, asOf: string): Promise<ReferencedPacks> {
-  const packIds = db.selectFrom('supplyPacks').innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId').select('supplyPacks.batteryId').where('supplies.buildId', 'in', selectedBuildIds(db, selector));
-  const [rows, logs, settings] = await Promise.all([db.selectFrom('batteries').selectAll().where('id', 'in', packIds).execute(), packEventsOf(db, packIds), readSettings(db)]);
+async function referencedPacks(db: DbHandle, packIds: readonly string[], asOf: string): Promise<ReferencedPacks> {
+  const rows = [];
+  for (const part of chunks(packIds)) rows.push(...(await db.selectFrom('batteries').selectAll().where('id', 'in', part).execute()));
+  const logs = await packEventsOf(db, packIds);
+  const settings = await readSettings(db);
   const batteries = new Map<string, Battery>();
   const health = new Map<string, readonly HealthProblem[]>();
   for (const row of rows) {
@@ -63,19 +71,16 @@ async function referencedPacks(db: DbHandle, selector: BuildSelector, asOf: stri
   return { batteries, health };
 }
 
-/** Resolves every record the selected builds refer to, with one query per table. */
+/** Resolves every record the selected builds refer to: the builds first, then each table by the ids they name. */
 export async function loadBuildContexts(db: DbHandle, selector: BuildSelector, defaultTightThreshold: number, asOf: string = new Date().toISOString()): Promise<BuildContext[]> {
   if (selectsNothing(selector)) return [];
-  const [builds, vehicles, motors, controllers, propellers, packs] = await Promise.all([
-    loadBuildsForEvaluation(db, selector),
-    referenced(db, 'vehicles', selector),
-    referenced(db, 'motors', selector),
-    referenced(db, 'controllers', selector),
-    referenced(db, 'propellers', selector),
-    referencedPacks(db, selector, asOf),
-  ]);
-  const { batteries, health } = packs;
-  const classNames = [...new Set([...vehicles.values()].map((x) => x.className).filter((c) => c !== ''))];
+  const builds = await loadBuildsForEvaluation(db, selector);
+  const vehicles = await recordsById(db, 'vehicles', distinct(builds.map((b) => b.vehicleId)));
+  const motors = await recordsById(db, 'motors', distinct(builds.map((b) => b.motorId)));
+  const controllers = await recordsById(db, 'controllers', distinct(builds.map((b) => b.controllerId)));
+  const propellers = await recordsById(db, 'propellers', distinct(builds.map((b) => b.propellerId)));
+  const { batteries, health } = await referencedPacks(db, distinct(builds.flatMap((b) => b.supplies.flatMap((s) => s.batteryIds))), asOf);
+  const classNames = distinct([...vehicles.values()].map((x) => (x.className === '' ? null : x.className)));
   const rules = classNames.length === 0 ? [] : await db.selectFrom('classRules').selectAll().where('className', 'in', classNames).where('archivedAt', 'is', null).execute();
   const rulesByClass = new Map<string, ClassRule[]>();
   for (const row of rules) {
