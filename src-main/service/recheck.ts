@@ -1,9 +1,10 @@
 import type { Battery, BuildContext, BuildVerdict, ClassRule, Status } from '../core/domain';
 import { evaluateBuild, type EvaluateOptions } from '../core/evaluate';
-import { chunks, type DbHandle } from '../store/db-handle';
+import type { DbHandle } from '../store/db-handle';
 import { selectsNothing, type BuildSelector } from '../store/build-selector';
 import { loadBuildsForEvaluation } from '../store/repositories/builds';
 import { rowToRecord, type PartRecords } from '../store/repositories/part-records';
+import { getParts } from '../store/repositories/parts';
 import type { VerdictChange } from '../store/repositories/history';
 import { packHealthProblems, withLoggedResistance, type HealthProblem } from '../core/pack-log';
 import { packEventsOf } from '../store/repositories/pack-events';
@@ -15,7 +16,7 @@ export interface RecheckResult {
   changes: VerdictChange[];
 }
 
-type RefTable = 'vehicles' | 'motors' | 'controllers' | 'propellers';
+type RefTable = 'vehicles' | 'motors' | 'controllers' | 'propellers' | 'batteries';
 
 /** The distinct non-null values, for reading each referenced record once. */
 function distinct(values: Iterable<string | null>): string[] {
@@ -24,21 +25,9 @@ function distinct(values: Iterable<string | null>): string[] {
   return [...out];
 }
 
-/**
- * The records of one table with these ids. The ids come from the builds already read, so each
- * table is one indexed lookup per chunk of ids rather than another pass over the selected builds.
- */
-async function recordsById<T extends RefTable>(db: DbHandle, table: T, ids: readonly string[]) {
-  const out = new Map<string, PartRecords[T]>();
-  for (const part of chunks(ids)) {
-    const rows = await db
-      .selectFrom(table as 'motors')
-      .selectAll()
-      .where('id', 'in', part)
-      .execute();
-    for (const row of rows) out.set(row.id, rowToRecord(table, row));
-  }
-  return out;
+/** The records of one table with these ids, by id (read by getParts, a chunk of ids at a time). */
+async function recordsById<T extends RefTable>(db: DbHandle, table: T, ids: readonly string[]): Promise<Map<string, PartRecords[T]>> {
+  return new Map((await getParts(db, table, ids)).map((record) => [record.id, record]));
 }
 
 interface ReferencedPacks {
@@ -51,22 +40,20 @@ interface ReferencedPacks {
  * resistance measurement in place of the typed one, and the health problems its log shows.
  */
 async function referencedPacks(db: DbHandle, packIds: readonly string[], asOf: string): Promise<ReferencedPacks> {
-  const rows = [];
-  for (const part of chunks(packIds)) rows.push(...(await db.selectFrom('batteries').selectAll().where('id', 'in', part).execute()));
+  const typedPacks = await recordsById(db, 'batteries', packIds);
   const logs = await packEventsOf(db, packIds);
   const settings = await readSettings(db);
   const batteries = new Map<string, Battery>();
   const health = new Map<string, readonly HealthProblem[]>();
-  for (const row of rows) {
-    const typed = rowToRecord('batteries', row);
-    const events = logs.get(row.id);
+  for (const [id, typed] of typedPacks) {
+    const events = logs.get(id);
     if (!events) {
-      batteries.set(row.id, typed);
+      batteries.set(id, typed);
       continue;
     }
-    batteries.set(row.id, withLoggedResistance(typed, events));
+    batteries.set(id, withLoggedResistance(typed, events));
     const problems = packHealthProblems(typed, events, settings.packHealth, asOf);
-    if (problems.length > 0) health.set(row.id, problems);
+    if (problems.length > 0) health.set(id, problems);
   }
   return { batteries, health };
 }

@@ -1,7 +1,7 @@
 import type { Build, Supply, Arrangement } from '../../core/domain';
 import { chunks, type DbHandle } from '../db-handle';
 import type { BuildRow, BuildTable } from '../schema';
-import { byIds, selectedBuildIds, selectorCondition, type BuildSelector } from '../build-selector';
+import { byIds, selectorCondition, type BuildSelector } from '../build-selector';
 
 export type BuildFields = Omit<Build, 'id' | 'version' | 'archivedAt'>;
 
@@ -75,27 +75,32 @@ function buildToColumns(fields: Partial<BuildFields>): Partial<BuildColumns> {
   return { ...rest, ...(gearing ?? {}) };
 }
 
-/** Reads the supplies of the selected builds, in their stored order. */
+/**
+ * Reads the supplies of the selected builds with their packs, in their stored order: one query
+ * (each supply's row repeated for each of its packs), folded by supply.
+ */
 export async function loadSupplies(db: DbHandle, selector: BuildSelector): Promise<Map<string, Supply[]>> {
-  const byBuild = new Map<string, Supply[]>();
-  const byId = new Map<string, Supply>();
-  const supplies = await db.selectFrom('supplies').select(['id', 'buildId', 'arrangement']).where('buildId', 'in', selectedBuildIds(db, selector)).orderBy('buildId').orderBy('position').execute();
-  for (const s of supplies) {
-    const supply: Supply = { id: s.id, arrangement: s.arrangement as Arrangement, batteryIds: [] };
-    byId.set(s.id, supply);
-    const list = byBuild.get(s.buildId);
-    if (list) list.push(supply);
-    else byBuild.set(s.buildId, [supply]);
-  }
-  const packs = await db
-    .selectFrom('supplyPacks')
-    .innerJoin('supplies', 'supplies.id', 'supplyPacks.supplyId')
-    .select(['supplyPacks.supplyId', 'supplyPacks.batteryId'])
-    .where('supplies.buildId', 'in', selectedBuildIds(db, selector))
-    .orderBy('supplyPacks.supplyId')
+  const rows = await db
+    .selectFrom('builds')
+    .innerJoin('supplies', 'supplies.buildId', 'builds.id')
+    .leftJoin('supplyPacks', 'supplyPacks.supplyId', 'supplies.id')
+    .select(['supplies.buildId', 'supplies.id as supplyId', 'supplies.arrangement', 'supplyPacks.batteryId'])
+    .where((eb) => selectorCondition(db, eb, selector))
+    .orderBy('supplies.buildId')
+    .orderBy('supplies.position')
     .orderBy('supplyPacks.position')
     .execute();
-  for (const p of packs) byId.get(p.supplyId)?.batteryIds.push(p.batteryId);
+  const byBuild = new Map<string, Supply[]>();
+  let supply: Supply | undefined;
+  for (const row of rows) {
+    if (supply?.id !== row.supplyId) {
+      supply = { id: row.supplyId, arrangement: row.arrangement as Arrangement, batteryIds: [] };
+      const list = byBuild.get(row.buildId);
+      if (list) list.push(supply);
+      else byBuild.set(row.buildId, [supply]);
+    }
+    if (row.batteryId !== null) supply.batteryIds.push(row.batteryId);
+  }
   return byBuild;
 }
 
@@ -112,45 +117,21 @@ export async function loadBuilds(db: DbHandle, selector: BuildSelector): Promise
 }
 
 /**
- * The selected builds as the evaluation needs them: the builds' own columns in one query, their
- * supplies and packs in a second, folded together by build. Name, notes and bookkeeping are left
- * empty: for the re-check and the sheet's verdict only, never for showing or saving a record.
- * Two queries rather than one join: a joined row repeats the build's twenty columns for every
- * pack, and making those row objects was most of a 10 000-build re-check's reading time.
+ * The selected builds as the evaluation needs them: the builds' evaluation columns, with their
+ * supplies read apart (loadSupplies). Name, notes and bookkeeping are left empty: for the
+ * re-check and the sheet's verdict only, never for showing or saving a record. Not one join of
+ * builds, supplies and packs: a joined row repeats the build's twenty columns for every pack,
+ * and making those row objects was most of a 10 000-build re-check's reading time.
  */
 export async function loadBuildsForEvaluation(db: DbHandle, selector: BuildSelector): Promise<Build[]> {
+  const supplies = await loadSupplies(db, selector);
   const rows = await db
     .selectFrom('builds')
     .select(EVALUATION_COLUMNS)
     .where((eb) => selectorCondition(db, eb, selector))
     .orderBy('builds.id')
     .execute();
-  const packs = await db
-    .selectFrom('builds')
-    .innerJoin('supplies', 'supplies.buildId', 'builds.id')
-    .leftJoin('supplyPacks', 'supplyPacks.supplyId', 'supplies.id')
-    .select(['supplies.buildId', 'supplies.id as supplyId', 'supplies.arrangement', 'supplyPacks.batteryId'])
-    .where((eb) => selectorCondition(db, eb, selector))
-    .orderBy('supplies.buildId')
-    .orderBy('supplies.position')
-    .orderBy('supplyPacks.position')
-    .execute();
-  const out: Build[] = [];
-  const byId = new Map<string, Build>();
-  for (const row of rows) {
-    const build = rowToBuild(row, [], NO_META);
-    out.push(build);
-    byId.set(build.id, build);
-  }
-  let supply: Supply | undefined;
-  for (const row of packs) {
-    if (supply?.id !== row.supplyId) {
-      supply = { id: row.supplyId, arrangement: row.arrangement as Arrangement, batteryIds: [] };
-      byId.get(row.buildId)?.supplies.push(supply);
-    }
-    if (row.batteryId !== null) supply.batteryIds.push(row.batteryId);
-  }
-  return out;
+  return rows.map((row) => rowToBuild(row, supplies.get(row.id) ?? [], NO_META));
 }
 
 export async function getBuilds(db: DbHandle, ids: readonly string[]): Promise<Build[]> {
