@@ -19,7 +19,10 @@
 //   RIGBOOK_KEYS_PREFIX=b        text in the search box before the keys (with RIGBOOK_KEYS_KEYS=o,Backspace:
 //                                the step from one letter to two and back)
 //   RIGBOOK_KEYS_PHASES=1        also print where a key's work goes: the trace events' own time
-//                                (minus the events inside them), by name, mean a key
+//                                (minus the events inside them), by task (the key's, the frame's)
+//                                and name, mean a key
+//   RIGBOOK_KEYS_CATEGORIES=blink,cc  more trace categories, for a finer split of the phases
+//                                (they slow the page a little: compare phases, not figures)
 //
 // Builds and variants run in a new random order each round, so a machine slowing down over the
 // minutes does not weigh on one of them. Besides the wall-clock work, the thread's own CPU time is given (it
@@ -105,7 +108,7 @@ async function openShell(browser: Browser, build: string, dbPath: string): Promi
 async function measureBlock(browser: Browser, page: Page, css: string, into: Figures | null): Promise<void> {
   await page.evaluate(`(() => { const s = document.createElement('style'); s.id = 'keys-variant'; s.textContent = ${JSON.stringify(css)}; document.head.appendChild(s); })()`);
   await page.waitForTimeout(100);
-  await browser.startTracing(page, { categories: ['devtools.timeline', 'toplevel'] });
+  await browser.startTracing(page, { categories: ['devtools.timeline', 'toplevel', ...(process.env.RIGBOOK_KEYS_CATEGORIES ?? '').split(',').filter(Boolean)] });
   const latencies: number[] = [];
   const labels: string[] = [];
   for (const step of KEY_SCRIPT) {
@@ -142,7 +145,10 @@ async function measureBlock(browser: Browser, page: Page, css: string, into: Fig
     into.frame.push(frameMs);
     into.latency.push(latencies[i]!);
     into.byLabel.set(labels[i]!, [...(into.byLabel.get(labels[i]!) ?? []), keyMs + frameMs]);
-    if (PHASES) for (const task of frame ? [keyTask, frame] : [keyTask]) addSelfTimes(onMain, task, into.phases);
+    if (PHASES) {
+      addSelfTimes(onMain, keyTask, into.phases, 'key ');
+      if (frame) addSelfTimes(onMain, frame, into.phases, 'frame ');
+    }
   });
 }
 
@@ -168,7 +174,7 @@ async function main(): Promise<void> {
       );
       if (process.env.RIGBOOK_KEYS_LABELS === '1') for (const [label, xs] of v.byLabel) process.stdout.write(`    ${label.padEnd(28)} ${median(xs).toFixed(2)}\n`);
       if (PHASES) {
-        const top = [...v.phases].sort((a, b) => b[1] - a[1]).slice(0, 14);
+        const top = [...v.phases].sort((a, b) => b[1] - a[1]).slice(0, 18);
         process.stdout.write(`    own time a key: ${top.map(([event, us]) => `${event} ${(us / 1000 / v.work.length).toFixed(2)}`).join(', ')}\n`);
       }
     }
@@ -180,14 +186,15 @@ async function main(): Promise<void> {
 }
 
 /** Adds each event's own time (its duration less that of the events directly inside it) within `task`, by name, in µs. */
-function addSelfTimes(onMain: readonly TraceEvent[], task: TraceEvent, into: Map<string, number>): void {
+function addSelfTimes(onMain: readonly TraceEvent[], task: TraceEvent, into: Map<string, number>, prefix: string): void {
   const end = task.ts + task.dur!;
   const inside = onMain.filter((e) => e.ts >= task.ts && e.ts + e.dur! <= end).sort((a, b) => a.ts - b.ts || b.dur! - a.dur!);
   const stack: { event: TraceEvent; children: number }[] = [];
   const close = (until: number) => {
     while (stack.length > 0 && stack.at(-1)!.event.ts + stack.at(-1)!.event.dur! <= until) {
       const done = stack.pop()!;
-      into.set(done.event.name, (into.get(done.event.name) ?? 0) + done.event.dur! - done.children);
+      const name = prefix + done.event.name;
+      into.set(name, (into.get(name) ?? 0) + done.event.dur! - done.children);
       if (stack.length > 0) stack.at(-1)!.children += done.event.dur!;
     }
   };
