@@ -66,3 +66,36 @@ test('a narrowing search numbers its rows from the top, and no element left from
     expect(strays).toBe(0);
   }
 });
+
+// The body rows place their cells at the places read from the column headings rather than
+// laying out a grid each: the cells must stay under their headings, and follow them when the
+// window is resized without reloading.
+test('every cell of a row lies under its column heading, before and after the window is resized', async ({ page, shell }) => {
+  await shell.api('fleet.import', { fleet: generateFleet({ builds: 40, seed: 7 }), mode: 'replace', reason: 'list window test' });
+  await page.setViewportSize({ width: 1280, height: 800 });
+  await openApp(page, shell, '#/builds');
+  const rows = page.getByTestId('build-row');
+  await expect(rows.first()).toBeVisible({ timeout: 15_000 });
+  const places = () =>
+    page.evaluate(() => {
+      const box = (el: Element) => {
+        const r = el.getBoundingClientRect();
+        return [Math.round(r.left * 4) / 4, Math.round(r.width * 4) / 4];
+      };
+      const heads = [...document.querySelector('[role="columnheader"]')!.parentElement!.children].map(box);
+      const rowCells = [...document.querySelectorAll('[data-testid="build-row"]')].slice(0, 5).map((row) => [...row.children].map(box));
+      return { heads, rowCells };
+    });
+  for (const width of [1280, 1000, 1440]) {
+    await page.setViewportSize({ width, height: 800 });
+    // The headings' widths depend on the window's: at each size they differ from the last.
+    await expect
+      .poll(async () => {
+        const { heads, rowCells } = await places();
+        return rowCells.every((cells) => JSON.stringify(cells) === JSON.stringify(heads)) && heads.length === 9;
+      })
+      .toBe(true);
+    const { heads } = await places();
+    expect(heads[2]![1], `the Build column at ${width} px`).toBeGreaterThanOrEqual(150);
+  }
+});
