@@ -2,8 +2,10 @@
 // it. A slow figure is reported, never thrown: the benchmark informs, it does not gate.
 
 export interface Budget {
-  /** The figure must stay at or under this, in the figure's own unit. */
+  /** The bound, in the figure's own unit. */
   max: number;
+  /** The figure must stay under the bound ("< 16 ms"); otherwise it may reach it ("≤ 1.5×"). */
+  strict: boolean;
   /** The budget in words, as docs/performance.md lists it. */
   text: string;
 }
@@ -21,16 +23,16 @@ export interface Figure {
 
 /** The budgets of docs/performance.md, quoted so the table says what each figure is held to. */
 export const BUDGETS = {
-  evaluation: { max: 20, text: '< 20 µs (one build evaluation)' },
-  operatingPoint: { max: 2, text: '< 2 µs (one motor operating point)' },
-  recheck10k: { max: 300, text: '< 300 ms whole transaction, 10 000 builds' },
-  recheckVsFloor: { max: 1.5, text: '≤ 1.5× the raw floor (DESIGN §9 says 2×; held tighter)' },
-  firstRows: { max: 150, text: '< 150 ms data arrives → first rows' },
-  keystroke: { max: 16, text: '< 16 ms a keystroke' },
-  coldStart: { max: 1500, text: '< 1.5 s cold start → usable list' },
+  evaluation: { max: 20, strict: true, text: '< 20 µs (one build evaluation)' },
+  operatingPoint: { max: 2, strict: true, text: '< 2 µs (one motor operating point)' },
+  recheck10k: { max: 300, strict: true, text: '< 300 ms whole transaction, 10 000 builds' },
+  recheckVsFloor: { max: 1.5, strict: false, text: '≤ 1.5× the raw floor (DESIGN §9 says 2×; held tighter)' },
+  firstRows: { max: 150, strict: true, text: '< 150 ms data arrives → first rows' },
+  keystroke: { max: 16, strict: true, text: '< 16 ms a keystroke' },
+  coldStart: { max: 1500, strict: true, text: '< 1.5 s cold start → usable list' },
   // Sizes, not times: the same on any machine, so these verdicts do not depend on load.
-  firstListPayload: { max: 1.5, text: '≤ 1.5 MiB first builds list, 10 000 builds' },
-  growthPerEdit: { max: 0.05, text: '≤ 0.05 MiB store growth an edit of a part shared by 10 000 builds' },
+  firstListPayload: { max: 1.5, strict: false, text: '≤ 1.5 MiB first builds list, 10 000 builds' },
+  growthPerEdit: { max: 0.05, strict: false, text: '≤ 0.05 MiB store growth an edit of a part shared by 10 000 builds' },
 } as const satisfies Record<string, Budget>;
 
 export function formatValue(value: number, unit: Figure['unit']): string {
@@ -43,7 +45,9 @@ export function formatValue(value: number, unit: Figure['unit']): string {
 export function verdictOf(figure: Figure): 'met' | 'NOT MET' | '' {
   if (!figure.budget) return '';
   if (!Number.isFinite(figure.value)) return 'NOT MET';
-  return figure.value <= figure.budget.max ? 'met' : 'NOT MET';
+  // As the budget reads: a keystroke of exactly 16 ms is not under 16 ms.
+  const within = figure.budget.strict ? figure.value < figure.budget.max : figure.value <= figure.budget.max;
+  return within ? 'met' : 'NOT MET';
 }
 
 function pad(text: string, width: number, right = false): string {
