@@ -99,3 +99,41 @@ test('every cell of a row lies under its column heading, before and after the wi
     expect(heads[2]![1], `the Build column at ${width} px`).toBeGreaterThanOrEqual(150);
   }
 });
+
+// Every column has a least width. A window narrower than all of them together must let the list
+// scroll sideways: the current against its limit, the last column, is never cut off out of reach.
+test('in a window too narrow for every column the list scrolls sideways to the current column, and in a wide one it does not', async ({ page, shell }) => {
+  await shell.api('fleet.import', { fleet: generateFleet({ builds: 40, seed: 7 }), mode: 'replace', reason: 'list window test' });
+  await page.setViewportSize({ width: 1000, height: 800 });
+  await openApp(page, shell, '#/builds');
+  const rows = page.getByTestId('build-row');
+  await expect(rows.first()).toBeVisible({ timeout: 15_000 });
+  const grid = page.getByRole('grid', { name: 'Builds' });
+  const heading = page.getByRole('columnheader', { name: 'Current / limit' });
+  const cell = rows.first().getByTestId('current-cell');
+  // Whether a box lies wholly inside the grid's visible box.
+  const inView = async (box: typeof heading) => {
+    const [g, b] = [(await grid.boundingBox())!, (await box.boundingBox())!];
+    return b.x >= g.x - 0.5 && b.x + b.width <= g.x + g.width + 0.5;
+  };
+  // What can be seen and clicked at a box's centre: a clipped cell is not what is there.
+  const atCentre = (box: typeof heading) =>
+    box.evaluate((el) => {
+      const r = el.getBoundingClientRect();
+      return el.contains(document.elementFromPoint(r.left + r.width / 2, r.top + r.height / 2));
+    });
+  await expect.poll(() => grid.evaluate((el) => el.scrollWidth > el.clientWidth)).toBe(true);
+  expect(await inView(heading)).toBe(false);
+  // Sideways as a user scrolls: the wheel (or a trackpad) over the list.
+  const box = (await grid.boundingBox())!;
+  await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+  await page.mouse.wheel(2000, 0);
+  await expect.poll(() => inView(heading)).toBe(true);
+  expect(await inView(cell)).toBe(true);
+  expect(await atCentre(cell)).toBe(true);
+  await expect(cell).toContainText('A');
+
+  await page.setViewportSize({ width: 1440, height: 800 });
+  await expect.poll(() => grid.evaluate((el) => el.scrollWidth <= el.clientWidth)).toBe(true);
+  expect(await inView(heading)).toBe(true);
+});
