@@ -1,8 +1,7 @@
 // `npm run bench` runs the benchmark as one bundle made with the compiler dist-main/ is made with
 // (esbuild, one file for Node 20, here an ES module for the bench's top-level awaits), not
-// through tsx. tsx transforms each file on its own: every
-// function it names gets a helper call, and every call across modules goes through a module
-// object. On the rules engine that made an evaluation 15–25 % slower than the same code in the
+// through tsx. tsx transforms each file on its own: every function it names gets a helper call,
+// and every call across modules goes through a module object. On the rules engine that made an evaluation 15–25 % slower than the same code in the
 // shipped bundle (measured, docs/performance.md), so the bench reported code that never ships.
 //
 //   node tests/bench/run-bundled.mjs tests/bench/bench.ts [args…]
